@@ -1,0 +1,60 @@
+package org.tufa.cli;
+
+import java.io.PrintWriter;
+import org.tufa.common.InputException;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+
+/** The {@code tufa} command: one subcommand per pipeline stage, plus {@code demo} for the whole job. */
+@Command(
+        name = "tufa",
+        mixinStandardHelpOptions = true,
+        versionProvider = Tufa.Version.class,
+        description = "Terminal Unit Fleet Analysis: point list to Brick model to per-unit fault candidates.",
+        subcommands = {CommandLine.HelpCommand.class})
+public final class Tufa implements Runnable {
+
+    @CommandLine.Spec
+    CommandLine.Model.CommandSpec spec;
+
+    @Override
+    public void run() {
+        throw new CommandLine.ParameterException(spec.commandLine(), "Missing subcommand: try 'tufa --help'.");
+    }
+
+    public static void main(String[] args) {
+        System.exit(execute(args, new PrintWriter(System.out, true), new PrintWriter(System.err, true)));
+    }
+
+    /** Runs the command line with the given streams; used by main and by tests. */
+    public static int execute(String[] args, PrintWriter out, PrintWriter err) {
+        // --debug is read here, before picocli, so it works on every subcommand without being declared on each.
+        boolean debug = java.util.Arrays.asList(args).contains("--debug");
+        String[] rest = java.util.Arrays.stream(args).filter(a -> !a.equals("--debug")).toArray(String[]::new);
+        CommandLine cli = new CommandLine(new Tufa());
+        cli.setOut(out);
+        cli.setErr(err);
+        cli.setExecutionExceptionHandler((ex, commandLine, parseResult) -> {
+            if (ex instanceof InputException) {
+                err.println("tufa: " + ex.getMessage());
+                return ExitCodes.INPUT_ERROR;
+            }
+            if (debug) {
+                ex.printStackTrace(err);
+            }
+            err.println("tufa: internal error (" + ex.getClass().getSimpleName() + ": " + ex.getMessage()
+                    + "); please report it with the command you ran" + (debug ? "" : ", rerun with --debug for details"));
+            return ExitCodes.INTERNAL_ERROR;
+        });
+        return cli.execute(rest);
+    }
+
+    /** Reads the version Maven wrote into the jar manifest. */
+    static final class Version implements CommandLine.IVersionProvider {
+        @Override
+        public String[] getVersion() {
+            String v = Tufa.class.getPackage().getImplementationVersion();
+            return new String[] {"tufa " + (v == null ? "(development build)" : v)};
+        }
+    }
+}
