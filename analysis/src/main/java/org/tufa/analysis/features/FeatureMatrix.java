@@ -1,0 +1,51 @@
+package org.tufa.analysis.features;
+
+import java.util.List;
+
+/**
+ * The samples of one unit in one operating mode, as rows of features in engineering units.
+ *
+ * @param names       feature names (column headers of features.csv)
+ * @param units       engineering unit of each feature, as printed in findings (e.g. "K", "%", "degC")
+ * @param health      per feature: true when a shift in it means the unit behaves differently at the same
+ *                    operating point (a residual, an offset, an activity), false for operating-point
+ *                    features (load level, weather) whose shift alone is a normal regime, not a fault
+ * @param rows        n x p values, no NaN
+ * @param sampleIndex grid index of each row
+ */
+public record FeatureMatrix(List<String> names, List<String> units, boolean[] health, double[][] rows,
+                            int[] sampleIndex) {
+
+    public FeatureMatrix {
+        names = List.copyOf(names);
+        units = List.copyOf(units);
+        if (names.size() != units.size() || names.size() != health.length) {
+            throw new IllegalArgumentException("names, units and health flags differ in length");
+        }
+        if (rows.length != sampleIndex.length) {
+            throw new IllegalArgumentException("rows and sample indices differ in length");
+        }
+    }
+
+    public int size() {
+        return rows.length;
+    }
+
+    public int width() {
+        return names.size();
+    }
+
+    /** Column {@code j} as an array. */
+    public double[] column(int j) {
+        double[] c = new double[rows.length];
+        for (int i = 0; i < rows.length; i++) {
+            c[i] = rows[i][j];
+        }
+        return c;
+    }
+
+    /** Index of a feature by name, or -1. */
+    public int indexOf(String name) {
+        return names.indexOf(name);
+    }
+}

@@ -1,0 +1,190 @@
+package org.tufa.analysis.features;
+
+import java.util.ArrayList;
+import java.util.List;
+
+/**
+ * Builds the feature rows of one unit in one operating mode: the unit's role values in that mode, the upstream
+ * supply-water and outdoor temperatures where present, and physically informed features that make a fault
+ * stand out from a change of load: the coil residual ({@link CoilResponse}), the discharge offset in
+ * ventilation, and the valve activity ({@link ValveActivity}).
+ *
+ * <p>A sample enters only when every feature of the mode has a value; the others are counted by the caller.
+ */
+public final class ModeFeatures {
+
+    /** Half window of the valve activity: 4 samples each side, 2 hours at 15 minutes (common practice, no source). */
+    public static final int ACTIVITY_HALF_WINDOW = 4;
+
+    private ModeFeatures() {
+    }
+
+    /** Modes this class builds features for. */
+    public static final List<String> CLUSTERED_MODES = List.of("cooling", "heating", "ventilation");
+
+    /**
+     * Returns why the unit cannot be analysed in the mode (a missing role), or null when it can.
+     */
+    public static String missingFor(String mode, UnitSignals s) {
+        List<String> missing = new ArrayList<>();
+        if (!UnitSignals.present(s.zoneAirTemperature())) {
+            missing.add("zone_air_temperature");
+        }
+        if (!UnitSignals.present(s.dischargeAirTemperature())) {
+            missing.add("discharge_air_temperature");
+        }
+        if (mode.equals("cooling") && !UnitSignals.present(s.coolingValveCommand())) {
+            missing.add("cooling_valve_command");
+        }
+        if (mode.equals("heating") && !UnitSignals.present(s.heatingValveCommand())) {
+            missing.add("heating_valve_command");
+        }
+        return missing.isEmpty() ? null : "missing " + String.join(", ", missing);
+    }
+
+    /**
+     * Feature rows of the given samples (grid indices, ascending) in the given mode.
+     *
+     * @throws IllegalArgumentException for a mode that is not clustered or a unit that lacks its roles
+     */
+    public static FeatureMatrix build(String mode, UnitSignals s, int[] samples) {
+        String why = missingFor(mode, s);
+        if (why != null) {
+            throw new IllegalArgumentException(why);
+        }
+        return switch (mode) {
+            case "cooling" -> coil(s, samples, true);
+            case "heating" -> coil(s, samples, false);
+            case "ventilation" -> ventilation(s, samples);
+            default -> throw new IllegalArgumentException("no features for mode " + mode);
+        };
+    }
+
+    private static FeatureMatrix coil(UnitSignals s, int[] samples, boolean cooling) {
+        double[] zone = s.zoneAirTemperature();
+        double[] discharge = s.dischargeAirTemperature();
+        double[] valve = cooling ? s.coolingValveCommand() : s.heatingValveCommand();
+        double[] water = cooling ? s.chilledWaterSupplyTemperature() : s.hotWaterSupplyTemperature();
+        boolean hasWater = UnitSignals.present(water);
+        boolean hasOutdoor = UnitSignals.present(s.outdoorAirTemperature());
+        double sign = cooling ? 1 : -1;
+
+        int n = samples.length;
+        double[] v = new double[n];
+        double[] air = new double[n];
+        double[] wat = hasWater ? new double[n] : null;
+        for (int k = 0; k < n; k++) {
+            int i = samples[k];
+            v[k] = valve[i];
+            air[k] = sign * (zone[i] - discharge[i]);
+            if (hasWater) {
+                wat[k] = sign * (zone[i] - water[i]);
+            }
+        }
+        CoilResponse response = CoilResponse.fit(v, air, wat);
+        double[] activity = ValveActivity.of(valve, ACTIVITY_HALF_WINDOW);
+
+        String valveName = cooling ? "cooling_valve_command" : "heating_valve_command";
+        String waterName = cooling ? "chilled_water_supply_temperature" : "hot_water_supply_temperature";
+        Columns c = new Columns();
+        c.add("coil_residual", "K", true);
+        c.add("valve_activity", "%", true);
+        c.add("discharge_air_temperature", "degC", false);
+        c.add("zone_air_temperature", "degC", false);
+        c.add(valveName, "%", false);
+        if (hasWater) {
+            c.add(waterName, "degC", false);
+        }
+        if (hasOutdoor) {
+            c.add("outdoor_air_temperature", "degC", false);
+        }
+        List<double[]> rows = new ArrayList<>(n);
+        List<Integer> index = new ArrayList<>(n);
+        for (int k = 0; k < n; k++) {
+            int i = samples[k];
+            double r = response.residual(v[k], air[k], hasWater ? wat[k] : Double.NaN);
+            double[] row = new double[c.size()];
+            int j = 0;
+            row[j++] = r;
+            row[j++] = activity[i];
+            row[j++] = discharge[i];
+            row[j++] = zone[i];
+            row[j++] = valve[i];
+            if (hasWater) {
+                row[j++] = water[i];
+            }
+            if (hasOutdoor) {
+                row[j++] = s.outdoorAirTemperature()[i];
+            }
+            if (allFinite(row)) {
+                rows.add(row);
+                index.add(i);
+            }
+        }
+        return c.matrix(rows, index);
+    }
+
+    private static FeatureMatrix ventilation(UnitSignals s, int[] samples) {
+        boolean hasOutdoor = UnitSignals.present(s.outdoorAirTemperature());
+        Columns c = new Columns();
+        // Fan only, both valves shut: discharge should equal zone plus fan heat. A persistent offset is a
+        // leaking valve or a biased sensor (notes on ventilation mode; G36 leaking-valve logic).
+        c.add("discharge_offset", "K", true);
+        c.add("discharge_air_temperature", "degC", false);
+        c.add("zone_air_temperature", "degC", false);
+        if (hasOutdoor) {
+            c.add("outdoor_air_temperature", "degC", false);
+        }
+        List<double[]> rows = new ArrayList<>(samples.length);
+        List<Integer> index = new ArrayList<>(samples.length);
+        for (int i : samples) {
+            double[] row = new double[c.size()];
+            row[0] = s.dischargeAirTemperature()[i] - s.zoneAirTemperature()[i];
+            row[1] = s.dischargeAirTemperature()[i];
+            row[2] = s.zoneAirTemperature()[i];
+            if (hasOutdoor) {
+                row[3] = s.outdoorAirTemperature()[i];
+            }
+            if (allFinite(row)) {
+                rows.add(row);
+                index.add(i);
+            }
+        }
+        return c.matrix(rows, index);
+    }
+
+    private static boolean allFinite(double[] row) {
+        for (double x : row) {
+            if (!Double.isFinite(x)) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    /** Collects column names, units and health flags in order. */
+    private static final class Columns {
+        private final List<String> names = new ArrayList<>();
+        private final List<String> units = new ArrayList<>();
+        private final List<Boolean> health = new ArrayList<>();
+
+        void add(String name, String unit, boolean isHealth) {
+            names.add(name);
+            units.add(unit);
+            health.add(isHealth);
+        }
+
+        int size() {
+            return names.size();
+        }
+
+        FeatureMatrix matrix(List<double[]> rows, List<Integer> index) {
+            boolean[] h = new boolean[health.size()];
+            for (int j = 0; j < h.length; j++) {
+                h[j] = health.get(j);
+            }
+            return new FeatureMatrix(names, units, h, rows.toArray(new double[0][]),
+                    index.stream().mapToInt(Integer::intValue).toArray());
+        }
+    }
+}

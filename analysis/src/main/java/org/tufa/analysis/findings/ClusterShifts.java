@@ -1,0 +1,37 @@
+package org.tufa.analysis.findings;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import org.tufa.analysis.features.FeatureMatrix;
+
+/** Per-feature shift of one cluster from the normal cluster, on medians (robust to stray border points). */
+public final class ClusterShifts {
+
+    private ClusterShifts() {
+    }
+
+    public static List<Shift> of(FeatureMatrix features, int[] labels, int normal, int cluster) {
+        List<Shift> out = new ArrayList<>(features.width());
+        for (int j = 0; j < features.width(); j++) {
+            double d = median(features.rows(), labels, cluster, j) - median(features.rows(), labels, normal, j);
+            out.add(new Shift(features.names().get(j), features.units().get(j), d));
+        }
+        return out;
+    }
+
+    static double median(double[][] rows, int[] labels, int label, int column) {
+        double[] v = new double[rows.length];
+        int n = 0;
+        for (int i = 0; i < rows.length; i++) {
+            if (labels[i] == label) {
+                v[n++] = rows[i][column];
+            }
+        }
+        if (n == 0) {
+            return Double.NaN;
+        }
+        Arrays.sort(v, 0, n);
+        return n % 2 == 1 ? v[n / 2] : 0.5 * (v[n / 2 - 1] + v[n / 2]);
+    }
+}
