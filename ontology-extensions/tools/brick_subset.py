@@ -22,7 +22,7 @@ REF = Namespace("https://brickschema.org/schema/Brick/ref#")
 SEEDS = """
 Fan_Coil_Unit FCU Terminal_Unit Variable_Air_Volume_Box Variable_Air_Volume_Box_With_Reheat
 Air_Handling_Unit AHU Rooftop_Unit Chilled_Water_Loop Hot_Water_Loop Water_Loop Chiller Boiler
-Chilled_Water_System Hot_Water_System Pump Chilled_Water_Pump Hot_Water_Pump
+Chilled_Water_System Hot_Water_System Pump Chilled_Water_Pump Hot_Water_Pump Pump_Status
 Valve Chilled_Water_Valve Hot_Water_Valve Heating_Valve Cooling_Valve Reheat_Valve
 Fan Supply_Fan Return_Fan Exhaust_Fan Damper Outside_Damper
 Meter Electrical_Meter Building_Electrical_Meter Thermal_Power_Meter Chilled_Water_Meter Hot_Water_Meter Water_Meter
