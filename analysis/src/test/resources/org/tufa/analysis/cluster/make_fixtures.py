@@ -8,10 +8,11 @@ Outputs (beside this script), all CSV with a header row, floats written with rep
 infinity as "Infinity":
   optics_<name>.csv          input columns x0..x{d-1}, then per sample: core, reach, pred, position (in the
                              ordering), threshold (cluster_optics_dbscan label at the given eps), xi (cluster_optics_xi
-                             leaf label)
+                             leaf label), truth (generating blob, -1 for noise or unknown)
   optics_<name>_clusters.csv the xi clusters [start, end] (ordering positions, inclusive) in scikit-learn's order
   optics_<name>_params.csv   min_samples, threshold eps, xi, min_cluster_size
   iris.csv, pca_iris_<mode>.csv  iris features and PCA results (ratio, explained variance, components, mean, scale)
+  ari_example.csv            two labellings and scikit-learn's adjusted_rand_score of them
 
 Predecessor correction: scikit-learn 1.2.1's _correct_predecessor indexes `ordering` with a predecessor that is
 already a sample index (scikit-learn issue #26324, fixed by pull request #26459 in release 1.3). We replace it by
@@ -61,7 +62,7 @@ def write_csv(name, header, rows):
             f.write(",".join(row) + "\n")
 
 
-def optics_fixture(name, X, min_samples, eps, xi, min_cluster_size):
+def optics_fixture(name, X, min_samples, eps, xi, min_cluster_size, truth=None):
     model = OPTICS(min_samples=min_samples, max_eps=np.inf, metric="minkowski", p=2, cluster_method="xi",
                    xi=xi, min_cluster_size=min_cluster_size).fit(X)
     n, d = X.shape
@@ -72,12 +73,14 @@ def optics_fixture(name, X, min_samples, eps, xi, min_cluster_size):
     xi_labels, clusters = cluster_optics_xi(reachability=model.reachability_, predecessor=model.predecessor_,
                                             ordering=model.ordering_, min_samples=min_samples,
                                             min_cluster_size=min_cluster_size, xi=xi)
-    header = ["x%d" % j for j in range(d)] + ["core", "reach", "pred", "position", "threshold", "xi"]
+    if truth is None:
+        truth = np.full(n, -1)
+    header = ["x%d" % j for j in range(d)] + ["core", "reach", "pred", "position", "threshold", "xi", "truth"]
     rows = []
     for i in range(n):
         rows.append([fmt(v) for v in X[i]] + [fmt(model.core_distances_[i]), fmt(model.reachability_[i]),
                                               str(model.predecessor_[i]), str(position[i]), str(threshold[i]),
-                                              str(xi_labels[i])])
+                                              str(xi_labels[i]), str(truth[i])])
     write_csv("optics_%s.csv" % name, header, rows)
     write_csv("optics_%s_clusters.csv" % name, ["start", "end"], [[str(s), str(e)] for s, e in clusters])
     write_csv("optics_%s_params.csv" % name, ["min_samples", "eps", "xi", "min_cluster_size"],
@@ -104,17 +107,20 @@ def main():
     blobs = [rng.normal([0, 0], 0.5, (900, 2)), rng.normal([4, 4], 0.3, (500, 2)),
              rng.normal([-4, 3], 0.8, (450, 2)), rng.uniform(-8, 8, (150, 2))]
     xb = np.vstack(blobs)
-    xb = xb[rng.permutation(len(xb))]
-    optics_fixture("blobs2d", xb, 10, 0.5, 0.05, 20)
+    tb = np.concatenate([np.full(len(b), k if k < 3 else -1) for k, b in enumerate(blobs)])
+    perm = rng.permutation(len(xb))
+    optics_fixture("blobs2d", xb[perm], 10, 0.5, 0.05, 20, tb[perm])
 
     # 3-D "operating data": one dense normal blob, two small fault blobs, scattered noise (standardised-like scale).
     normal = rng.multivariate_normal([0, 0, 0], [[1.0, 0.6, 0.2], [0.6, 1.0, 0.1], [0.2, 0.1, 0.5]], 1600)
     fault1 = rng.normal([4.0, -3.0, 1.0], 0.25, (120, 3))
     fault2 = rng.normal([-3.5, 3.5, -2.0], 0.2, (60, 3))
     noise = rng.uniform(-7, 7, (70, 3))
-    xo = np.vstack([normal, fault1, fault2, noise])
-    xo = xo[rng.permutation(len(xo))]
-    optics_fixture("operating3d", xo, 20, 0.6, 0.05, 40)
+    parts = [normal, fault1, fault2, noise]
+    xo = np.vstack(parts)
+    to = np.concatenate([np.full(len(b), k if k < 3 else -1) for k, b in enumerate(parts)])
+    perm = rng.permutation(len(xo))
+    optics_fixture("operating3d", xo[perm], 20, 0.6, 0.05, 40, to[perm])
 
     # PCA on iris (Fisher 1936, as shipped by scikit-learn).
     iris = load_iris().data
@@ -126,6 +132,11 @@ def main():
         rows = [[fmt(pca.explained_variance_ratio_[c]), fmt(pca.explained_variance_[c])]
                 + [fmt(v) for v in pca.components_[c]] for c in range(len(pca.components_))]
         write_csv("pca_iris_%s.csv" % mode, header, rows)
+    a = [0, 0, 0, 1, 1, 1, 2, 2, 2, 2, -1, -1]
+    b = [1, 1, 0, 0, 0, 0, 2, 2, 3, 3, 3, -1]
+    from sklearn.metrics import adjusted_rand_score
+    write_csv("ari_example.csv", ["a", "b", "ari"], [[str(u), str(v), fmt(adjusted_rand_score(a, b))]
+                                                   for u, v in zip(a, b)])
     scaler = StandardScaler().fit(iris)
     write_csv("pca_iris_scaler.csv", ["mean", "scale"],
               [[fmt(m), fmt(s)] for m, s in zip(scaler.mean_, scaler.scale_)])
