@@ -1,0 +1,232 @@
+package org.tufa.analysis.trends;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Duration;
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Objects;
+import java.util.TreeMap;
+import java.util.stream.Stream;
+import org.tufa.common.InputException;
+
+/**
+ * Trend data of a whole fleet, read once, kept on disk, and handed out one resampled series at a time on a grid
+ * common to all series.
+ *
+ * <p>{@link #ingest} reads every input once (long or wide CSV, plain or gzip, or folders of them), keeps only the
+ * wanted series, and spills their samples to a temp file ({@link SpillStore}), so memory grows with one series,
+ * not with the fleet. {@link #series} loads and resamples one series; it is thread-safe, for worker threads that
+ * each handle one unit. Close the store to delete its temp file.
+ */
+public final class TrendStore implements AutoCloseable {
+
+    /** Spill buffers in total during ingest: at most about this many bytes, whatever the number of series. */
+    private static final long SPILL_BUFFER_BYTES = 48L << 20;
+
+    private final SpillStore spill;
+    private final Map<String, Integer> index;
+    private final SeriesKind[] kinds;
+    private final IngestReport report;
+    private final long gridStart;
+    private final long interval;
+    private final long maxGap;
+    private final int gridLength;
+
+    private TrendStore(SpillStore spill, Map<String, Integer> index, SeriesKind[] kinds, IngestReport report,
+            long gridStart, long interval, long maxGap, int gridLength) {
+        this.spill = spill;
+        this.index = index;
+        this.kinds = kinds;
+        this.report = report;
+        this.gridStart = gridStart;
+        this.interval = interval;
+        this.maxGap = maxGap;
+        this.gridLength = gridLength;
+    }
+
+    /** Ingest with temp files in {@code java.io.tmpdir}. */
+    public static TrendStore ingest(List<Path> inputs, Map<String, SeriesKind> wanted, TimeOptions options) {
+        return ingest(inputs, wanted, options, Path.of(System.getProperty("java.io.tmpdir")));
+    }
+
+    /**
+     * Reads every input once and keeps the wanted series.
+     *
+     * @param inputs CSV or .csv.gz files, or folders of them (read in file-name order)
+     * @param wanted series ids to keep, with how to read each; other series are counted, not kept
+     * @param options zone, grid, hold limit, window, strictness
+     * @param tempDirectory where the spill file goes
+     * @throws InputException for unreadable input, a missing header or timestamp column, naive time stamps without a
+     *     zone, and (in strict mode) the first unparsable value or stamp
+     */
+    public static TrendStore ingest(List<Path> inputs, Map<String, SeriesKind> wanted, TimeOptions options,
+            Path tempDirectory) {
+        Objects.requireNonNull(options, "options");
+        List<Path> files = expand(inputs);
+        TreeMap<String, SeriesKind> sorted = new TreeMap<>(wanted);
+        String[] ids = sorted.keySet().toArray(String[]::new);
+        SeriesKind[] kinds = sorted.values().toArray(SeriesKind[]::new);
+        Map<String, Integer> index = new TreeMap<>();
+        for (int i = 0; i < ids.length; i++) {
+            index.put(ids[i], i);
+        }
+        int chunkSamples = (int) Math.max(256, Math.min(8192, SPILL_BUFFER_BYTES / 12 / Math.max(1, ids.length)));
+        // Times are stored as int seconds from a base: the window start, or 2000-01-01T00:00Z (years 1932-2067).
+        long base = options.from() != null ? options.from().getEpochSecond() : 946_684_800L;
+        SpillStore spill = new SpillStore(tempDirectory, ids.length, chunkSamples, base);
+        try {
+            TrendReader reader = new TrendReader(ids, kinds, spill, options);
+            List<FileReport> fileReports = new ArrayList<>();
+            for (Path file : files) {
+                fileReports.add(reader.read(file));
+            }
+            spill.finish();
+            long[] first = reader.firstTimes();
+            long[] last = reader.lastTimes();
+            List<SeriesSpan> spans = new ArrayList<>();
+            List<String> neverSeen = new ArrayList<>();
+            long minTime = Long.MAX_VALUE;
+            long maxTime = Long.MIN_VALUE;
+            for (int i = 0; i < ids.length; i++) {
+                if (spill.sampleCount(i) == 0) {
+                    neverSeen.add(ids[i]);
+                } else {
+                    spans.add(new SeriesSpan(ids[i], Instant.ofEpochSecond(first[i]), Instant.ofEpochSecond(last[i]),
+                            spill.sampleCount(i)));
+                    minTime = Math.min(minTime, first[i]);
+                    maxTime = Math.max(maxTime, last[i]);
+                }
+            }
+            IngestReport report = new IngestReport(fileReports, new ArrayList<>(reader.unknownSeries()), spans,
+                    neverSeen);
+            long interval = options.interval().getSeconds();
+            long start;
+            long end;
+            if (options.from() != null) {
+                start = Math.floorDiv(options.from().getEpochSecond(), interval) * interval;
+            } else {
+                start = minTime == Long.MAX_VALUE ? 0 : Math.floorDiv(minTime, interval) * interval;
+            }
+            if (options.to() != null) {
+                end = -Math.floorDiv(-options.to().getEpochSecond(), interval) * interval;
+            } else {
+                end = maxTime == Long.MIN_VALUE ? start : (Math.floorDiv(maxTime, interval) + 1) * interval;
+            }
+            long cells = Math.max(0, (end - start) / interval);
+            if (cells > Integer.MAX_VALUE - 8) {
+                throw new InputException("the trend data span " + cells + " grid cells of " + options.interval()
+                        + "; choose a longer interval or a shorter window (from/to)");
+            }
+            return new TrendStore(spill, index, kinds, report, start, interval, options.maxGap().getSeconds(),
+                    (int) cells);
+        } catch (RuntimeException e) {
+            spill.close();
+            throw e;
+        }
+    }
+
+    /** Files to read: each input file as given; each folder's *.csv and *.csv.gz files, sorted by name. */
+    static List<Path> expand(List<Path> inputs) {
+        if (inputs.isEmpty()) {
+            throw new InputException("no trend files given; pass a CSV file or a folder of CSV files");
+        }
+        List<Path> files = new ArrayList<>();
+        for (Path input : inputs) {
+            if (Files.isDirectory(input)) {
+                List<Path> inFolder;
+                try (Stream<Path> listing = Files.list(input)) {
+                    inFolder = listing.filter(Files::isRegularFile).filter(TrendStore::isTrendFileName)
+                            .sorted((a, b) -> a.getFileName().toString().compareTo(b.getFileName().toString()))
+                            .toList();
+                } catch (IOException e) {
+                    throw InputException.in(input, "cannot list the folder (" + e.getMessage() + ")");
+                }
+                if (inFolder.isEmpty()) {
+                    throw InputException.in(input, "folder holds no .csv or .csv.gz files; point to the trend files");
+                }
+                files.addAll(inFolder);
+            } else if (Files.isRegularFile(input)) {
+                files.add(input);
+            } else {
+                throw InputException.in(input, "no such file or folder; check the trend data path");
+            }
+        }
+        return files;
+    }
+
+    private static boolean isTrendFileName(Path path) {
+        String name = path.getFileName().toString().toLowerCase(Locale.ROOT);
+        return name.endsWith(".csv") || name.endsWith(".csv.gz");
+    }
+
+    public IngestReport report() {
+        return report;
+    }
+
+    /** Start of grid cell 0, the same for every series. */
+    public Instant gridStart() {
+        return Instant.ofEpochSecond(gridStart);
+    }
+
+    public Duration interval() {
+        return Duration.ofSeconds(interval);
+    }
+
+    /** Number of grid cells, the same for every series. */
+    public int gridLength() {
+        return gridLength;
+    }
+
+    /** The wanted series ids, sorted. */
+    public List<String> seriesIds() {
+        return List.copyOf(index.keySet());
+    }
+
+    /**
+     * One series, resampled on the common grid (all NaN if it had no sample). Thread-safe.
+     *
+     * @throws IllegalArgumentException if the id was not among the wanted series
+     */
+    public ResampledSeries series(String id) {
+        Integer i = index.get(id);
+        if (i == null) {
+            throw new IllegalArgumentException("series " + id + " was not requested at ingest");
+        }
+        SpillStore.Samples samples = Resampler.sortedByTime(spill.read(i));
+        long[] times = samples.epochSeconds();
+        double[] values = kinds[i] == SeriesKind.BINARY
+                ? Resampler.binary(times, samples.values(), gridStart, interval, gridLength, maxGap)
+                : Resampler.analog(times, samples.values(), gridStart, interval, gridLength, maxGap);
+        boolean[] hasSample = new boolean[gridLength];
+        int raw = 0;
+        long gridEnd = gridStart + gridLength * interval;
+        for (long t : times) {
+            if (t >= gridStart && t < gridEnd) {
+                raw++;
+                hasSample[(int) ((t - gridStart) / interval)] = true;
+            }
+        }
+        int withSamples = 0;
+        int held = 0;
+        for (int k = 0; k < gridLength; k++) {
+            if (hasSample[k]) {
+                withSamples++;
+            } else if (!Double.isNaN(values[k])) {
+                held++;
+            }
+        }
+        return new ResampledSeries(id, kinds[i], Instant.ofEpochSecond(gridStart), Duration.ofSeconds(interval),
+                values, raw, withSamples, held);
+    }
+
+    /** Deletes the temp file. */
+    @Override
+    public void close() {
+        spill.close();
+    }
+}
