@@ -28,6 +28,9 @@ public final class SparqlQueries {
         TABLE, CSV, JSON
     }
 
+    private static final java.util.regex.Pattern AT_LINE =
+            java.util.regex.Pattern.compile("\\s*at line (\\d+), column (\\d+)\\.?");
+
     private SparqlQueries() {
     }
 
@@ -44,8 +47,18 @@ public final class SparqlQueries {
         try {
             QueryFactory.parse(query, text, null, Syntax.syntaxARQ);
         } catch (QueryParseException e) {
-            String message = firstLine(e.getMessage()).replaceAll("\\s*at line \\d+, column \\d+\\.?", "");
-            String where = e.getLine() > 0 ? ":" + e.getLine() + ": column " + e.getColumn() + ": " : ": ";
+            // JavaCC's message names the offending token ("at line 3, column 3"); the exception's own line and
+            // column point at the token before it, so the message is preferred when it has a position.
+            String first = firstLine(e.getMessage());
+            long line = e.getLine();
+            long column = e.getColumn();
+            java.util.regex.Matcher at = AT_LINE.matcher(first);
+            if (at.find()) {
+                line = Long.parseLong(at.group(1));
+                column = Long.parseLong(at.group(2));
+            }
+            String message = AT_LINE.matcher(first).replaceAll("");
+            String where = line > 0 ? ":" + line + ": column " + column + ": " : ": ";
             throw new InputException(source + where + message + "; fix the query there");
         }
         return query;
