@@ -1,0 +1,176 @@
+package org.tufa.analysis.coverage;
+
+import com.google.gson.GsonBuilder;
+import com.google.gson.JsonArray;
+import com.google.gson.JsonElement;
+import com.google.gson.JsonNull;
+import com.google.gson.JsonObject;
+import com.google.gson.JsonPrimitive;
+import java.io.IOException;
+import java.io.StringWriter;
+import java.io.UncheckedIOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import org.apache.commons.csv.CSVFormat;
+import org.apache.commons.csv.CSVPrinter;
+import org.tufa.common.InputException;
+
+/** Writes {@code coverage.csv} and {@code coverage.json}: same content, JSON adds candidates and hints. */
+public final class CoverageFiles {
+    /** The value of a role column when several points qualified. */
+    public static final String AMBIGUOUS = "ambiguous";
+
+    private CoverageFiles() {
+    }
+
+    /** Writes both files into the directory (created if needed) and returns their paths. */
+    public static List<Path> write(FleetCoverage coverage, Path dir) {
+        try {
+            Files.createDirectories(dir);
+        } catch (IOException e) {
+            throw InputException.in(dir, "cannot create the output directory (" + e.getMessage() + ")");
+        }
+        Path csv = dir.resolve("coverage.csv");
+        Path json = dir.resolve("coverage.json");
+        writeString(csv, csv(coverage));
+        writeString(json, json(coverage));
+        return List.of(csv, json);
+    }
+
+    /**
+     * One row per unit, sorted by unit IRI: unit, label, unit_class, one column per role (point IRI, empty, or
+     * {@code ambiguous}), analyzable, missing (role names, ';'-separated), one {@code <mode>_analyzable} column per
+     * mode, nominal_airflow_m3s.
+     */
+    public static String csv(FleetCoverage coverage) {
+        List<String> header = new ArrayList<>(List.of("unit", "label", "unit_class"));
+        header.addAll(coverage.profile().roleNames());
+        header.add("analyzable");
+        header.add("missing");
+        coverage.profile().modes().forEach(m -> header.add(m.name() + "_analyzable"));
+        header.add("nominal_airflow_m3s");
+        StringWriter out = new StringWriter();
+        CSVFormat format = CSVFormat.DEFAULT.builder().setRecordSeparator("\n").get();
+        try (CSVPrinter printer = new CSVPrinter(out, format)) {
+            printer.printRecord(header);
+            for (UnitCoverage u : coverage.units()) {
+                List<String> row = new ArrayList<>(List.of(u.unit(), u.label(), u.unitClass()));
+                for (RoleMatch m : u.roles().values()) {
+                    row.add(switch (m.status()) {
+                        case FOUND -> m.point().orElseThrow().iri();
+                        case AMBIGUOUS -> AMBIGUOUS;
+                        case MISSING -> "";
+                    });
+                }
+                row.add(Boolean.toString(u.analyzable()));
+                row.add(String.join(";", u.missing()));
+                u.modes().values().forEach(v -> row.add(Boolean.toString(v)));
+                row.add(u.nominalAirflow().map(a -> number(a.cubicMetresPerSecond())).orElse(""));
+                printer.printRecord(row);
+            }
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
+        }
+        return out.toString();
+    }
+
+    /** The same content as JSON, keys in a fixed order, plus candidates of ambiguous roles and untagged hints. */
+    public static String json(FleetCoverage coverage) {
+        JsonObject root = new JsonObject();
+        root.addProperty("profile", coverage.profile().name());
+        JsonArray classes = new JsonArray();
+        coverage.unitClasses().forEach(classes::add);
+        root.add("unit_classes", classes);
+        JsonObject summary = new JsonObject();
+        summary.addProperty("units", coverage.units().size());
+        summary.addProperty("analyzable", coverage.analyzableCount());
+        JsonObject modes = new JsonObject();
+        coverage.profile().modes().forEach(m -> modes.addProperty(m.name(), coverage.modeCount(m.name())));
+        summary.add("analyzable_by_mode", modes);
+        root.add("summary", summary);
+        JsonArray units = new JsonArray();
+        for (UnitCoverage u : coverage.units()) {
+            JsonObject o = new JsonObject();
+            o.addProperty("unit", u.unit());
+            o.addProperty("label", u.label());
+            o.addProperty("unit_class", u.unitClass());
+            o.addProperty("analyzable", u.analyzable());
+            JsonObject um = new JsonObject();
+            u.modes().forEach(um::addProperty);
+            o.add("modes", um);
+            o.add("missing", strings(u.missing()));
+            o.add("ambiguous", strings(u.ambiguous()));
+            JsonObject roles = new JsonObject();
+            u.roles().forEach((name, m) -> roles.add(name, roleJson(m)));
+            o.add("roles", roles);
+            o.add("nominal_airflow", u.nominalAirflow().<JsonElement>map(a -> {
+                JsonObject f = new JsonObject();
+                f.addProperty("value", a.value());
+                f.addProperty("unit", a.unitIri());
+                f.addProperty("m3_per_s", a.cubicMetresPerSecond());
+                return f;
+            }).orElse(JsonNull.INSTANCE));
+            o.add("problems", strings(u.problems()));
+            units.add(o);
+        }
+        root.add("units", units);
+        return new GsonBuilder().setPrettyPrinting().disableHtmlEscaping().serializeNulls().create().toJson(root) + "\n";
+    }
+
+    private static JsonObject roleJson(RoleMatch m) {
+        JsonObject o = new JsonObject();
+        o.addProperty("status", m.status().name().toLowerCase(Locale.ROOT));
+        if (m.place() != null) {
+            o.addProperty("found_on", m.place().label());
+        }
+        m.point().ifPresent(p -> o.add("point", pointJson(p)));
+        if (m.status() == MatchStatus.AMBIGUOUS) {
+            JsonArray c = new JsonArray();
+            m.candidates().forEach(p -> c.add(pointJson(p)));
+            o.add("candidates", c);
+        }
+        if (!m.untagged().isEmpty()) {
+            JsonArray c = new JsonArray();
+            m.untagged().forEach(p -> c.add(pointJson(p)));
+            o.add("untagged_candidates", c);
+        }
+        return o;
+    }
+
+    private static JsonObject pointJson(PointRef p) {
+        JsonObject o = new JsonObject();
+        o.addProperty("iri", p.iri());
+        o.add("label", nullable(p.label()));
+        o.add("timeseries_id", nullable(p.timeseriesId()));
+        o.add("unit", nullable(p.unitOfMeasureIri()));
+        o.addProperty("class", p.brickClass());
+        return o;
+    }
+
+    private static JsonElement nullable(String s) {
+        return s == null ? JsonNull.INSTANCE : new JsonPrimitive(s);
+    }
+
+    private static JsonArray strings(List<String> values) {
+        JsonArray a = new JsonArray();
+        values.forEach(a::add);
+        return a;
+    }
+
+    /** Shortest text that reads back as the same double (Java's Double.toString), without exponent for usual sizes. */
+    static String number(double v) {
+        return new java.math.BigDecimal(Double.toString(v)).stripTrailingZeros().toPlainString();
+    }
+
+    private static void writeString(Path file, String text) {
+        try {
+            Files.writeString(file, text, StandardCharsets.UTF_8);
+        } catch (IOException e) {
+            throw InputException.in(file, "cannot write (" + e.getMessage() + ")");
+        }
+    }
+}

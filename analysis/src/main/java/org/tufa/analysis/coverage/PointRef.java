@@ -1,0 +1,13 @@
+package org.tufa.analysis.coverage;
+
+/**
+ * A point found for a role, with what the trend stage needs to fetch its data.
+ *
+ * @param iri the point's IRI
+ * @param label its rdfs:label, or null
+ * @param timeseriesId {@code ref:hasExternalReference/ref:hasTimeseriesId}, else the label, else null
+ * @param unitOfMeasureIri its brick:hasUnit (a QUDT unit IRI), or null
+ * @param brickClass the asserted class through which it qualified (the smallest IRI when several did)
+ */
+public record PointRef(String iri, String label, String timeseriesId, String unitOfMeasureIri, String brickClass) {
+}

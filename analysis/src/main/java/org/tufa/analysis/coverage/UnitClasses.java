@@ -1,0 +1,90 @@
+package org.tufa.analysis.coverage;
+
+import java.util.Comparator;
+import java.util.List;
+import java.util.Set;
+import java.util.TreeSet;
+import org.apache.jena.irix.IRIs;
+import org.apache.jena.rdf.model.Model;
+import org.apache.jena.shared.PrefixMapping;
+import org.tufa.common.InputException;
+
+/** Turns the user's --unit-class values (prefixed names or IRIs) into terminal-unit class IRIs. */
+public final class UnitClasses {
+    private UnitClasses() {
+    }
+
+    /**
+     * Resolves each name: {@code brick:Fan_Coil_Unit}, a bare Brick name {@code Fan_Coil_Unit}, {@code <iri>} or a
+     * full IRI. The class must be brick:Terminal_Unit or one of its subclasses in the vocabulary or the model.
+     *
+     * @param all vocabulary and model together
+     * @throws InputException for an unknown class, naming the nearest known terminal-unit classes
+     */
+    public static Set<String> resolve(List<String> names, Model all, PrefixMapping prefixes) {
+        Set<String> known = Sparql.subclassClosure(all, List.of(Coverage.TERMINAL_UNIT));
+        Set<String> out = new TreeSet<>();
+        for (String name : names) {
+            String iri = expand(name.strip(), prefixes);
+            if (iri == null || !known.contains(iri)) {
+                throw new InputException("--unit-class " + name + ": not a terminal-unit class in the loaded vocabulary"
+                        + " or model; nearest: " + String.join(", ", nearest(name, known, prefixes))
+                        + " (for classes outside tufa's Brick subset pass the full Brick file with --vocabulary)");
+            }
+            out.add(iri);
+        }
+        return out;
+    }
+
+    private static String expand(String name, PrefixMapping prefixes) {
+        String iri;
+        if (name.startsWith("<") && name.endsWith(">")) {
+            iri = name.substring(1, name.length() - 1);
+        } else if (name.contains("://") || name.startsWith("urn:")) {
+            iri = name;
+        } else if (name.contains(":")) {
+            String prefix = name.substring(0, name.indexOf(':'));
+            String ns = prefixes.getNsPrefixURI(prefix);
+            if (ns == null) {
+                return null;
+            }
+            iri = ns + name.substring(prefix.length() + 1);
+        } else {
+            iri = prefixes.getNsPrefixURI("brick") + name;
+        }
+        return IRIs.check(iri) ? iri : null;
+    }
+
+    private static List<String> nearest(String name, Set<String> known, PrefixMapping prefixes) {
+        String local = localName(name);
+        return known.stream().map(prefixes::shortForm)
+                .sorted(Comparator.<String>comparingInt(k -> distance(localName(k).toLowerCase(java.util.Locale.ROOT),
+                        local.toLowerCase(java.util.Locale.ROOT))).thenComparing(Comparator.naturalOrder()))
+                .limit(3).toList();
+    }
+
+    private static String localName(String s) {
+        int cut = Math.max(Math.max(s.lastIndexOf('#'), s.lastIndexOf('/')), s.lastIndexOf(':'));
+        return s.substring(cut + 1).replace(">", "");
+    }
+
+    /** Levenshtein edit distance (Levenshtein, Soviet Physics Doklady 10(8), 1966). */
+    static int distance(String a, String b) {
+        int[] prev = new int[b.length() + 1];
+        int[] cur = new int[b.length() + 1];
+        for (int j = 0; j <= b.length(); j++) {
+            prev[j] = j;
+        }
+        for (int i = 1; i <= a.length(); i++) {
+            cur[0] = i;
+            for (int j = 1; j <= b.length(); j++) {
+                int sub = prev[j - 1] + (a.charAt(i - 1) == b.charAt(j - 1) ? 0 : 1);
+                cur[j] = Math.min(sub, Math.min(prev[j] + 1, cur[j - 1] + 1));
+            }
+            int[] t = prev;
+            prev = cur;
+            cur = t;
+        }
+        return prev[b.length()];
+    }
+}

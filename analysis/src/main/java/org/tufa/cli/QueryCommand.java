@@ -1,0 +1,80 @@
+package org.tufa.cli;
+
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.Callable;
+import org.apache.jena.query.Query;
+import org.tufa.analysis.coverage.ModelLoader;
+import org.tufa.analysis.coverage.Vocabulary;
+import org.tufa.analysis.query.SparqlQueries;
+import org.tufa.common.InputException;
+import picocli.CommandLine.ArgGroup;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+/** {@code tufa query}: run a SPARQL query on a model with the Brick vocabulary beside it. */
+@Command(name = "query", mixinStandardHelpOptions = true,
+        description = {"Run a SPARQL query (SELECT, ASK, CONSTRUCT, DESCRIBE) on a Brick model. The vocabulary is "
+                + "loaded beside the model, so rdf:type/rdfs:subClassOf* reaches Brick's class hierarchy.",
+            "Predeclared prefixes: brick, tag, ref, rdf, rdfs, owl, xsd, unit, rec, tufa."})
+public final class QueryCommand implements Callable<Integer> {
+    @Spec
+    picocli.CommandLine.Model.CommandSpec spec;
+
+    @Option(names = "--model", required = true, paramLabel = "FILE", description = "Brick model.")
+    Path model;
+
+    @ArgGroup(exclusive = true, multiplicity = "1")
+    Source source;
+
+    static final class Source {
+        @Parameters(paramLabel = "QUERY.rq", description = "File holding the query.")
+        Path file;
+
+        @Option(names = "-e", paramLabel = "SPARQL", description = "The query text itself.")
+        String text;
+    }
+
+    @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "table",
+            description = "table, csv or json (SELECT and ASK; CONSTRUCT and DESCRIBE always print Turtle).")
+    String format;
+
+    @Option(names = "--vocabulary", paramLabel = "FILE", description = "Extra vocabulary, e.g. the full Brick file.")
+    List<Path> vocabularies = new ArrayList<>();
+
+    @Override
+    public Integer call() {
+        SparqlQueries.Format chosen = switch (format.toLowerCase(java.util.Locale.ROOT)) {
+            case "table" -> SparqlQueries.Format.TABLE;
+            case "csv" -> SparqlQueries.Format.CSV;
+            case "json" -> SparqlQueries.Format.JSON;
+            default -> throw new InputException("--format " + format + ": use table, csv or json");
+        };
+        Query query = source.file != null
+                ? SparqlQueries.parse(read(source.file), source.file.toString())
+                : SparqlQueries.parse(source.text, "-e");
+        Vocabulary vocabulary = Vocabulary.load(vocabularies);
+        var all = vocabulary.unionWith(ModelLoader.load(model));
+        var out = spec.commandLine().getOut();
+        out.print(SparqlQueries.run(all, query, chosen));
+        out.flush();
+        return ExitCodes.OK;
+    }
+
+    private static String read(Path file) {
+        if (!Files.isRegularFile(file)) {
+            throw InputException.in(file, "no such query file; check the path");
+        }
+        try {
+            return Files.readString(file, StandardCharsets.UTF_8);
+        } catch (IOException e) {
+            throw InputException.in(file, "cannot read (" + e.getMessage() + ")");
+        }
+    }
+}

@@ -1,0 +1,31 @@
+package org.tufa.analysis.coverage;
+
+import java.net.URISyntaxException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Optional;
+
+/** Test files: the committed fixtures and the shared Brick file outside the repository. */
+final class Fixtures {
+    private Fixtures() {
+    }
+
+    /** A file under src/test/resources/org/tufa/analysis/coverage. */
+    static Path resource(String name) {
+        try {
+            return Path.of(Fixtures.class.getResource(name).toURI());
+        } catch (URISyntaxException | NullPointerException e) {
+            throw new IllegalStateException("test resource " + name + " missing", e);
+        }
+    }
+
+    /**
+     * The full Brick 1.4.4 file, ../shared/vocab/Brick.ttl relative to the repository root, when present. Tests run
+     * in the module directory (analysis/), whose parent is the repository root.
+     */
+    static Optional<Path> fullBrick() {
+        Path root = Path.of("").toAbsolutePath().getParent();
+        Path brick = root.resolve("../shared/vocab/Brick.ttl").normalize();
+        return Files.isRegularFile(brick) ? Optional.of(brick) : Optional.empty();
+    }
+}
