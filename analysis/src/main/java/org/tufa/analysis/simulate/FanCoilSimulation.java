@@ -13,7 +13,8 @@ import java.util.Optional;
  * simple hourly method uses the same structure with five resistances and one capacitance).
  *
  * <p>Unit: recirculating room air through a cooling coil, then a heating coil ({@link CoilModel}); single-speed fan,
- * always on in occupied hours, cycling on the unoccupied setpoints (16/29 C) with 1 K hysteresis otherwise; fan heat
+ * always on in occupied hours, cycling on the unoccupied setpoints (16/29 C) otherwise (on outside the band,
+ * loops aiming 1.5 K inside it, off 1 K inside it); fan heat
  * 0.3 K (notes section 3: usually under 1 F). Two PI loops on the zone sensor with a 3 K dead band between heating
  * and cooling setpoints (21/24 C occupied; ASHRAE 90.1 requires at least 2.8 K, notes section 1). Loop outputs are
  * the logged commands; valve actuators follow them at 40 % per minute (150 s full stroke). Valves are closed and
@@ -32,6 +33,7 @@ final class FanCoilSimulation {
     static final double UNOCCUPIED_COOLING_C = 29.0;
     static final double OCCUPIED_HEATING_C = 21.0;
     static final double OCCUPIED_COOLING_C = 24.0;
+    static final double UNOCCUPIED_OVERSHOOT_K = 1.5;
     private static final double DT = 60.0;
     private static final int TABLE_STEPS = 400;
 
@@ -128,13 +130,20 @@ final class FanCoilSimulation {
 
             zoneSensor += (tAir - zoneSensor) * zoneSensorAlpha;
 
-            // Fan: continuous when occupied; cycles on the unoccupied setpoints with 1 K hysteresis.
+            // Fan: continuous when occupied. Unoccupied, it starts when the zone leaves the setback band; the
+            // loops then aim 1.5 K inside the band and the fan stops once the zone is 1 K inside it.
+            double heatTarget = heatSp;
+            double coolTarget = coolSp;
             if (occupied) {
                 fanOn = true;
-            } else if (!fanOn && (zoneSensor > coolSp || zoneSensor < heatSp)) {
-                fanOn = true;
-            } else if (fanOn && zoneSensor < coolSp - 1.0 && zoneSensor > heatSp + 1.0) {
-                fanOn = false;
+            } else {
+                if (!fanOn && (zoneSensor > coolSp || zoneSensor < heatSp)) {
+                    fanOn = true;
+                } else if (fanOn && zoneSensor < coolSp - 1.0 && zoneSensor > heatSp + 1.0) {
+                    fanOn = false;
+                }
+                heatTarget = heatSp + UNOCCUPIED_OVERSHOOT_K;
+                coolTarget = coolSp - UNOCCUPIED_OVERSHOOT_K;
             }
 
             // PI loops with integral clamping (anti-windup); hunting multiplies gains and shortens integral times.
@@ -146,12 +155,12 @@ final class FanCoilSimulation {
             }
             if (fanOn) {
                 double kc = p.coolingGainPctPerK() * gainFactor;
-                double ec = zoneSensor - coolSp;
+                double ec = zoneSensor - coolTarget;
                 coolIntegral = clamp(coolIntegral + kc * ec * DT / (60 * p.coolingIntegralMin() * integralFactor),
                         0, 100);
                 coolCmd = clamp(kc * ec + coolIntegral, 0, 100);
                 double kh = p.heatingGainPctPerK() * gainFactor;
-                double eh = heatSp - zoneSensor;
+                double eh = heatTarget - zoneSensor;
                 heatIntegral = clamp(heatIntegral + kh * eh * DT / (60 * p.heatingIntegralMin() * integralFactor),
                         0, 100);
                 heatCmd = clamp(kh * eh + heatIntegral, 0, 100);

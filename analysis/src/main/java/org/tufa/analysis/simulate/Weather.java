@@ -77,14 +77,13 @@ public final class Weather {
             outdoor[m] = mean + synopticSigma * syn + 0.5 * fast
                     + halfRange * (0.55 + 0.6 * clearness) * diurnalShape(solarHours);
 
-            // Cooper (1969) declination; hour angle 15 degrees per hour from solar noon.
-            double decl = Math.toRadians(23.45 * Math.sin(Math.toRadians(360.0 * (284 + dayOfYear) / 365.0)));
+            double decl = declination(dayOfYear);
             double omega = Math.toRadians(15.0 * (solarHours - 12.0));
-            double cosZenith = Math.cos(phi) * Math.cos(decl) * Math.cos(omega) + Math.sin(phi) * Math.sin(decl);
+            double cosZenith = cosZenith(dayOfYear, solarHours);
             if (cosZenith <= 0.01) {
                 continue; // night (and the last minutes of twilight): no irradiance
             }
-            double clearSky = 1098.0 * cosZenith * Math.exp(-0.057 / cosZenith);
+            double clearSky = clearSkyGlobal(cosZenith);
             double global = clearness * clearSky;
             double beamShare = 0.85 * Math.max(0.0, (clearness - 0.3) / 0.7);
             double beamHorizontal = beamShare * global;
@@ -101,6 +100,24 @@ public final class Weather {
             }
         }
         return new Series(origin, outdoor, ghi, facade);
+    }
+
+    /** Solar declination, radians, by Cooper's formula (Duffie and Beckman eq. 1.6.1a). */
+    static double declination(int dayOfYear) {
+        return Math.toRadians(23.45 * Math.sin(Math.toRadians(360.0 * (284 + dayOfYear) / 365.0)));
+    }
+
+    /** Cosine of the solar zenith angle at the site (Duffie and Beckman eq. 1.6.5); hour angle 15 degrees/hour. */
+    static double cosZenith(int dayOfYear, double solarHours) {
+        double phi = Math.toRadians(LATITUDE_DEG);
+        double decl = declination(dayOfYear);
+        double omega = Math.toRadians(15.0 * (solarHours - 12.0));
+        return Math.cos(phi) * Math.cos(decl) * Math.cos(omega) + Math.sin(phi) * Math.sin(decl);
+    }
+
+    /** Haurwitz clear-sky global horizontal irradiance, W/m2. */
+    static double clearSkyGlobal(double cosZenith) {
+        return cosZenith <= 0 ? 0.0 : 1098.0 * cosZenith * Math.exp(-0.057 / cosZenith);
     }
 
     /** Cloudiness as a clearness factor in (0.2, 1): the share of clear-sky irradiance that reaches the ground. */
