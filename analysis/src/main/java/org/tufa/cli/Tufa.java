@@ -11,7 +11,8 @@ import picocli.CommandLine.Command;
         mixinStandardHelpOptions = true,
         versionProvider = Tufa.Version.class,
         description = "Terminal Unit Fleet Analysis: point list to Brick model to per-unit fault candidates.",
-        subcommands = {CommandLine.HelpCommand.class, CoverageCommand.class, QueryCommand.class})
+        subcommands = {org.tufa.mapper.cli.MapCommand.class, CoverageCommand.class, QueryCommand.class,
+                CommandLine.HelpCommand.class})
 public final class Tufa implements Runnable {
 
     @CommandLine.Spec

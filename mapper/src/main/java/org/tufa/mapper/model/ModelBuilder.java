@@ -1,0 +1,203 @@
+package org.tufa.mapper.model;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import java.util.SortedMap;
+import java.util.SortedSet;
+import java.util.TreeMap;
+import java.util.TreeSet;
+import org.apache.jena.datatypes.xsd.XSDDatatype;
+import org.apache.jena.graph.Graph;
+import org.apache.jena.graph.Node;
+import org.apache.jena.graph.NodeFactory;
+import org.apache.jena.graph.Triple;
+import org.apache.jena.rdf.model.Model;
+import org.apache.jena.rdf.model.ModelFactory;
+import org.apache.jena.sparql.graph.GraphFactory;
+import org.apache.jena.vocabulary.RDF;
+import org.apache.jena.vocabulary.RDFS;
+import org.tufa.mapper.match.Assignment;
+import org.tufa.mapper.match.MappingResult;
+import org.tufa.mapper.match.PointMapping;
+import org.tufa.mapper.points.PointRecord;
+import org.tufa.vocabulary.Namespaces;
+
+/**
+ * Turns a {@link MappingResult} into a Brick model (a Jena {@link Model}), through Jena's API only.
+ *
+ * <p>Written: the building (brick:Building, rdfs:label); each equipment (its class, rdfs:label = id,
+ * brick:hasLocation, brick:feeds / brick:isFedBy, brick:hasPart / brick:isPartOf to its parts, tufa:nominalAirflow);
+ * each location (brick:isPartOf the previous one in the rule's chain, the first isPartOf the building, with the
+ * inverse brick:hasPart); each point (its class, rdfs:label = the raw name, brick:isPointOf / brick:hasPoint,
+ * brick:hasUnit, ref:hasExternalReference to a ref:TimeseriesReference with ref:hasTimeseriesId = the series id or
+ * the name, tufa:mappedBy = "file:line" of the rule, the export's other columns). Rows no rule classified are
+ * written as plain brick:Point with tufa:mappingStatus, so nothing in the export is lost.
+ *
+ * <p>tufa: terms used here and not yet in ontology-extensions' tufa.ttl: tufa:mappedBy, tufa:mappingStatus,
+ * tufa:exportDescription, tufa:bacnetObjectType, tufa:device, tufa:exportUnits, tufa:exportField, tufa:fieldName,
+ * tufa:fieldValue.
+ */
+public final class ModelBuilder {
+
+    private static final String BRICK = Namespaces.BRICK;
+    private static final String TUFA = Namespaces.TUFA;
+    private static final String REF = Namespaces.REF;
+
+    private final IriMinter iris;
+    private final Graph g = GraphFactory.createDefaultGraph();
+    private final SortedMap<String, SortedSet<String>> classesById = new TreeMap<>();
+    private final SortedMap<String, String> airflowById = new TreeMap<>();
+    private final List<String> warnings = new ArrayList<>();
+
+    private ModelBuilder(IriMinter iris) {
+        this.iris = iris;
+    }
+
+    /** Builds the model; {@code baseIri} prefixes every minted IRI. */
+    public static BuiltModel build(MappingResult result, String baseIri) {
+        return new ModelBuilder(new IriMinter(baseIri)).run(result);
+    }
+
+    private BuiltModel run(MappingResult result) {
+        Node building = uri(iris.building());
+        add(building, RDF.type.asNode(), uri(BRICK + "Building"));
+        add(building, RDFS.label.asNode(), text(result.rules().building()));
+        for (PointMapping m : result.mappings()) {
+            if (m.point().name().isEmpty()) {
+                continue; // rejected rows: reported, nothing to name a node after
+            }
+            point(m, building);
+        }
+        classesById.forEach((id, classes) -> {
+            if (classes.size() > 1) {
+                warnings.add("'" + id + "' is given more than one class (" + String.join(", ", classes)
+                        + "); all are written: check the rules' equipment, part and feeds lines");
+            }
+        });
+        Model model = ModelFactory.createModelForGraph(g);
+        model.setNsPrefix("brick", BRICK);
+        model.setNsPrefix("ref", REF);
+        model.setNsPrefix("unit", Namespaces.UNIT);
+        model.setNsPrefix("tufa", TUFA);
+        model.setNsPrefix("rdfs", RDFS.getURI());
+        model.setNsPrefix("xsd", "http://www.w3.org/2001/XMLSchema#");
+        return new BuiltModel(model, warnings);
+    }
+
+    private void point(PointMapping m, Node building) {
+        PointRecord p = m.point();
+        String pointIri = iris.point(p.device(), p.name(), m.occurrence());
+        Node point = uri(pointIri);
+        add(point, RDFS.label.asNode(), text(p.name()));
+        Node ref = uri(IriMinter.timeseries(pointIri));
+        add(point, uri(REF + "hasExternalReference"), ref);
+        add(ref, RDF.type.asNode(), uri(REF + "TimeseriesReference"));
+        add(ref, uri(REF + "hasTimeseriesId"), text(p.seriesId().isEmpty() ? p.name() : p.seriesId()));
+        if (!p.description().isEmpty()) {
+            add(point, uri(TUFA + "exportDescription"), text(p.description()));
+        }
+        if (!p.rawObjectType().isEmpty()) {
+            add(point, uri(TUFA + "bacnetObjectType"), text(p.objectType().isEmpty() ? p.rawObjectType()
+                    : p.objectType()));
+        }
+        if (!p.device().isEmpty()) {
+            add(point, uri(TUFA + "device"), text(p.device()));
+        }
+        if (!p.units().isEmpty()) {
+            add(point, uri(TUFA + "exportUnits"), text(p.units()));
+        }
+        for (Map.Entry<String, String> e : p.extras().entrySet()) {
+            Node f = uri(IriMinter.field(pointIri, e.getKey()));
+            add(point, uri(TUFA + "exportField"), f);
+            add(f, uri(TUFA + "fieldName"), text(e.getKey()));
+            add(f, uri(TUFA + "fieldValue"), text(e.getValue()));
+        }
+        if (!m.classified()) {
+            add(point, RDF.type.asNode(), uri(BRICK + "Point"));
+            add(point, uri(TUFA + "mappingStatus"), text(m.assignment().isPresent() && m.status().name()
+                    .equals("DUPLICATE") ? "duplicate" : m.status().label()));
+            return;
+        }
+        Assignment a = m.assignment().get();
+        add(point, RDF.type.asNode(), uri(BRICK + a.className()));
+        add(point, uri(TUFA + "mappedBy"), text(a.ruleLabel()));
+        a.unit().ifPresent(u -> add(point, uri(BRICK + "hasUnit"), uri(Namespaces.UNIT + u)));
+        if (a.equipment().isEmpty()) {
+            return;
+        }
+        Assignment.Equipment eq = a.equipment().get();
+        Node equipment = uri(iris.equipment(eq.id()));
+        typed(equipment, eq.id(), eq.className());
+        Node holder = equipment;
+        if (a.part().isPresent()) {
+            Assignment.Part part = a.part().get();
+            Node pn = uri(iris.part(eq.id(), part.localId()));
+            typed(pn, part.id(), part.className());
+            add(equipment, uri(BRICK + "hasPart"), pn);
+            add(pn, uri(BRICK + "isPartOf"), equipment);
+            holder = pn;
+        }
+        add(holder, uri(BRICK + "hasPoint"), point);
+        add(point, uri(BRICK + "isPointOf"), holder);
+
+        Node parent = building;
+        for (Assignment.Link loc : a.locations()) {
+            Node l = uri(iris.location(loc.className(), loc.id()));
+            typed(l, "location " + loc.className() + " " + loc.id(), loc.className());
+            add(l, RDFS.label.asNode(), text(loc.id()));
+            add(l, uri(BRICK + "isPartOf"), parent);
+            add(parent, uri(BRICK + "hasPart"), l);
+            parent = l;
+        }
+        add(equipment, uri(BRICK + "hasLocation"), parent);
+        for (Assignment.Link f : a.feeds()) {
+            Node t = uri(iris.equipment(f.id()));
+            typed(t, f.id(), f.className());
+            add(equipment, uri(BRICK + "feeds"), t);
+            add(t, uri(BRICK + "isFedBy"), equipment);
+        }
+        for (Assignment.Link f : a.fedBy()) {
+            Node s = uri(iris.equipment(f.id()));
+            typed(s, f.id(), f.className());
+            add(s, uri(BRICK + "feeds"), equipment);
+            add(equipment, uri(BRICK + "isFedBy"), s);
+        }
+        if (a.airflow().isPresent()) {
+            Assignment.Airflow af = a.airflow().get();
+            String value = af.value().toPlainString() + " " + af.unit();
+            String before = airflowById.putIfAbsent(eq.id(), value);
+            if (before == null) {
+                String eqIri = iris.equipment(eq.id());
+                Node n = uri(IriMinter.airflow(eqIri));
+                add(equipment, uri(TUFA + "nominalAirflow"), n);
+                add(n, uri(BRICK + "value"), NodeFactory.createLiteralDT(af.value().toPlainString(),
+                        XSDDatatype.XSDdecimal));
+                add(n, uri(BRICK + "hasUnit"), uri(Namespaces.UNIT + af.unit()));
+            } else if (!before.equals(value)) {
+                warnings.add("equipment '" + eq.id() + "' gets nominal airflow " + before + " and " + value
+                        + "; the first is kept");
+            }
+        }
+    }
+
+    private void typed(Node n, String id, String className) {
+        classesById.computeIfAbsent(id, k -> new TreeSet<>()).add(className);
+        add(n, RDF.type.asNode(), uri(BRICK + className));
+        if (!id.startsWith("location ")) {
+            add(n, RDFS.label.asNode(), text(id));
+        }
+    }
+
+    private void add(Node s, Node p, Node o) {
+        g.add(Triple.create(s, p, o));
+    }
+
+    private static Node uri(String iri) {
+        return NodeFactory.createURI(iri);
+    }
+
+    private static Node text(String s) {
+        return NodeFactory.createLiteralString(s);
+    }
+}

@@ -1,0 +1,126 @@
+package org.tufa.mapper.model;
+
+import java.io.BufferedOutputStream;
+import java.io.IOException;
+import java.io.OutputStream;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Locale;
+import org.apache.jena.graph.Graph;
+import org.apache.jena.graph.Node;
+import org.apache.jena.graph.Triple;
+import org.apache.jena.rdf.model.Model;
+import org.apache.jena.rdf.model.ModelFactory;
+import org.apache.jena.riot.Lang;
+import org.apache.jena.riot.RDFDataMgr;
+import org.apache.jena.riot.RDFFormat;
+import org.apache.jena.riot.RDFLanguages;
+import org.apache.jena.riot.RDFParser;
+import org.apache.jena.riot.RiotException;
+import org.apache.jena.riot.system.StreamRDF;
+import org.apache.jena.riot.system.StreamRDFWriter;
+import org.apache.jena.sparql.graph.GraphFactory;
+import org.apache.jena.vocabulary.RDF;
+import org.tufa.common.InputException;
+
+/**
+ * Reads and writes Brick models. Writing is deterministic: triples are sorted (subject, then rdf:type before
+ * other predicates, then predicate, then object) and fed to Jena's streaming Turtle (TURTLE_BLOCKS) or
+ * N-Triples writer, so the same model always gives the same bytes; JSON-LD goes through Jena's JSON-LD writer on
+ * a graph filled in that sorted order.
+ */
+public final class ModelFiles {
+    private ModelFiles() {
+    }
+
+    /** The RDF syntax for an output file name: .nt N-Triples, .jsonld JSON-LD, anything else Turtle. */
+    public static Lang langFor(Path file) {
+        String n = file.getFileName().toString().toLowerCase(Locale.ROOT);
+        if (n.endsWith(".nt")) {
+            return Lang.NTRIPLES;
+        }
+        if (n.endsWith(".jsonld") || n.endsWith(".json")) {
+            return Lang.JSONLD;
+        }
+        return Lang.TURTLE;
+    }
+
+    /** Writes the model to {@code file} in the syntax its extension names. */
+    public static void write(Model model, Path file) {
+        try {
+            Path parent = file.toAbsolutePath().getParent();
+            if (parent != null) {
+                Files.createDirectories(parent);
+            }
+            try (OutputStream out = new BufferedOutputStream(Files.newOutputStream(file), 1 << 16)) {
+                write(model, langFor(file), out);
+            }
+        } catch (IOException e) {
+            throw InputException.in(file, "cannot write the model (" + e.getClass().getSimpleName() + ": "
+                    + e.getMessage() + "); check the --out path");
+        }
+    }
+
+    /** Writes the model in a given syntax. */
+    public static void write(Model model, Lang lang, OutputStream out) {
+        List<Triple> triples = sorted(model.getGraph());
+        if (lang.equals(Lang.JSONLD)) {
+            Graph g = GraphFactory.createDefaultGraph();
+            triples.forEach(g::add);
+            Model m = ModelFactory.createModelForGraph(g);
+            m.setNsPrefixes(model.getNsPrefixMap());
+            RDFDataMgr.write(out, m, RDFFormat.JSONLD11_PRETTY);
+            return;
+        }
+        RDFFormat format = lang.equals(Lang.NTRIPLES) ? RDFFormat.NTRIPLES_UTF8 : RDFFormat.TURTLE_BLOCKS;
+        StreamRDF stream = StreamRDFWriter.getWriterStream(out, format);
+        stream.start();
+        if (!lang.equals(Lang.NTRIPLES)) {
+            // prefixes in name order: a prefix map's own order is a hash order
+            new java.util.TreeMap<>(model.getNsPrefixMap()).forEach(stream::prefix);
+        }
+        triples.forEach(stream::triple);
+        stream.finish();
+    }
+
+    /** The graph's triples in the writer's fixed order. */
+    public static List<Triple> sorted(Graph g) {
+        List<Triple> list = new ArrayList<>(g.size());
+        g.find().forEachRemaining(list::add);
+        Node type = RDF.type.asNode();
+        list.sort(Comparator.<Triple, String>comparing(t -> key(t.getSubject()))
+                .thenComparing(t -> !t.getPredicate().equals(type))
+                .thenComparing(t -> key(t.getPredicate()))
+                .thenComparing(t -> key(t.getObject())));
+        return list;
+    }
+
+    private static String key(Node n) {
+        if (n.isURI()) {
+            return n.getURI();
+        }
+        if (n.isLiteral()) {
+            return n.getLiteralLexicalForm() + "\u0000" + n.getLiteralDatatypeURI() + "\u0000" + n.getLiteralLanguage();
+        }
+        return n.toString();
+    }
+
+    /** Reads a model (Turtle, N-Triples, JSON-LD by extension); bad files are an {@link InputException}. */
+    public static Model read(Path file) {
+        if (!Files.isRegularFile(file)) {
+            throw InputException.in(file, "model file not found; run 'tufa map' first or check the path");
+        }
+        Lang lang = RDFLanguages.filenameToLang(file.toString(), Lang.TURTLE);
+        Model m = ModelFactory.createDefaultModel();
+        try {
+            RDFParser.source(file).lang(lang).parse(m);
+        } catch (RiotException e) {
+            String msg = String.valueOf(e.getMessage()).lines().findFirst().orElse("");
+            throw InputException.in(file, "not a readable " + lang.getLabel() + " file (" + msg + ")");
+        }
+        return m;
+    }
+}
