@@ -1,0 +1,58 @@
+package org.tufa.analysis.fleet;
+
+import java.time.Duration;
+import org.tufa.analysis.band.BandKind;
+import org.tufa.analysis.band.RunOptions;
+import org.tufa.analysis.cluster.AutoParameters;
+import org.tufa.analysis.findings.CauseTable;
+import org.tufa.analysis.modes.ModeThresholds;
+
+/**
+ * Every parameter of the per-unit analysis; {@code run.json} records them.
+ *
+ * @param modeThresholds       when a valve counts as open and the fan as running
+ * @param band                 load band kind applied in heating and cooling
+ * @param bandRuns             how many consecutive out-of-band samples make a sustained period
+ * @param varianceTarget       PCA: cumulative explained variance to keep
+ * @param minPts               OPTICS MinPts
+ * @param extraction           automatic xi extraction parameters
+ * @param minModeSamples       fewest samples of a mode worth clustering
+ * @param minFindingSamples    fewest flagged samples an interval needs to become a finding (persistence)
+ * @param bridgeSamples        unflagged samples bridged inside a finding interval
+ * @param residualGate         shift of a residual or offset feature (kelvin) that makes a cluster a candidate fault
+ * @param activityGate         shift of valve activity (percent per sample) that makes a cluster a candidate fault
+ * @param defaultAirflow       nominal airflow (m3/s) for units whose model gives none
+ * @param causes               the candidate-cause table
+ */
+public record AnalysisSettings(
+        ModeThresholds modeThresholds,
+        BandKind band,
+        RunOptions bandRuns,
+        double varianceTarget,
+        int minPts,
+        AutoParameters extraction,
+        int minModeSamples,
+        int minFindingSamples,
+        int bridgeSamples,
+        double residualGate,
+        double activityGate,
+        double defaultAirflow,
+        CauseTable causes) {
+
+    /**
+     * Defaults for unattended fleet runs at 15-minute samples. MinPts 20 and 90 % variance follow the published
+     * PCA + OPTICS practice (Ankerst et al. 1999 found MinPts 10-20 works well, from memory; Jolliffe 2002 s. 6.1
+     * for 70-90 % variance). Findings need 8 samples (2 hours) with gaps of up to 4 samples (1 hour) bridged; the
+     * 1.1 K gate is about the combined uncertainty of two air temperature sensors (ASHRAE Guideline 36 uses
+     * 2 F per sensor, from memory). Default airflow 0.19 m3/s (400 cfm, one nominal ton: 350-400 cfm per ton is
+     * common practice, no source).
+     */
+    public static AnalysisSettings defaults() {
+        return new AnalysisSettings(ModeThresholds.defaults(), BandKind.TUKEY, new RunOptions(8, 2), 0.90, 20,
+                AutoParameters.DEFAULT, 96, 8, 4, 1.1, 2.0, 400 * 0.3048 * 0.3048 * 0.3048 / 60.0,
+                CauseTable.standard());
+    }
+
+    /** The grid step the persistence rules assume, for documentation in run.json. */
+    public static final Duration NOMINAL_INTERVAL = Duration.ofMinutes(15);
+}
