@@ -60,6 +60,8 @@ final class TrendReader {
     private int[] fieldStarts = new int[64];
     private int[] fieldEnds = new int[64];
     private byte[] quotedLine = new byte[1024];
+    /** Whether the fields of the current line point into {@link #quotedLine} rather than the line buffer. */
+    private boolean isQuoted;
 
     TrendReader(String[] seriesIds, SeriesKind[] kinds, SpillStore spill, TimeOptions options) {
         this.seriesIds = seriesIds;
@@ -379,8 +381,6 @@ final class TrendReader {
         }
         return time;
     }
-
-    private boolean isQuoted;
 
     /**
      * Splits the current line into {@code fieldStarts/fieldEnds}; returns the number of fields (may exceed

@@ -101,6 +101,9 @@ public final class IngestBenchmark {
                     report.unparsableValues() + report.unparsableTimestamps() + report.malformedRows(),
                     report.dstRepeatedFirstPass(), report.dstRepeatedSecondPass(), report.dstSkipped(),
                     peakHeapMegabytes());
+            System.gc();
+            System.out.printf(Locale.ROOT, "heap in use after ingest and a GC: %.0f MB (spill index and report)%n",
+                    ManagementFactory.getMemoryMXBean().getHeapMemoryUsage().getUsed() / 1048576.0);
             long t1 = System.nanoTime();
             AtomicLong cells = new AtomicLong();
             AtomicLong mismatches = new AtomicLong();

@@ -1,0 +1,2 @@
+/** Operating modes of a terminal unit per sample (off, ventilation, cooling, heating, simultaneous, ...). */
+package org.tufa.analysis.modes;
