@@ -53,8 +53,8 @@ import org.tufa.analysis.modes.OperatingModes;
 public final class UnitAnalysis {
 
     /** Everything the detection produced for one unit. */
-    public record Result(ModeSplit modes, double[] loadKw, byte[] bandState, List<ModeResult> modeResults,
-                         List<Finding> findings) {
+    public record Result(Instant gridStart, Duration interval, ModeSplit modes, double[] loadKw, byte[] bandState,
+                         List<ModeResult> modeResults, List<Finding> findings) {
         /** {@link #bandState} values: not applicable, inside the band, outside the band. */
         public static final byte NOT_APPLICABLE = 0;
         public static final byte IN_BAND = 1;
@@ -63,6 +63,16 @@ public final class UnitAnalysis {
         public Result {
             modeResults = List.copyOf(modeResults);
             findings = List.copyOf(findings);
+        }
+
+        /** Hours per grid sample. */
+        public double hoursPerSample() {
+            return interval.toMillis() / 3_600_000.0;
+        }
+
+        /** Start time of grid sample {@code i}. */
+        public Instant time(int i) {
+            return gridStart.plus(interval.multipliedBy(i));
         }
     }
 
@@ -94,7 +104,7 @@ public final class UnitAnalysis {
         }
         findings.sort(Comparator.comparing((Finding f) -> f.range().start()).thenComparing(Finding::mode)
                 .thenComparing(Finding::kind).thenComparingInt(Finding::cluster));
-        return new Result(modes, load, bandState, results, findings);
+        return new Result(s.gridStart(), s.interval(), modes, load, bandState, results, findings);
     }
 
     private static ModeResult mode(String name, OperatingMode m, UnitSignals s, ModeSplit modes, double[] load,

@@ -1,0 +1,144 @@
+package org.tufa.analysis.fleet;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
+import java.util.concurrent.atomic.AtomicInteger;
+import org.tufa.analysis.coverage.CoverageSummary;
+import org.tufa.analysis.coverage.FleetCoverage;
+import org.tufa.analysis.coverage.UnitCoverage;
+import org.tufa.analysis.features.UnitSignals;
+import org.tufa.analysis.trends.IngestReport;
+import org.tufa.analysis.trends.SeriesKind;
+import org.tufa.analysis.trends.TimeOptions;
+import org.tufa.analysis.trends.TrendStore;
+
+/**
+ * Runs the detection on every unit of a fleet: reads the trends once, then analyses units in parallel and writes
+ * each unit's files as it finishes. One unit's failure never stops the fleet: it becomes a {@code failed} row.
+ * Results are collected in unit order, so the outputs are the same bytes whatever the thread count.
+ */
+public final class FleetAnalysis {
+
+    /** Told after each unit; called from worker threads. */
+    @FunctionalInterface
+    public interface Progress {
+        void unitDone(int done, int total);
+    }
+
+    /** The whole run: one outcome per unit of the coverage, in unit order, and the ingest report. */
+    public record Result(List<UnitOutcome> units, IngestReport ingest, StageTimes times) {
+        public Result {
+            units = List.copyOf(units);
+        }
+    }
+
+    private FleetAnalysis() {
+    }
+
+    public static Result run(FleetCoverage coverage, List<Path> trends, TimeOptions timeOptions,
+                             AnalysisSettings settings, int threads, UnitFiles files, Progress progress) {
+        StageTimes times = new StageTimes();
+        List<UnitCoverage> units = new ArrayList<>(coverage.units());
+        units.sort(java.util.Comparator.comparing(UnitCoverage::unit));
+        Map<String, UnitInputs> inputs = new LinkedHashMap<>();
+        Map<String, SeriesKind> wanted = new java.util.TreeMap<>();
+        for (UnitCoverage u : units) {
+            UnitInputs in = UnitInputs.of(u, settings.defaultAirflow());
+            inputs.put(u.unit(), in);
+            if (u.analyzable()) {
+                wanted.putAll(in.seriesKinds());
+            }
+        }
+        long t0 = System.nanoTime();
+        try (TrendStore store = TrendStore.ingest(trends, wanted, timeOptions)) {
+            times.add(StageTimes.Stage.READ, System.nanoTime() - t0);
+            FolderNames names = new FolderNames();
+            List<String> folders = new ArrayList<>();
+            for (UnitCoverage u : units) {
+                folders.add(names.next(u.unit()));
+            }
+            ExecutorService pool = Executors.newFixedThreadPool(Math.max(1, threads), r -> {
+                Thread t = new Thread(r, "tufa-unit");
+                t.setDaemon(true);
+                return t;
+            });
+            AtomicInteger done = new AtomicInteger();
+            try {
+                List<Future<UnitOutcome>> futures = new ArrayList<>();
+                for (int k = 0; k < units.size(); k++) {
+                    UnitCoverage u = units.get(k);
+                    String folder = folders.get(k);
+                    futures.add(pool.submit(() -> {
+                        UnitOutcome o = analyse(coverage, u, inputs.get(u.unit()), folder, store, settings, times);
+                        long w = System.nanoTime();
+                        files.write(o, store.interval());
+                        times.add(StageTimes.Stage.WRITE, System.nanoTime() - w);
+                        progress.unitDone(done.incrementAndGet(), units.size());
+                        return o;
+                    }));
+                }
+                List<UnitOutcome> outcomes = new ArrayList<>(units.size());
+                for (Future<UnitOutcome> f : futures) {
+                    outcomes.add(f.get());
+                }
+                return new Result(outcomes, store.report(), times);
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+                throw new IllegalStateException("interrupted", e);
+            } catch (ExecutionException e) {
+                // Only the file writer can fail here (analysis failures become rows); pass its error on.
+                if (e.getCause() instanceof RuntimeException re) {
+                    throw re;
+                }
+                throw new IllegalStateException(e.getCause());
+            } finally {
+                pool.shutdownNow();
+            }
+        }
+    }
+
+    private static UnitOutcome analyse(FleetCoverage coverage, UnitCoverage u, UnitInputs in, String folder,
+                                       TrendStore store, AnalysisSettings settings, StageTimes times) {
+        if (!u.analyzable()) {
+            return new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED,
+                    CoverageSummary.reason(coverage, u), List.of(), null, List.of());
+        }
+        try {
+            long t0 = System.nanoTime();
+            SignalPreparation.Prepared p = SignalPreparation.prepare(in,
+                    id -> store.seriesIds().contains(id) ? Optional.of(store.series(id)) : Optional.empty(),
+                    store.gridStart(), store.interval(), store.gridLength());
+            times.add(StageTimes.Stage.RESAMPLE, System.nanoTime() - t0);
+            UnitSignals s = p.signals();
+            if (!UnitSignals.present(s.zoneAirTemperature()) || !UnitSignals.present(s.dischargeAirTemperature())) {
+                return new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED,
+                        "no trend data for the zone or discharge air temperature", p.notes(), null, List.of());
+            }
+            UnitAnalysis.Result r = UnitAnalysis.run(s, in.fanSignal(), in.nominalAirflow(), settings, times);
+            List<String> notes = new ArrayList<>(p.notes());
+            if (!in.airflowFromModel()) {
+                notes.add(String.format(java.util.Locale.ROOT, "no nominal airflow in the model; energy uses the"
+                        + " default %.3f m3/s (add tufa:nominalAirflow to the unit)", settings.defaultAirflow()));
+            }
+            if (r.modeResults().stream().noneMatch(ModeResult::analyzed)) {
+                String why = String.join("; ", r.modeResults().stream().map(m -> m.mode() + ": " + m.reason())
+                        .toList());
+                return new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED, "no mode could be clustered ("
+                        + why + ")", notes, r, r.findings());
+            }
+            return new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.ANALYZED, "", notes, r, r.findings());
+        } catch (RuntimeException e) {
+            String msg = e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
+            return new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.FAILED, msg.lines().findFirst().orElse(""),
+                    List.of(), null, List.of());
+        }
+    }
+}

@@ -1,0 +1,161 @@
+package org.tufa.analysis.fleet;
+
+import com.google.gson.JsonArray;
+import com.google.gson.JsonObject;
+import java.io.BufferedWriter;
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.UncheckedIOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.security.MessageDigest;
+import java.security.NoSuchAlgorithmException;
+import java.time.ZoneId;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.HexFormat;
+import java.util.List;
+import java.util.Map;
+import java.util.stream.Collectors;
+import org.tufa.analysis.findings.Finding;
+import org.tufa.analysis.findings.Shift;
+
+/**
+ * The fleet-level files of a run: {@code fleet.csv}, {@code findings.csv}, {@code ranking.csv} and
+ * {@code run.json}. Their names and columns are fixed: other tools and tufa's own report read them.
+ */
+public final class FleetOutputs {
+
+    public static final String FLEET_HEADER =
+            "unit,label,folder,status,reason,modes,samples_used,clusters,fault_clusters,fault_hours,energy_kwh";
+    public static final String FINDINGS_HEADER =
+            "unit,mode,kind,cluster,start,end,hours,energy_kwh,shift,candidate_causes";
+    public static final String RANKING_HEADER = "rank,unit,label,fault_hours,energy_kwh,findings";
+
+    private FleetOutputs() {
+    }
+
+    /** Writes the fleet files; returns their paths. */
+    public static List<Path> write(Path dir, FleetAnalysis.Result result, ZoneId zone, Map<String, Object> parameters,
+                                   List<Path> inputs) {
+        try {
+            Files.createDirectories(dir);
+            List<Path> out = new ArrayList<>();
+            out.add(write(dir.resolve("fleet.csv"), fleet(result.units())));
+            out.add(write(dir.resolve("findings.csv"), findings(result.units(), zone)));
+            out.add(write(dir.resolve("ranking.csv"), ranking(result.units())));
+            out.add(write(dir.resolve("run.json"), runJson(parameters, inputs)));
+            return out;
+        } catch (IOException e) {
+            throw new UncheckedIOException("cannot write to " + dir + ": " + e.getMessage(), e);
+        }
+    }
+
+    private static Path write(Path file, String text) throws IOException {
+        Files.writeString(file, text, StandardCharsets.UTF_8);
+        return file;
+    }
+
+    static String fleet(List<UnitOutcome> units) {
+        StringBuilder b = new StringBuilder(FLEET_HEADER).append('\n');
+        for (UnitOutcome u : units) {
+            b.append(Csv.field(u.unit())).append(',').append(Csv.field(u.label())).append(',')
+                    .append(Csv.field(u.folder())).append(',').append(u.status()).append(',')
+                    .append(Csv.field(u.reason())).append(',').append(u.analyzedModes()).append(',')
+                    .append(u.samplesUsed()).append(',').append(u.clusters()).append(',')
+                    .append(u.faultClusters()).append(',').append(Csv.fixed(u.faultHours(), 2)).append(',')
+                    .append(Csv.fixed(u.faultEnergyKwh(), 1)).append('\n');
+        }
+        return b.toString();
+    }
+
+    static String findings(List<UnitOutcome> units, ZoneId zone) {
+        StringBuilder b = new StringBuilder(FINDINGS_HEADER).append('\n');
+        for (UnitOutcome u : units) {
+            for (Finding f : u.findings()) {
+                String shift = f.shifts().stream().map(Shift::describe).collect(Collectors.joining("; "));
+                b.append(Csv.field(u.unit())).append(',').append(f.mode()).append(',').append(f.kind()).append(',')
+                        .append(f.cluster() < 0 ? "" : Integer.toString(f.cluster())).append(',')
+                        .append(Csv.time(f.start(), zone)).append(',').append(Csv.time(f.end(), zone)).append(',')
+                        .append(Csv.fixed(f.hours(), 2)).append(',').append(Csv.fixed(f.energyKwh(), 1)).append(',')
+                        .append(Csv.field(shift)).append(',')
+                        .append(Csv.field(String.join(" | ", f.causes()))).append('\n');
+            }
+        }
+        return b.toString();
+    }
+
+    /** Units with findings ranked by fault hours, then energy, then IRI (a total order: deterministic). */
+    public static List<UnitOutcome> ranked(List<UnitOutcome> units) {
+        return units.stream().filter(u -> !u.findings().isEmpty())
+                .sorted(Comparator.comparingDouble(UnitOutcome::faultHours).reversed()
+                        .thenComparing(Comparator.comparingDouble(UnitOutcome::faultEnergyKwh).reversed())
+                        .thenComparing(UnitOutcome::unit))
+                .toList();
+    }
+
+    static String ranking(List<UnitOutcome> units) {
+        StringBuilder b = new StringBuilder(RANKING_HEADER).append('\n');
+        int rank = 1;
+        for (UnitOutcome u : ranked(units)) {
+            b.append(rank++).append(',').append(Csv.field(u.unit())).append(',').append(Csv.field(u.label()))
+                    .append(',').append(Csv.fixed(u.faultHours(), 2)).append(',')
+                    .append(Csv.fixed(u.faultEnergyKwh(), 1)).append(',').append(u.findings().size()).append('\n');
+        }
+        return b.toString();
+    }
+
+    static String runJson(Map<String, Object> parameters, List<Path> inputs) throws IOException {
+        JsonObject run = new JsonObject();
+        run.addProperty("tool", "tufa");
+        String version = FleetOutputs.class.getPackage().getImplementationVersion();
+        run.addProperty("version", version == null ? "development" : version);
+        JsonObject libs = new JsonObject();
+        libs.addProperty("jena", "5.6.0");
+        libs.addProperty("smile", "3.1.1");
+        run.add("libraries", libs);
+        JsonObject p = new JsonObject();
+        for (Map.Entry<String, Object> e : new java.util.TreeMap<>(parameters).entrySet()) {
+            p.addProperty(e.getKey(), String.valueOf(e.getValue()));
+        }
+        run.add("parameters", p);
+        JsonArray files = new JsonArray();
+        for (Path in : expand(inputs)) {
+            JsonObject f = new JsonObject();
+            f.addProperty("path", in.toString());
+            f.addProperty("bytes", Files.size(in));
+            f.addProperty("sha256", sha256(in));
+            files.add(f);
+        }
+        run.add("inputs", files);
+        return Json.write(run);
+    }
+
+    private static List<Path> expand(List<Path> inputs) throws IOException {
+        List<Path> out = new ArrayList<>();
+        for (Path p : inputs) {
+            if (Files.isDirectory(p)) {
+                try (var s = Files.list(p)) {
+                    s.filter(Files::isRegularFile).sorted().forEach(out::add);
+                }
+            } else {
+                out.add(p);
+            }
+        }
+        return out;
+    }
+
+    static String sha256(Path file) throws IOException {
+        try (InputStream in = Files.newInputStream(file)) {
+            MessageDigest d = MessageDigest.getInstance("SHA-256");
+            byte[] buf = new byte[1 << 16];
+            for (int r; (r = in.read(buf)) > 0; ) {
+                d.update(buf, 0, r);
+            }
+            return HexFormat.of().formatHex(d.digest());
+        } catch (NoSuchAlgorithmException e) {
+            throw new IllegalStateException(e);
+        }
+    }
+}

@@ -1,0 +1,70 @@
+package org.tufa.analysis.fleet;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.TreeMap;
+import org.tufa.analysis.coverage.FleetCoverage;
+import org.tufa.analysis.findings.Finding;
+
+/** The console summary of a fleet run, as lines (the command prints them). */
+public final class FleetReport {
+
+    /** The caution every report carries. */
+    public static final String CAUTION = "Findings are candidate faults for review by qualified staff: verify on site "
+            + "before acting; work on HVAC equipment follows local codes and licensed practice. tufa never commands "
+            + "equipment.";
+
+    private FleetReport() {
+    }
+
+    public static List<String> summary(FleetAnalysis.Result result, FleetCoverage coverage, Path out) {
+        List<String> lines = new ArrayList<>();
+        Map<String, Integer> byStatus = new TreeMap<>();
+        Map<String, Integer> byKind = new TreeMap<>();
+        for (UnitOutcome u : result.units()) {
+            byStatus.merge(u.status(), 1, Integer::sum);
+            for (Finding f : u.findings()) {
+                byKind.merge(f.kind(), 1, Integer::sum);
+            }
+        }
+        lines.add(String.format(Locale.ROOT, "Units: %d found, %d analysed, %d skipped, %d failed",
+                result.units().size(), byStatus.getOrDefault(UnitOutcome.ANALYZED, 0),
+                byStatus.getOrDefault(UnitOutcome.SKIPPED, 0), byStatus.getOrDefault(UnitOutcome.FAILED, 0)));
+        var ingest = result.ingest();
+        lines.add(String.format(Locale.ROOT, "Trends: %d rows read, %d samples kept, %d unparsable values, "
+                + "%d repeated and %d skipped DST stamps", ingest.rows(), ingest.samplesKept(),
+                ingest.unparsableValues(), ingest.dstRepeatedFirstPass() + ingest.dstRepeatedSecondPass(),
+                ingest.dstSkipped()));
+        int total = byKind.values().stream().mapToInt(Integer::intValue).sum();
+        lines.add("Findings: " + total + (total == 0 ? "" : " (" + String.join(", ", byKind.entrySet().stream()
+                .map(e -> e.getValue() + " " + e.getKey()).toList()) + ")"));
+        List<UnitOutcome> ranked = FleetOutputs.ranked(result.units());
+        if (!ranked.isEmpty()) {
+            lines.add("Units with the most fault hours:");
+            for (int i = 0; i < Math.min(10, ranked.size()); i++) {
+                UnitOutcome u = ranked.get(i);
+                lines.add(String.format(Locale.ROOT, "  %2d. %-28s %7.1f h %9.1f kWh  %d finding(s)", i + 1,
+                        u.label(), u.faultHours(), u.faultEnergyKwh(), u.findings().size()));
+            }
+        }
+        List<UnitOutcome> notAnalysed = result.units().stream()
+                .filter(u -> !u.status().equals(UnitOutcome.ANALYZED)).toList();
+        if (!notAnalysed.isEmpty()) {
+            lines.add("Not analysed:");
+            for (int i = 0; i < Math.min(10, notAnalysed.size()); i++) {
+                UnitOutcome u = notAnalysed.get(i);
+                lines.add("  " + u.label() + " (" + u.status() + "): " + u.reason());
+            }
+            if (notAnalysed.size() > 10) {
+                lines.add("  ... and " + (notAnalysed.size() - 10) + " more (see fleet.csv)");
+            }
+        }
+        lines.add("Outputs: " + out.resolve("fleet.csv") + ", " + out.resolve("findings.csv") + ", "
+                + out.resolve("units"));
+        lines.add(CAUTION);
+        return lines;
+    }
+}

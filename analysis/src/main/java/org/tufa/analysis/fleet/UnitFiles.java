@@ -1,0 +1,116 @@
+package org.tufa.analysis.fleet;
+
+import java.io.BufferedWriter;
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Duration;
+import java.time.ZoneId;
+import java.util.List;
+import org.tufa.analysis.cluster.OpticsResult;
+import org.tufa.analysis.cluster.PcaResult;
+import org.tufa.analysis.features.FeatureMatrix;
+import org.tufa.analysis.modes.OperatingMode;
+
+/**
+ * Writes one unit's files under {@code DIR/units/<folder>/}: {@code modes.csv} (every sample's mode and band
+ * state), {@code summary.json} (notes, clusters, shifts, PCA loadings), and per clustered mode
+ * {@code features.csv}, {@code scores.csv} and {@code reachability.csv}. Numbers in the per-mode files are
+ * written with full double precision (a form that parses back to the same double), so the clustering can be re-run elsewhere
+ * and reproduces the ordering exactly.
+ */
+public final class UnitFiles {
+
+    private final Path unitsDir;
+    private final ZoneId zone;
+
+    public UnitFiles(Path outDir, ZoneId zone) {
+        this.unitsDir = outDir.resolve("units");
+        this.zone = zone;
+    }
+
+    public void write(UnitOutcome o, Duration interval) {
+        Path dir = unitsDir.resolve(o.folder());
+        if (!dir.normalize().startsWith(unitsDir.normalize())) {
+            throw new IllegalStateException("unit folder escapes the output folder: " + o.folder());
+        }
+        try {
+            Files.createDirectories(dir);
+            Files.writeString(dir.resolve("summary.json"), Json.unitSummary(o), StandardCharsets.UTF_8);
+            if (o.result() == null) {
+                return;
+            }
+            UnitAnalysis.Result r = o.result();
+            try (BufferedWriter w = Files.newBufferedWriter(dir.resolve("modes.csv"), StandardCharsets.UTF_8)) {
+                w.write("timestamp,mode,in_band\n");
+                byte[] codes = r.modes().codes();
+                for (int i = 0; i < codes.length; i++) {
+                    w.write(Csv.time(r.time(i), zone));
+                    w.write(',');
+                    w.write(OperatingMode.ofCode(codes[i]).label());
+                    w.write(',');
+                    byte b = r.bandState()[i];
+                    w.write(b == UnitAnalysis.Result.IN_BAND ? "true" : b == UnitAnalysis.Result.OUT_OF_BAND ? "false" : "");
+                    w.write('\n');
+                }
+            }
+            for (ModeResult m : r.modeResults()) {
+                if (m.analyzed()) {
+                    writeMode(dir.resolve(m.mode()), m, r);
+                }
+            }
+        } catch (IOException e) {
+            throw new UncheckedIOException("cannot write " + dir + ": " + e.getMessage(), e);
+        }
+    }
+
+    private void writeMode(Path dir, ModeResult m, UnitAnalysis.Result r) throws IOException {
+        Files.createDirectories(dir);
+        FeatureMatrix f = m.features();
+        try (BufferedWriter w = Files.newBufferedWriter(dir.resolve("features.csv"), StandardCharsets.UTF_8)) {
+            w.write("timestamp," + String.join(",", f.names()) + "\n");
+            for (int i = 0; i < f.size(); i++) {
+                w.write(Csv.time(r.time(f.sampleIndex()[i]), zone));
+                for (double v : f.rows()[i]) {
+                    w.write(',');
+                    w.write(Csv.number(v));
+                }
+                w.write('\n');
+            }
+        }
+        PcaResult pca = m.pca();
+        try (BufferedWriter w = Files.newBufferedWriter(dir.resolve("scores.csv"), StandardCharsets.UTF_8)) {
+            w.write("timestamp");
+            for (int k = 1; k <= pca.componentCount(); k++) {
+                w.write(",pc" + k);
+            }
+            w.write('\n');
+            double[][] scores = pca.scores();
+            for (int i = 0; i < scores.length; i++) {
+                w.write(Csv.time(r.time(f.sampleIndex()[i]), zone));
+                for (double v : scores[i]) {
+                    w.write(',');
+                    w.write(Csv.number(v));
+                }
+                w.write('\n');
+            }
+        }
+        OpticsResult o = m.optics();
+        int[] order = o.ordering();
+        try (BufferedWriter w = Files.newBufferedWriter(dir.resolve("reachability.csv"), StandardCharsets.UTF_8)) {
+            w.write("order,timestamp,reachability,core_distance,cluster\n");
+            for (int k = 0; k < order.length; k++) {
+                int i = order[k];
+                w.write(k + "," + Csv.time(r.time(f.sampleIndex()[i]), zone) + "," + Csv.number(o.reachabilityOf(i))
+                        + "," + Csv.number(o.coreDistanceOf(i)) + "," + m.labels()[i] + "\n");
+            }
+        }
+    }
+
+    /** Files of a unit folder, for tests and the report. */
+    public static List<String> modeFiles() {
+        return List.of("features.csv", "scores.csv", "reachability.csv");
+    }
+}

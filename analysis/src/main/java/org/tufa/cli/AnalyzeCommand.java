@@ -1,0 +1,216 @@
+package org.tufa.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.time.Duration;
+import java.time.Instant;
+import java.time.LocalDate;
+import java.time.LocalDateTime;
+import java.time.OffsetDateTime;
+import java.time.ZoneId;
+import java.time.ZoneOffset;
+import java.time.format.DateTimeParseException;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.concurrent.Callable;
+import org.tufa.analysis.band.BandKind;
+import org.tufa.analysis.cluster.AutoParameters;
+import org.tufa.analysis.findings.CauseTable;
+import org.tufa.analysis.fleet.AnalysisSettings;
+import org.tufa.analysis.fleet.FleetAnalysis;
+import org.tufa.analysis.fleet.FleetOutputs;
+import org.tufa.analysis.fleet.FleetReport;
+import org.tufa.analysis.fleet.UnitFiles;
+import org.tufa.analysis.trends.TimeOptions;
+import org.tufa.common.InputException;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/** {@code tufa analyze}: the per-unit, per-mode detection on every analysable unit of a fleet. */
+@Command(name = "analyze", mixinStandardHelpOptions = true,
+        description = {"Run the detection on every analysable terminal unit, per operating mode: trends, modes, load "
+                + "band, PCA, OPTICS, clusters, candidate faults.",
+            "Writes DIR/fleet.csv, DIR/findings.csv, DIR/ranking.csv, DIR/run.json and DIR/units/. Findings are "
+                + "candidates for review by qualified staff, never commands to equipment."})
+public final class AnalyzeCommand implements Callable<Integer> {
+
+    @Spec
+    picocli.CommandLine.Model.CommandSpec spec;
+
+    @Mixin
+    FleetModelOptions fleet;
+
+    @Option(names = "--trends", required = true, paramLabel = "PATH", split = ",",
+            description = "Trend CSV files (long timestamp,point,value or wide timestamp,<series>...), .csv.gz, "
+                    + "or folders of them. Repeatable.")
+    List<Path> trends = new ArrayList<>();
+
+    @Option(names = "--out", required = true, paramLabel = "DIR", description = "Output directory.")
+    Path out;
+
+    @Option(names = "--timezone", paramLabel = "ZONE",
+            description = "IANA zone of naive time stamps in the trends, and of times in the outputs "
+                    + "(e.g. America/Toronto). Default: UTC for outputs; naive stamps then need it.")
+    String timezone;
+
+    @Option(names = "--from", paramLabel = "TIME", description = "Start of the window (2031-06-01, or an ISO date-time).")
+    String from;
+
+    @Option(names = "--to", paramLabel = "TIME", description = "End of the window, exclusive.")
+    String to;
+
+    @Option(names = "--interval", paramLabel = "DURATION", defaultValue = "PT15M",
+            description = "Resampling step, ISO-8601 duration (default: ${DEFAULT-VALUE}).")
+    Duration interval;
+
+    @Option(names = "--max-gap", paramLabel = "DURATION", defaultValue = "PT1H",
+            description = "Longest gap a value is held across (default: ${DEFAULT-VALUE}).")
+    Duration maxGap;
+
+    @Option(names = "--band", paramLabel = "KIND", defaultValue = "tukey",
+            description = "Load band: iqr (Q1..Q3), tukey (Q1-1.5 IQR..Q3+1.5 IQR) or none (default: ${DEFAULT-VALUE}).")
+    String band;
+
+    @Option(names = "--min-pts", paramLabel = "N", defaultValue = "20", description = "OPTICS MinPts (default: ${DEFAULT-VALUE}).")
+    int minPts;
+
+    @Option(names = "--variance", paramLabel = "FRACTION", defaultValue = "0.90",
+            description = "PCA: cumulative explained variance to keep (default: ${DEFAULT-VALUE}).")
+    double variance;
+
+    @Option(names = "--xi", paramLabel = "XI", defaultValue = "0.05",
+            description = "OPTICS xi steepness for cluster extraction (default: ${DEFAULT-VALUE}).")
+    double xi;
+
+    @Option(names = "--causes", paramLabel = "FILE",
+            description = "Candidate-cause table to use instead of the one shipped with tufa.")
+    Path causes;
+
+    @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: all cores).")
+    int threads = Runtime.getRuntime().availableProcessors();
+
+    @Option(names = "--strict", description = "Stop at the first unparsable trend value instead of counting it.")
+    boolean strict;
+
+    @Override
+    public Integer call() {
+        PrintWriter stdout = spec.commandLine().getOut();
+        PrintWriter stderr = spec.commandLine().getErr();
+        FleetModelOptions.Assessed assessed = fleet.assess();
+        if (assessed.coverage().units().isEmpty()) {
+            stdout.println("Nothing to analyse in " + fleet.model + ": no terminal units of the requested classes.");
+            stdout.flush();
+            return ExitCodes.CHECK_FAILED;
+        }
+        ZoneId zone = zone();
+        TimeOptions time;
+        try {
+            time = new TimeOptions(timezone == null ? null : zone, interval, maxGap, instant(from, zone, "--from"),
+                    instant(to, zone, "--to"), strict);
+        } catch (IllegalArgumentException e) {
+            throw new InputException("--interval, --max-gap, --from or --to: " + e.getMessage());
+        }
+        AnalysisSettings defaults = AnalysisSettings.defaults();
+        AnalysisSettings settings = new AnalysisSettings(defaults.modeThresholds(), bandKind(), defaults.bandRuns(),
+                variance, minPts, new AutoParameters(xi, defaults.extraction().minClusterFraction(),
+                defaults.extraction().mergeCoverage()), defaults.minModeSamples(), defaults.minFindingSamples(),
+                defaults.bridgeSamples(), defaults.residualGate(), defaults.activityGate(), defaults.defaultAirflow(),
+                causes == null ? defaults.causes() : CauseTable.load(causes));
+        ProgressBar bar = new ProgressBar(stderr, "units");
+        long start = System.nanoTime();
+        FleetAnalysis.Result result = FleetAnalysis.run(assessed.coverage(), trends, time, settings,
+                Math.max(1, threads), new UnitFiles(out, zone), bar::update);
+        List<Path> inputs = new ArrayList<>();
+        inputs.add(fleet.model);
+        inputs.addAll(trends);
+        FleetOutputs.write(out, result, zone, parameters(settings, time, zone), inputs);
+        FleetReport.summary(result, assessed.coverage(), out).forEach(stdout::println);
+        stderr.printf(java.util.Locale.ROOT, "time: %.1f s wall; per stage (summed over threads): %s%n",
+                (System.nanoTime() - start) / 1e9, result.times().summary());
+        stdout.flush();
+        stderr.flush();
+        return ExitCodes.OK;
+    }
+
+    private ZoneId zone() {
+        if (timezone == null) {
+            return ZoneOffset.UTC;
+        }
+        try {
+            return ZoneId.of(timezone);
+        } catch (java.time.DateTimeException e) {
+            throw new InputException("--timezone: unknown zone '" + timezone
+                    + "'; use an IANA name such as America/Toronto or Europe/Berlin");
+        }
+    }
+
+    private BandKind bandKind() {
+        try {
+            return BandKind.fromLabel(band);
+        } catch (IllegalArgumentException e) {
+            throw new InputException("--band: '" + band + "' is not a band kind; use iqr, tukey or none");
+        }
+    }
+
+    static Instant instant(String text, ZoneId zone, String option) {
+        if (text == null) {
+            return null;
+        }
+        try {
+            return OffsetDateTime.parse(text).toInstant();
+        } catch (DateTimeParseException ignored) {
+            // try the local forms below
+        }
+        try {
+            return LocalDateTime.parse(text).atZone(zone).toInstant();
+        } catch (DateTimeParseException ignored) {
+            // try a plain date
+        }
+        try {
+            return LocalDate.parse(text).atStartOfDay(zone).toInstant();
+        } catch (DateTimeParseException e) {
+            throw new InputException(option + ": '" + text + "' is not a date or time; use 2031-06-01, "
+                    + "2031-06-01T08:00 or 2031-06-01T08:00-04:00");
+        }
+    }
+
+    private Map<String, Object> parameters(AnalysisSettings s, TimeOptions time, ZoneId zone) {
+        Map<String, Object> p = new LinkedHashMap<>();
+        p.put("profile", fleet.profile);
+        p.put("unit_classes", String.join(",", assessedClasses()));
+        p.put("timezone", zone.getId());
+        p.put("from", time.from() == null ? "" : time.from().toString());
+        p.put("to", time.to() == null ? "" : time.to().toString());
+        p.put("interval", time.interval().toString());
+        p.put("max_gap", time.maxGap().toString());
+        p.put("valve_open_percent", s.modeThresholds().valveOpenPercent());
+        p.put("fan_status_on_fraction", s.modeThresholds().fanStatusOnFraction());
+        p.put("fan_speed_on_fraction", s.modeThresholds().fanSpeedOnFraction());
+        p.put("settling_samples", s.modeThresholds().settlingSamples());
+        p.put("band", s.band().label());
+        p.put("band_min_outside_samples", s.bandRuns().minOutsideSamples());
+        p.put("band_max_bridged_samples", s.bandRuns().maxBridgedSamples());
+        p.put("pca_variance", s.varianceTarget());
+        p.put("optics_min_pts", s.minPts());
+        p.put("xi", s.extraction().xi());
+        p.put("min_cluster_fraction", s.extraction().minClusterFraction());
+        p.put("merge_coverage", s.extraction().mergeCoverage());
+        p.put("min_mode_samples", s.minModeSamples());
+        p.put("min_finding_samples", s.minFindingSamples());
+        p.put("bridge_samples", s.bridgeSamples());
+        p.put("residual_gate_k", s.residualGate());
+        p.put("activity_gate_percent", s.activityGate());
+        p.put("default_airflow_m3s", s.defaultAirflow());
+        p.put("causes", causes == null ? "built-in" : causes.toString());
+        p.put("strict", strict);
+        return p;
+    }
+
+    private List<String> assessedClasses() {
+        return fleet.unitClasses.isEmpty() ? List.of("brick:Terminal_Unit") : fleet.unitClasses;
+    }
+}
