@@ -11,7 +11,7 @@ import picocli.CommandLine.Command;
         mixinStandardHelpOptions = true,
         versionProvider = Tufa.Version.class,
         description = "Terminal Unit Fleet Analysis: point list to Brick model to per-unit fault candidates.",
-        subcommands = {CommandLine.HelpCommand.class})
+        subcommands = {CommandLine.HelpCommand.class, EvaluateCommand.class})
 public final class Tufa implements Runnable {
 
     @CommandLine.Spec
