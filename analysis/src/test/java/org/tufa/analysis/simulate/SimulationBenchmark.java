@@ -13,6 +13,8 @@ import java.util.Map;
  * java -cp analysis/target/classes:analysis/target/test-classes:mapper/target/classes \
  *     org.tufa.analysis.simulate.SimulationBenchmark 150 summer /tmp/tufa-sim-bench
  * </pre>
+ * Arguments: unit count, {@code summer} or {@code year}, output directory, and any fourth argument to print a
+ * per-unit summary. {@code -Dtufa.bench.wideOnly=true} skips the (large) long layout.
  */
 public final class SimulationBenchmark {
     private SimulationBenchmark() {
@@ -32,13 +34,16 @@ public final class SimulationBenchmark {
         long t1 = System.nanoTime();
         DemoTrends.write(dir.resolve("wide"), result, DemoTrends.Layout.WIDE);
         long t2 = System.nanoTime();
-        DemoTrends.write(dir.resolve("long"), result, DemoTrends.Layout.LONG);
+        boolean withLong = !Boolean.getBoolean("tufa.bench.wideOnly");
+        if (withLong) {
+            DemoTrends.write(dir.resolve("long"), result, DemoTrends.Layout.LONG);
+        }
         long t3 = System.nanoTime();
         System.out.printf(java.util.Locale.ROOT,
                 "%d units, %s, %d samples: simulate %.2f s, write wide %.2f s (%d MB), write long %.2f s (%d MB)%n",
                 n, season.firstDay() + ".." + season.lastDay(), season.sampleCount(), (t1 - t0) / 1e9,
                 (t2 - t1) / 1e9, Files.size(dir.resolve("wide").resolve(DemoTrends.TRENDS_FILE)) >> 20,
-                (t3 - t2) / 1e9, Files.size(dir.resolve("long").resolve(DemoTrends.TRENDS_FILE)) >> 20);
+                (t3 - t2) / 1e9, withLong ? Files.size(dir.resolve("long").resolve(DemoTrends.TRENDS_FILE)) >> 20 : 0);
         if (args.length > 3) {
             for (UnitTrace u : result.units()) {
                 System.out.println(TraceSummary.of(u, result).line());

@@ -1,0 +1,161 @@
+package org.tufa.analysis.evaluate;
+
+import java.io.IOException;
+import java.io.Reader;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Instant;
+import java.time.OffsetDateTime;
+import java.time.format.DateTimeParseException;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import java.util.TreeMap;
+import org.apache.commons.csv.CSVFormat;
+import org.apache.commons.csv.CSVParser;
+import org.apache.commons.csv.CSVRecord;
+import org.tufa.common.InputException;
+
+/**
+ * Reads the analysis output directory ({@code fleet.csv}, {@code findings.csv}, {@code units/<folder>/modes.csv})
+ * and {@code truth.csv}. Every problem is a one-line {@link InputException} naming the file and line.
+ */
+public final class EvaluationFiles {
+    public static final List<String> FLEET_HEADER = List.of("unit", "label", "folder", "status", "reason", "modes",
+            "samples_used", "clusters", "fault_clusters", "fault_hours", "energy_kwh");
+    public static final List<String> FINDINGS_HEADER = List.of("unit", "mode", "kind", "cluster", "start", "end",
+            "hours", "energy_kwh", "shift", "candidate_causes");
+    public static final List<String> MODES_HEADER = List.of("timestamp", "mode", "in_band");
+    public static final List<String> TRUTH_HEADER = List.of("unit", "fault", "start", "end", "severity");
+
+    private EvaluationFiles() {
+    }
+
+    /** Reads everything; checks that every truth and findings unit is in the fleet. */
+    public static EvaluationInput read(Path findingsDir, Path truthFile) {
+        Path fleetFile = findingsDir.resolve("fleet.csv");
+        List<FleetUnit> fleet = new ArrayList<>();
+        Map<String, FleetUnit> byUnit = new TreeMap<>();
+        forEachRecord(fleetFile, FLEET_HEADER, (r, line) -> {
+            String status = r.get("status");
+            if (!status.equals("analyzed") && !status.equals("skipped") && !status.equals("failed")) {
+                throw InputException.at(fleetFile, line, "column status: '" + status
+                        + "' is not one of analyzed, skipped, failed");
+            }
+            FleetUnit u = new FleetUnit(r.get("unit"), r.get("label"), r.get("folder"), status);
+            if (byUnit.put(u.unit(), u) != null) {
+                throw InputException.at(fleetFile, line, "unit " + u.unit() + " is listed twice");
+            }
+            fleet.add(u);
+        });
+
+        Path findingsFile = findingsDir.resolve("findings.csv");
+        Map<String, List<FlaggedInterval>> findings = new TreeMap<>();
+        forEachRecord(findingsFile, FINDINGS_HEADER, (r, line) -> {
+            String unit = r.get("unit");
+            if (!byUnit.containsKey(unit)) {
+                throw InputException.at(findingsFile, line, "unit " + unit + " is not in " + fleetFile);
+            }
+            Instant start = time(findingsFile, line, "start", r.get("start"));
+            Instant end = time(findingsFile, line, "end", r.get("end"));
+            if (end.isBefore(start)) {
+                throw InputException.at(findingsFile, line, "end is before start");
+            }
+            findings.computeIfAbsent(unit, k -> new ArrayList<>()).add(new FlaggedInterval(unit, r.get("kind"),
+                    start, end));
+        });
+
+        Map<String, UnitSamples> samples = new TreeMap<>();
+        for (FleetUnit u : fleet) {
+            if (!u.analyzed()) {
+                continue;
+            }
+            if (u.folder().isEmpty() || u.folder().contains("/") || u.folder().contains("\\")
+                    || u.folder().equals("..")) {
+                throw InputException.in(fleetFile, "unit " + u.unit() + ": folder '" + u.folder()
+                        + "' is not a plain folder name under units/");
+            }
+            Path modesFile = findingsDir.resolve("units").resolve(u.folder()).resolve("modes.csv");
+            List<Instant> times = new ArrayList<>();
+            List<String> modes = new ArrayList<>();
+            forEachRecord(modesFile, MODES_HEADER, (r, line) -> {
+                String mode = r.get("mode");
+                if (!UnitSamples.MODES.contains(mode)) {
+                    throw InputException.at(modesFile, line, "column mode: '" + mode + "' is not one of "
+                            + new java.util.TreeSet<>(UnitSamples.MODES));
+                }
+                times.add(time(modesFile, line, "timestamp", r.get("timestamp")));
+                modes.add(mode);
+            });
+            samples.put(u.unit(), new UnitSamples(times, modes));
+        }
+
+        List<TruthEpisode> truth = new ArrayList<>();
+        forEachRecord(truthFile, TRUTH_HEADER, (r, line) -> {
+            String unit = r.get("unit");
+            if (!byUnit.containsKey(unit)) {
+                throw InputException.at(truthFile, line, "unit " + unit + " is not in " + fleetFile
+                        + "; evaluate the findings of the same fleet the truth was made for");
+            }
+            Instant start = time(truthFile, line, "start", r.get("start"));
+            Instant end = time(truthFile, line, "end", r.get("end"));
+            if (!end.isAfter(start)) {
+                throw InputException.at(truthFile, line, "end must be after start");
+            }
+            double severity;
+            try {
+                severity = Double.parseDouble(r.get("severity"));
+            } catch (NumberFormatException e) {
+                throw InputException.at(truthFile, line, "column severity: '" + r.get("severity")
+                        + "' is not a number");
+            }
+            if (r.get("fault").isBlank()) {
+                throw InputException.at(truthFile, line, "column fault is empty");
+            }
+            truth.add(new TruthEpisode(unit, r.get("fault"), start, end, severity));
+        });
+        return new EvaluationInput(List.copyOf(fleet), findings, samples, List.copyOf(truth));
+    }
+
+    private interface RecordHandler {
+        void accept(CSVRecord record, long line);
+    }
+
+    private static void forEachRecord(Path file, List<String> header, RecordHandler handler) {
+        if (!Files.isRegularFile(file)) {
+            throw InputException.in(file, "file not found; pass the directory the analysis wrote (--findings)"
+                    + " and the truth.csv the simulator wrote (--truth)");
+        }
+        CSVFormat format = CSVFormat.DEFAULT.builder().setHeader().setSkipHeaderRecord(true).get();
+        try (Reader reader = Files.newBufferedReader(file, StandardCharsets.UTF_8);
+                CSVParser parser = CSVParser.builder().setReader(reader).setFormat(format).get()) {
+            List<String> names = parser.getHeaderNames();
+            List<String> missing = header.stream().filter(h -> !names.contains(h)).toList();
+            if (!missing.isEmpty()) {
+                throw InputException.at(file, 1, "header lacks column(s) " + String.join(", ", missing)
+                        + "; expected " + String.join(",", header));
+            }
+            for (CSVRecord r : parser) {
+                long line = r.getRecordNumber() + 1;
+                if (!r.isConsistent()) {
+                    throw InputException.at(file, line, "expected " + names.size() + " fields, found " + r.size());
+                }
+                handler.accept(r, line);
+            }
+        } catch (IOException | java.io.UncheckedIOException e) {
+            throw InputException.in(file, "cannot read: " + e.getMessage());
+        } catch (IllegalArgumentException | IllegalStateException e) {
+            throw InputException.in(file, "not a valid CSV file: " + e.getMessage().replace('\n', ' '));
+        }
+    }
+
+    private static Instant time(Path file, long line, String column, String value) {
+        try {
+            return OffsetDateTime.parse(value).toInstant();
+        } catch (DateTimeParseException e) {
+            throw InputException.at(file, line, "column " + column + ": '" + value
+                    + "' is not an ISO-8601 date-time with offset, e.g. 2031-06-01T00:15:00-04:00");
+        }
+    }
+}

@@ -1,0 +1,15 @@
+package org.tufa.analysis.evaluate;
+
+import java.util.List;
+import java.util.Map;
+
+/**
+ * Everything evaluation reads: the fleet (in file order), findings per unit, samples per analysed unit and the
+ * ground truth. Maps are sorted (TreeMap) so nothing depends on hash order.
+ */
+public record EvaluationInput(
+        List<FleetUnit> fleet,
+        Map<String, List<FlaggedInterval>> findingsByUnit,
+        Map<String, UnitSamples> samplesByUnit,
+        List<TruthEpisode> truth) {
+}

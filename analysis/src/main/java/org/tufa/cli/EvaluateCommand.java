@@ -1,0 +1,50 @@
+package org.tufa.cli;
+
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+import org.tufa.analysis.evaluate.Evaluation;
+import org.tufa.analysis.evaluate.EvaluationFiles;
+import org.tufa.analysis.evaluate.EvaluationReport;
+import org.tufa.common.InputException;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/** {@code tufa evaluate}: scores an analysis output directory against a ground-truth file. */
+@Command(name = "evaluate", mixinStandardHelpOptions = true,
+        description = {"Scores findings against ground truth (truth.csv from the demo simulator): episodes "
+                + "detected, share of fault hours flagged, share of healthy-unit hours flagged.",
+            "Writes evaluation.csv and evaluation_episodes.csv into the findings directory."})
+public final class EvaluateCommand implements Callable<Integer> {
+    @Spec
+    CommandSpec spec;
+
+    @Option(names = "--findings", required = true, paramLabel = "DIR",
+            description = "Directory the analysis wrote (fleet.csv, findings.csv, units/<folder>/modes.csv).")
+    Path findings;
+
+    @Option(names = "--truth", required = true, paramLabel = "FILE", description = "Ground truth, truth.csv.")
+    Path truth;
+
+    @Option(names = "--min-hours", paramLabel = "H", defaultValue = "2",
+            description = "Flagged hours inside an episode for it to count as detected (default: ${DEFAULT-VALUE}).")
+    double minHours;
+
+    @Option(names = "--require-goals",
+            description = "Exit with code 3 when a goal is not met (for scripted checks).")
+    boolean requireGoals;
+
+    @Override
+    public Integer call() {
+        if (!(minHours >= 0)) {
+            throw new InputException("--min-hours: must be a number >= 0, got " + minHours);
+        }
+        Evaluation.Result result = Evaluation.fit(EvaluationFiles.read(findings, truth), minHours);
+        EvaluationReport.table(result).forEach(spec.commandLine().getOut()::println);
+        EvaluationReport.writeSummary(findings.resolve(EvaluationReport.SUMMARY_FILE), result);
+        EvaluationReport.writeEpisodes(findings.resolve(EvaluationReport.EPISODES_FILE), result);
+        spec.commandLine().getOut().flush();
+        return requireGoals && !result.goalsMet() ? ExitCodes.CHECK_FAILED : ExitCodes.OK;
+    }
+}
