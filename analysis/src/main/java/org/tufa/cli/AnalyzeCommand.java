@@ -16,6 +16,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.concurrent.Callable;
 import org.tufa.analysis.band.BandKind;
+import org.tufa.analysis.coverage.CoverageFiles;
 import org.tufa.analysis.cluster.AutoParameters;
 import org.tufa.analysis.findings.CauseTable;
 import org.tufa.analysis.fleet.AnalysisSettings;
@@ -123,7 +124,8 @@ public final class AnalyzeCommand implements Callable<Integer> {
         ProgressBar bar = new ProgressBar(stderr, "units");
         long start = System.nanoTime();
         FleetAnalysis.Result result = FleetAnalysis.run(assessed.coverage(), trends, time, settings,
-                Math.max(1, threads), new UnitFiles(out, zone), bar::update);
+                Math.max(1, threads), List.of(new UnitFiles(out, zone)), bar::update);
+        CoverageFiles.write(assessed.coverage(), out);
         List<Path> inputs = new ArrayList<>();
         inputs.add(fleet.model);
         inputs.addAll(trends);

@@ -44,7 +44,7 @@ public final class FleetAnalysis {
     }
 
     public static Result run(FleetCoverage coverage, List<Path> trends, TimeOptions timeOptions,
-                             AnalysisSettings settings, int threads, UnitFiles files, Progress progress) {
+                             AnalysisSettings settings, int threads, List<UnitSink> sinks, Progress progress) {
         StageTimes times = new StageTimes();
         List<UnitCoverage> units = new ArrayList<>(coverage.units());
         units.sort(java.util.Comparator.comparing(UnitCoverage::unit));
@@ -77,9 +77,12 @@ public final class FleetAnalysis {
                     UnitCoverage u = units.get(k);
                     String folder = folders.get(k);
                     futures.add(pool.submit(() -> {
-                        UnitOutcome o = analyse(coverage, u, inputs.get(u.unit()), folder, store, settings, times);
+                        Analysed a = analyse(coverage, u, inputs.get(u.unit()), folder, store, settings, times);
+                        UnitOutcome o = a.outcome();
                         long w = System.nanoTime();
-                        files.write(o, store.interval());
+                        for (UnitSink sink : sinks) {
+                            sink.accept(o, a.signals());
+                        }
                         times.add(StageTimes.Stage.WRITE, System.nanoTime() - w);
                         progress.unitDone(done.incrementAndGet(), units.size());
                         return o;
@@ -105,11 +108,15 @@ public final class FleetAnalysis {
         }
     }
 
-    private static UnitOutcome analyse(FleetCoverage coverage, UnitCoverage u, UnitInputs in, String folder,
+    /** An outcome with the signals it was computed from (null when the unit was not analysed). */
+    private record Analysed(UnitOutcome outcome, UnitSignals signals) {
+    }
+
+    private static Analysed analyse(FleetCoverage coverage, UnitCoverage u, UnitInputs in, String folder,
                                        TrendStore store, AnalysisSettings settings, StageTimes times) {
         if (!u.analyzable()) {
-            return new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED,
-                    CoverageSummary.reason(coverage, u), List.of(), null, List.of());
+            return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED,
+                    CoverageSummary.reason(coverage, u), List.of(), null, List.of()), null);
         }
         try {
             long t0 = System.nanoTime();
@@ -119,8 +126,8 @@ public final class FleetAnalysis {
             times.add(StageTimes.Stage.RESAMPLE, System.nanoTime() - t0);
             UnitSignals s = p.signals();
             if (!UnitSignals.present(s.zoneAirTemperature()) || !UnitSignals.present(s.dischargeAirTemperature())) {
-                return new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED,
-                        "no trend data for the zone or discharge air temperature", p.notes(), null, List.of());
+                return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED,
+                        "no trend data for the zone or discharge air temperature", p.notes(), null, List.of()), null);
             }
             UnitAnalysis.Result r = UnitAnalysis.run(s, in.fanSignal(), in.nominalAirflow(), settings, times);
             List<String> notes = new ArrayList<>(p.notes());
@@ -131,14 +138,15 @@ public final class FleetAnalysis {
             if (r.modeResults().stream().noneMatch(ModeResult::analyzed)) {
                 String why = String.join("; ", r.modeResults().stream().map(m -> m.mode() + ": " + m.reason())
                         .toList());
-                return new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED, "no mode could be clustered ("
-                        + why + ")", notes, r, r.findings());
+                return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED,
+                        "no mode could be clustered (" + why + ")", notes, r, r.findings()), s);
             }
-            return new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.ANALYZED, "", notes, r, r.findings());
+            return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.ANALYZED, "", notes, r,
+                    r.findings()), s);
         } catch (RuntimeException e) {
             String msg = e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
-            return new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.FAILED, msg.lines().findFirst().orElse(""),
-                    List.of(), null, List.of());
+            return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.FAILED,
+                    msg.lines().findFirst().orElse(""), List.of(), null, List.of()), null);
         }
     }
 }

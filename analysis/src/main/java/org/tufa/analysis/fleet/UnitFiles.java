@@ -6,7 +6,6 @@ import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.time.Duration;
 import java.time.ZoneId;
 import java.util.List;
 import org.tufa.analysis.cluster.OpticsResult;
@@ -21,7 +20,7 @@ import org.tufa.analysis.modes.OperatingMode;
  * written with full double precision (a form that parses back to the same double), so the clustering can be re-run elsewhere
  * and reproduces the ordering exactly.
  */
-public final class UnitFiles {
+public final class UnitFiles implements UnitSink {
 
     private final Path unitsDir;
     private final ZoneId zone;
@@ -31,7 +30,8 @@ public final class UnitFiles {
         this.zone = zone;
     }
 
-    public void write(UnitOutcome o, Duration interval) {
+    @Override
+    public void accept(UnitOutcome o, org.tufa.analysis.features.UnitSignals signals) {
         Path dir = unitsDir.resolve(o.folder());
         if (!dir.normalize().startsWith(unitsDir.normalize())) {
             throw new IllegalStateException("unit folder escapes the output folder: " + o.folder());
