@@ -31,31 +31,27 @@ final class LookupRunner {
               { ?host brick:hasPoint ?pt } UNION { ?pt brick:isPointOf ?host }
             }""";
 
-    private static final String PART_POINTS = """
-            SELECT ?host ?pt ?t WHERE {
-              VALUES ?t { }
-              VALUES ?pc { }
-              ?pt rdf:type ?t .
-              { ?part brick:hasPoint ?pt } UNION { ?pt brick:isPointOf ?part }
-              ?part rdf:type ?pc .
-              ?host (brick:hasPart|^brick:isPartOf)+ ?part .
-            }""";
+    // Part and zone classes are checked in Java on the (few) hosts found, which keeps each query a flat chain of
+    // patterns that ARQ evaluates left to right with the variables already bound. Parts and feeders of a unit are
+    // followed in Java (cached per unit), so each lookup still costs one query over the whole model.
 
+    /** Points of the spaces a unit serves directly (tier 0). */
     private static final String ZONE_POINTS = """
-            SELECT ?host ?space ?pt ?t ?tier WHERE {
+            SELECT ?host ?space ?pt ?t WHERE {
               VALUES ?t { }
               ?pt rdf:type ?t .
               { ?space brick:hasPoint ?pt } UNION { ?pt brick:isPointOf ?space }
-              {
-                ?host (brick:feeds|^brick:isFedBy|brick:hasLocation|^brick:isLocationOf) ?space .
-                BIND(0 AS ?tier)
-              } UNION {
-                VALUES ?zc { }
-                ?space (^brick:hasPart|brick:isPartOf)+ ?zone .
-                ?zone rdf:type ?zc .
-                ?host (brick:feeds|^brick:isFedBy|brick:hasLocation|^brick:isLocationOf) ?zone .
-                BIND(1 AS ?tier)
-              }
+              ?host (brick:feeds|^brick:isFedBy|brick:hasLocation|^brick:isLocationOf) ?space .
+            }""";
+
+    /** Points of the parts (rooms) of the spaces a unit serves (tier 1; the served space must be a zone). */
+    private static final String ZONE_PART_POINTS = """
+            SELECT ?host ?space ?zone ?pt ?t WHERE {
+              VALUES ?t { }
+              ?pt rdf:type ?t .
+              { ?space brick:hasPoint ?pt } UNION { ?pt brick:isPointOf ?space }
+              ?space (^brick:hasPart|brick:isPartOf)+ ?zone .
+              ?host (brick:feeds|^brick:isFedBy|brick:hasLocation|^brick:isLocationOf) ?zone .
             }""";
 
     private static final String ANY_POINTS = """
@@ -81,6 +77,8 @@ final class LookupRunner {
     private final Property isPartOf;
     // Cache of subclass closures; keys are looked up, never iterated.
     private final Map<List<String>, Set<String>> closures = new HashMap<>();
+    private final Map<String, SortedMap<Integer, Set<String>>> upstreamCache = new HashMap<>();
+    private final Map<String, Set<String>> partsCache = new HashMap<>();
 
     LookupRunner(Model all, Set<String> units, PointDetails details) {
         this.all = all;
@@ -108,18 +106,27 @@ final class LookupRunner {
                 }
             }
             case ON_PART -> {
-                Map<String, Set<String>> values = Map.of("t", accepted, "pc", closure(lookup.partClasses()));
-                for (QuerySolution row : Sparql.select(all, Sparql.build(PART_POINTS, values))) {
-                    add(tiers, iri(row, "host"), 0, row);
+                Set<String> partClasses = closure(lookup.partClasses());
+                Map<String, SortedMap<String, Set<String>>> pointsByHost = pointsByHost(accepted);
+                for (String unit : units) {
+                    for (String part : partsOf(unit)) {
+                        if (pointsByHost.containsKey(part) && !Collections.disjoint(details.types(part), partClasses)) {
+                            addHostPoints(tiers, unit, 0, pointsByHost.get(part));
+                        }
+                    }
                 }
             }
             case ON_ZONE -> {
-                Map<String, Set<String>> values = Map.of("t", accepted, "zc", zoneClasses);
-                for (QuerySolution row : Sparql.select(all, Sparql.build(ZONE_POINTS, values))) {
-                    String space = iri(row, "space");
-                    // A unit may feed equipment too; only spaces count as its zone.
-                    if (space != null && Collections.disjoint(details.types(space), equipmentClasses)) {
-                        add(tiers, iri(row, "host"), row.getLiteral("tier").getInt(), row);
+                for (QuerySolution row : Sparql.select(all, Sparql.build(ZONE_POINTS, Map.of("t", accepted)))) {
+                    if (isSpace(iri(row, "space"))) {
+                        add(tiers, iri(row, "host"), 0, row);
+                    }
+                }
+                for (QuerySolution row : Sparql.select(all, Sparql.build(ZONE_PART_POINTS, Map.of("t", accepted)))) {
+                    String zone = iri(row, "zone");
+                    if (isSpace(iri(row, "space")) && zone != null
+                            && !Collections.disjoint(details.types(zone), zoneClasses)) {
+                        add(tiers, iri(row, "host"), 1, row);
                     }
                 }
             }
@@ -129,6 +136,11 @@ final class LookupRunner {
         Map<String, Hits> out = new TreeMap<>();
         tiers.forEach((unit, byTier) -> out.put(unit, choose(byTier, excluded, lookup.anyTags())));
         return out;
+    }
+
+    /** A unit may feed equipment too; only spaces (not equipment) count as its zone. */
+    private boolean isSpace(String node) {
+        return node != null && Collections.disjoint(details.types(node), equipmentClasses);
     }
 
     private Hits choose(SortedMap<Integer, SortedMap<String, Set<String>>> byTier, Set<String> excluded,
@@ -174,6 +186,21 @@ final class LookupRunner {
      * 2k holds the points of the feeders k steps away, tier 2k+1 the points of their parts (a loop's chiller).
      */
     private void upstream(Set<String> accepted, Map<String, SortedMap<Integer, SortedMap<String, Set<String>>>> tiers) {
+        Map<String, SortedMap<String, Set<String>>> pointsByHost = pointsByHost(accepted);
+        if (pointsByHost.isEmpty()) {
+            return;
+        }
+        for (String unit : units) {
+            for (Map.Entry<Integer, Set<String>> tier : upstreamTiers(unit).entrySet()) {
+                for (String host : tier.getValue()) {
+                    addHostPoints(tiers, unit, tier.getKey(), pointsByHost.get(host));
+                }
+            }
+        }
+    }
+
+    /** Qualifying points per host (equipment, part or space that has them), from one query. */
+    private Map<String, SortedMap<String, Set<String>>> pointsByHost(Set<String> accepted) {
         Map<String, SortedMap<String, Set<String>>> pointsByHost = new HashMap<>();
         for (QuerySolution row : Sparql.select(all, Sparql.build(HOSTED_POINTS, Map.of("t", accepted)))) {
             String host = iri(row, "host");
@@ -183,12 +210,19 @@ final class LookupRunner {
                         .add(row.getResource("t").getURI());
             }
         }
-        if (pointsByHost.isEmpty()) {
-            return;
-        }
-        for (String unit : units) {
-            Set<String> visited = new TreeSet<>(parts(unit));
-            visited.add(unit);
+        return pointsByHost;
+    }
+
+    private Set<String> partsOf(String unit) {
+        return partsCache.computeIfAbsent(unit, this::parts);
+    }
+
+    /** Per tier (2k: feeders k steps away, 2k+1: their parts), the upstream nodes of a unit; cached per unit. */
+    private SortedMap<Integer, Set<String>> upstreamTiers(String unit) {
+        return upstreamCache.computeIfAbsent(unit, u -> {
+            SortedMap<Integer, Set<String>> out = new TreeMap<>();
+            Set<String> visited = new TreeSet<>(partsOf(u));
+            visited.add(u);
             Set<String> frontier = new TreeSet<>(visited);
             for (int distance = 1; !frontier.isEmpty(); distance++) {
                 Set<String> next = new TreeSet<>();
@@ -200,17 +234,24 @@ final class LookupRunner {
                     }
                 }
                 visited.addAll(next);
+                if (!next.isEmpty()) {
+                    out.put(2 * distance, next);
+                }
+                Set<String> feederParts = new TreeSet<>();
                 for (String feeder : next) {
-                    addHostPoints(tiers, unit, 2 * distance, pointsByHost.get(feeder));
                     for (String part : parts(feeder)) {
                         if (!visited.contains(part)) {
-                            addHostPoints(tiers, unit, 2 * distance + 1, pointsByHost.get(part));
+                            feederParts.add(part);
                         }
                     }
                 }
+                if (!feederParts.isEmpty()) {
+                    out.put(2 * distance + 1, feederParts);
+                }
                 frontier = next;
             }
-        }
+            return out;
+        });
     }
 
     private static void addHostPoints(Map<String, SortedMap<Integer, SortedMap<String, Set<String>>>> tiers,
