@@ -31,28 +31,9 @@ final class LookupRunner {
               { ?host brick:hasPoint ?pt } UNION { ?pt brick:isPointOf ?host }
             }""";
 
-    // Part and zone classes are checked in Java on the (few) hosts found, which keeps each query a flat chain of
-    // patterns that ARQ evaluates left to right with the variables already bound. Parts and feeders of a unit are
-    // followed in Java (cached per unit), so each lookup still costs one query over the whole model.
-
-    /** Points of the spaces a unit serves directly (tier 0). */
-    private static final String ZONE_POINTS = """
-            SELECT ?host ?space ?pt ?t WHERE {
-              VALUES ?t { }
-              ?pt rdf:type ?t .
-              { ?space brick:hasPoint ?pt } UNION { ?pt brick:isPointOf ?space }
-              ?host (brick:feeds|^brick:isFedBy|brick:hasLocation|^brick:isLocationOf) ?space .
-            }""";
-
-    /** Points of the parts (rooms) of the spaces a unit serves (tier 1; the served space must be a zone). */
-    private static final String ZONE_PART_POINTS = """
-            SELECT ?host ?space ?zone ?pt ?t WHERE {
-              VALUES ?t { }
-              ?pt rdf:type ?t .
-              { ?space brick:hasPoint ?pt } UNION { ?pt brick:isPointOf ?space }
-              ?space (^brick:hasPart|brick:isPartOf)+ ?zone .
-              ?host (brick:feeds|^brick:isFedBy|brick:hasLocation|^brick:isLocationOf) ?zone .
-            }""";
+    // One query per lookup finds the qualifying points and what they hang on; the unit's parts, zones and feeders
+    // are followed in Java on the model (cached per unit). Part and zone classes are checked in Java too, so the
+    // query stays a flat chain of patterns that ARQ evaluates left to right with its variables bound.
 
     private static final String ANY_POINTS = """
             SELECT ?pt ?t ?host WHERE {
@@ -75,10 +56,14 @@ final class LookupRunner {
     private final Property isFedBy;
     private final Property hasPart;
     private final Property isPartOf;
+    private final Property hasLocation;
+    private final Property isLocationOf;
     // Cache of subclass closures; keys are looked up, never iterated.
     private final Map<List<String>, Set<String>> closures = new HashMap<>();
     private final Map<String, SortedMap<Integer, Set<String>>> upstreamCache = new HashMap<>();
     private final Map<String, Set<String>> partsCache = new HashMap<>();
+    private final Map<String, SortedMap<Integer, Set<String>>> spacesCache = new HashMap<>();
+    private final Map<Set<String>, Map<String, SortedMap<String, Set<String>>>> hostedCache = new HashMap<>();
 
     LookupRunner(Model all, Set<String> units, PointDetails details) {
         this.all = all;
@@ -90,6 +75,8 @@ final class LookupRunner {
         this.isFedBy = all.createProperty(Namespaces.BRICK, "isFedBy");
         this.hasPart = all.createProperty(Namespaces.BRICK, "hasPart");
         this.isPartOf = all.createProperty(Namespaces.BRICK, "isPartOf");
+        this.hasLocation = all.createProperty(Namespaces.BRICK, "hasLocation");
+        this.isLocationOf = all.createProperty(Namespaces.BRICK, "isLocationOf");
     }
 
     /** Per unit IRI (only units with at least one candidate): the hits of this lookup. */
@@ -101,8 +88,9 @@ final class LookupRunner {
         Map<String, SortedMap<Integer, SortedMap<String, Set<String>>>> tiers = new TreeMap<>();
         switch (lookup.place()) {
             case ON_UNIT -> {
-                for (QuerySolution row : Sparql.select(all, Sparql.build(HOSTED_POINTS, Map.of("t", accepted)))) {
-                    add(tiers, iri(row, "host"), 0, row);
+                Map<String, SortedMap<String, Set<String>>> pointsByHost = pointsByHost(accepted);
+                for (String unit : units) {
+                    addHostPoints(tiers, unit, 0, pointsByHost.get(unit));
                 }
             }
             case ON_PART -> {
@@ -117,16 +105,12 @@ final class LookupRunner {
                 }
             }
             case ON_ZONE -> {
-                for (QuerySolution row : Sparql.select(all, Sparql.build(ZONE_POINTS, Map.of("t", accepted)))) {
-                    if (isSpace(iri(row, "space"))) {
-                        add(tiers, iri(row, "host"), 0, row);
-                    }
-                }
-                for (QuerySolution row : Sparql.select(all, Sparql.build(ZONE_PART_POINTS, Map.of("t", accepted)))) {
-                    String zone = iri(row, "zone");
-                    if (isSpace(iri(row, "space")) && zone != null
-                            && !Collections.disjoint(details.types(zone), zoneClasses)) {
-                        add(tiers, iri(row, "host"), 1, row);
+                Map<String, SortedMap<String, Set<String>>> pointsByHost = pointsByHost(accepted);
+                for (String unit : units) {
+                    for (Map.Entry<Integer, Set<String>> tier : spacesOf(unit).entrySet()) {
+                        for (String space : tier.getValue()) {
+                            addHostPoints(tiers, unit, tier.getKey(), pointsByHost.get(space));
+                        }
                     }
                 }
             }
@@ -166,15 +150,6 @@ final class LookupRunner {
         return new Hits(List.of(), untagged);
     }
 
-    private void add(Map<String, SortedMap<Integer, SortedMap<String, Set<String>>>> tiers, String unit, int tier,
-            QuerySolution row) {
-        String pt = iri(row, "pt");
-        if (unit == null || pt == null || !units.contains(unit)) {
-            return;
-        }
-        add(tiers, unit, tier, pt, row.getResource("t").getURI());
-    }
-
     private static void add(Map<String, SortedMap<Integer, SortedMap<String, Set<String>>>> tiers, String unit,
             int tier, String pt, String cls) {
         tiers.computeIfAbsent(unit, k -> new TreeMap<>()).computeIfAbsent(tier, k -> new TreeMap<>())
@@ -199,8 +174,12 @@ final class LookupRunner {
         }
     }
 
-    /** Qualifying points per host (equipment, part or space that has them), from one query. */
+    /** Qualifying points per host (equipment, part or space that has them), from one query per class set. */
     private Map<String, SortedMap<String, Set<String>>> pointsByHost(Set<String> accepted) {
+        return hostedCache.computeIfAbsent(accepted, this::queryPointsByHost);
+    }
+
+    private Map<String, SortedMap<String, Set<String>>> queryPointsByHost(Set<String> accepted) {
         Map<String, SortedMap<String, Set<String>>> pointsByHost = new HashMap<>();
         for (QuerySolution row : Sparql.select(all, Sparql.build(HOSTED_POINTS, Map.of("t", accepted)))) {
             String host = iri(row, "host");
@@ -211,6 +190,38 @@ final class LookupRunner {
             }
         }
         return pointsByHost;
+    }
+
+    /**
+     * The spaces a unit serves, by tier: 0 what it brick:feeds or brick:hasLocation (and the inverses), 1 the parts
+     * (rooms) of those that are zones. Equipment it feeds is not a space.
+     */
+    private SortedMap<Integer, Set<String>> spacesOf(String unit) {
+        return spacesCache.computeIfAbsent(unit, u -> {
+            Resource r = all.createResource(u);
+            Set<String> direct = new TreeSet<>();
+            all.listObjectsOfProperty(r, feeds).forEachRemaining(o -> addIri(direct, o));
+            all.listObjectsOfProperty(r, hasLocation).forEachRemaining(o -> addIri(direct, o));
+            all.listSubjectsWithProperty(isFedBy, r).forEachRemaining(x -> addIri(direct, x));
+            all.listSubjectsWithProperty(isLocationOf, r).forEachRemaining(x -> addIri(direct, x));
+            direct.removeIf(x -> !isSpace(x));
+            Set<String> rooms = new TreeSet<>();
+            for (String space : direct) {
+                if (!Collections.disjoint(details.types(space), zoneClasses)) {
+                    rooms.addAll(parts(space));
+                }
+            }
+            rooms.removeAll(direct);
+            rooms.removeIf(x -> !isSpace(x));
+            SortedMap<Integer, Set<String>> out = new TreeMap<>();
+            if (!direct.isEmpty()) {
+                out.put(0, direct);
+            }
+            if (!rooms.isEmpty()) {
+                out.put(1, rooms);
+            }
+            return out;
+        });
     }
 
     private Set<String> partsOf(String unit) {
