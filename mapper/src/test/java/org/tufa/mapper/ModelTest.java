@@ -168,9 +168,13 @@ class ModelTest {
 
         Files.writeString(rules, RULES + "expect \"FCU-9-9 ZN T\" type AI => Fan_Status\n");
         Files.delete(out);
-        code = new CommandLine(new MapCommand()).execute("--points", points.toString(), "--rules", rules.toString(),
+        CommandLine second = new CommandLine(new MapCommand());
+        java.io.StringWriter console2 = new java.io.StringWriter();
+        second.setOut(new java.io.PrintWriter(console2));
+        code = second.execute("--points", points.toString(), "--rules", rules.toString(),
                 "--out", out.toString());
         assertEquals(3, code);
+        assertTrue(console2.toString().contains("expectations: 0 passed, 1 failed"), console2.toString());
         assertTrue(Files.size(out) > 0, "outputs written even when an expectation fails");
 
         MapCommand bad = new MapCommand();

@@ -117,6 +117,18 @@ class RuleFileTest {
     }
 
     @Test
+    void theAnnotatedExampleInRulesFormatParses() throws Exception {
+        String md = java.nio.file.Files.readString(Path.of("RULES-FORMAT.md"));
+        String example = md.split("## Annotated example")[1].split("```")[1];
+        RuleSet rs = parse(example.strip() + "\n");
+        assertEquals("Marlow Quay Tower 1", rs.building());
+        assertEquals(2, rs.expectations().size());
+        assertEquals(4, rs.parts().size());
+        assertEquals(List.of("Zone", "Air"), rs.dictionary().lookup("ZN", vocab).tags().stream()
+                .sorted(java.util.Comparator.reverseOrder()).toList(), "trailing comment stripped");
+    }
+
+    @Test
     void tokenizerAndTemplates() {
         assertEquals(List.of("Zone", "Temp"), Tokenizer.tokens("ZoneTemp"));
         assertEquals(List.of("DA", "Temp"), Tokenizer.tokens("DATemp"));
