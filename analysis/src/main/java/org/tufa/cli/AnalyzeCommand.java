@@ -119,7 +119,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
         AnalysisSettings settings = new AnalysisSettings(defaults.modeThresholds(), bandKind(), defaults.bandRuns(),
                 variance, minPts, new AutoParameters(xi, defaults.extraction().minClusterFraction(),
                 defaults.extraction().mergeCoverage()), defaults.minModeSamples(), defaults.minFindingSamples(),
-                defaults.bridgeSamples(), defaults.residualGate(), defaults.activityGate(), defaults.defaultAirflow(),
+                defaults.bridgeSamples(), defaults.residualGate(), defaults.activityGate(), defaults.zoneErrorGate(), defaults.defaultAirflow(),
                 causes == null ? defaults.causes() : CauseTable.load(causes));
         ProgressBar bar = new ProgressBar(stderr, "units");
         long start = System.nanoTime();
@@ -206,6 +206,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
         p.put("bridge_samples", s.bridgeSamples());
         p.put("residual_gate_k", s.residualGate());
         p.put("activity_gate_percent", s.activityGate());
+        p.put("zone_error_gate_k", s.zoneErrorGate());
         p.put("default_airflow_m3s", s.defaultAirflow());
         p.put("causes", causes == null ? "built-in" : causes.toString());
         p.put("strict", strict);

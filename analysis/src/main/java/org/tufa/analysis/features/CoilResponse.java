@@ -82,7 +82,7 @@ public record CoilResponse(double[] coefficients, boolean usesWaterTemperature) 
                 double u = Math.abs(res[i]) / (HUBER_K * scale);
                 w[i] = u <= 1 ? 1 : 1 / u;
             }
-            double[] next = weightedQuadratic(v, y, w);
+            double[] next = monotone(v, y, w);
             if (next == null) {
                 break;
             }
@@ -145,8 +145,63 @@ public record CoilResponse(double[] coefficients, boolean usesWaterTemperature) 
             centre[b] = k == 0 ? 0 : sum / k;
             med[b] = k == 0 ? 0 : median(Arrays.copyOf(in, k));
         }
-        double[] c = weightedQuadratic(centre, med, count);
+        double[] c = monotone(centre, med, count);
         return c != null ? c : new double[] {median(y), 0, 0};
+    }
+
+    /**
+     * Weighted quadratic fit held non-decreasing on [0, 1]. The slope c1 + 2 c2 v is linear in v, so the curve is
+     * monotone exactly when both end slopes are >= 0; a negative end slope is fixed at zero: slope 0 at v = 1 means
+     * c1 = -2 c2 (basis 1, v^2 - 2v), slope 0 at v = 0 means c1 = 0 (basis 1, v^2).
+     */
+    private static double[] monotone(double[] v, double[] y, double[] w) {
+        double[] c = weightedQuadratic(v, y, w);
+        if (c == null || (c[1] >= 0 && c[1] + 2 * c[2] >= 0)) {
+            return c;
+        }
+        boolean flatTop = c[1] + 2 * c[2] < 0;
+        double[] z = new double[v.length];
+        for (int i = 0; i < v.length; i++) {
+            z[i] = flatTop ? v[i] * v[i] - 2 * v[i] : v[i] * v[i];
+        }
+        double[] line = weightedLine(z, y, w);
+        if (line == null) {
+            return constant(y, w);
+        }
+        double[] constrained = flatTop ? new double[] {line[0], -2 * line[1], line[1]}
+                : new double[] {line[0], 0, line[1]};
+        // The constrained curve must itself rise: a negative c2 in either basis means the data fall throughout,
+        // and the best non-decreasing quadratic is then a constant.
+        boolean rises = flatTop ? line[1] <= 0 : line[1] >= 0;
+        return rises ? constrained : constant(y, w);
+    }
+
+    /** Weighted least squares for y = a + b z, or null when z does not vary. */
+    private static double[] weightedLine(double[] z, double[] y, double[] w) {
+        double sw = 0;
+        double sz = 0;
+        double sy = 0;
+        for (int i = 0; i < z.length; i++) {
+            sw += w[i];
+            sz += w[i] * z[i];
+            sy += w[i] * y[i];
+        }
+        if (sw == 0) {
+            return null;
+        }
+        double mz = sz / sw;
+        double my = sy / sw;
+        double szz = 0;
+        double szy = 0;
+        for (int i = 0; i < z.length; i++) {
+            szz += w[i] * (z[i] - mz) * (z[i] - mz);
+            szy += w[i] * (z[i] - mz) * (y[i] - my);
+        }
+        if (szz < 1e-15) {
+            return null;
+        }
+        double b = szy / szz;
+        return new double[] {my - b * mz, b};
     }
 
     /** Weighted least squares for y = c0 + c1 v + c2 v^2 (normal equations, 3 x 3), or null when singular. */

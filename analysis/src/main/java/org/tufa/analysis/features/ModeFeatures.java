@@ -21,9 +21,14 @@ public final class ModeFeatures {
 
     /** Half window of the valve activity: 4 samples each side, 2 hours at 15 minutes (common practice, no source). */
     public static final int ACTIVITY_HALF_WINDOW = 4;
-    /** Half window of the running median on residuals and offsets: 2 samples each side, 75 minutes at 15 minutes
-     * (common practice, no source): long enough to remove a spike, short enough to keep a fault's start. */
-    public static final int SMOOTHING_HALF_WINDOW = 2;
+    /**
+     * Half window of the running median on residuals, offsets and zone errors, counted in samples of the same
+     * mode (not grid samples, so nights and other modes do not thin it): 12 each side, about six hours of
+     * operation (common practice, no source). Faults worth a finding last days (a failed fan, a biased sensor, a
+     * fouled coil), while a single-sample spike or a transient after start-up lasts minutes; the window keeps the
+     * first and removes the second, so clusters form around persistent states.
+     */
+    public static final int SMOOTHING_HALF_WINDOW = 12;
 
     private ModeFeatures() {
     }
@@ -92,17 +97,32 @@ public final class ModeFeatures {
         }
         CoilResponse response = CoilResponse.fit(v, air, wat);
         double[] activity = ValveActivity.of(valve, ACTIVITY_HALF_WINDOW);
-        double[] residualGrid = UnitSignals.absent(s.size());
+        double[] rawResidual = new double[n];
         for (int k = 0; k < n; k++) {
-            residualGrid[samples[k]] = response.residual(v[k], air[k], hasWater ? wat[k] : Double.NaN);
+            rawResidual[k] = response.residual(v[k], air[k], hasWater ? wat[k] : Double.NaN);
         }
-        double[] residual = RollingMedian.of(residualGrid, SMOOTHING_HALF_WINDOW);
+        double[] residual = RollingMedian.of(rawResidual, SMOOTHING_HALF_WINDOW);
+        // Cooling only: the zone held above its setpoint with the coil working is a capacity shortfall (no
+        // airflow, no water); the setpoint role is the active (target) setpoint. Heating setpoints are often a
+        // different point, so the mirror feature is left out rather than guessed.
+        boolean hasError = cooling && UnitSignals.present(s.zoneSetpoint());
+        double[] zoneError = null;
+        if (hasError) {
+            double[] rawError = new double[n];
+            for (int k = 0; k < n; k++) {
+                rawError[k] = zone[samples[k]] - s.zoneSetpoint()[samples[k]];
+            }
+            zoneError = RollingMedian.of(rawError, SMOOTHING_HALF_WINDOW);
+        }
 
         String valveName = cooling ? "cooling_valve_command" : "heating_valve_command";
         String waterName = cooling ? "chilled_water_supply_temperature" : "hot_water_supply_temperature";
         Columns c = new Columns();
         c.add("coil_residual", "K", true);
         c.add("valve_activity", "%", true);
+        if (hasError) {
+            c.add("zone_error", "K", true);
+        }
         c.add("discharge_air_temperature", "degC", false);
         c.add("zone_air_temperature", "degC", false);
         c.add(valveName, "%", false);
@@ -118,8 +138,11 @@ public final class ModeFeatures {
             int i = samples[k];
             double[] row = new double[c.size()];
             int j = 0;
-            row[j++] = residual[i];
+            row[j++] = residual[k];
             row[j++] = activity[i];
+            if (hasError) {
+                row[j++] = zoneError[k];
+            }
             row[j++] = discharge[i];
             row[j++] = zone[i];
             row[j++] = valve[i];
@@ -148,16 +171,17 @@ public final class ModeFeatures {
         if (hasOutdoor) {
             c.add("outdoor_air_temperature", "degC", false);
         }
-        double[] offsetGrid = UnitSignals.absent(s.size());
-        for (int i : samples) {
-            offsetGrid[i] = s.dischargeAirTemperature()[i] - s.zoneAirTemperature()[i];
+        double[] rawOffset = new double[samples.length];
+        for (int k = 0; k < samples.length; k++) {
+            rawOffset[k] = s.dischargeAirTemperature()[samples[k]] - s.zoneAirTemperature()[samples[k]];
         }
-        double[] offset = RollingMedian.of(offsetGrid, SMOOTHING_HALF_WINDOW);
+        double[] offset = RollingMedian.of(rawOffset, SMOOTHING_HALF_WINDOW);
         List<double[]> rows = new ArrayList<>(samples.length);
         List<Integer> index = new ArrayList<>(samples.length);
-        for (int i : samples) {
+        for (int k = 0; k < samples.length; k++) {
+            int i = samples[k];
             double[] row = new double[c.size()];
-            row[0] = offset[i];
+            row[0] = offset[k];
             row[1] = s.dischargeAirTemperature()[i];
             row[2] = s.zoneAirTemperature()[i];
             if (hasOutdoor) {

@@ -3,7 +3,7 @@ package org.tufa.analysis.features;
 import java.util.Arrays;
 
 /**
- * A centred rolling median over a regular grid, skipping missing samples. It keeps a level shift that lasts (a
+ * A centred rolling median over a series, skipping missing samples. It keeps a level shift that lasts (a
  * fault) and removes what lasts one or two samples (a spike, a transient after a valve move): the temporal
  * persistence a fault signature needs (Tukey, Exploratory Data Analysis, 1977, running medians).
  */
@@ -13,7 +13,7 @@ public final class RollingMedian {
     }
 
     /**
-     * @param values     one value per grid sample, NaN where missing
+     * @param values     a series (one value per grid sample, or per sample of one mode), NaN where missing
      * @param halfWindow samples on each side
      * @return the median of the valid values in each window, NaN where fewer than {@code halfWindow + 1} are valid
      */

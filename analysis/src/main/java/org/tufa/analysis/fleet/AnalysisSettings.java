@@ -21,6 +21,8 @@ import org.tufa.analysis.modes.ModeThresholds;
  * @param bridgeSamples        unflagged samples bridged inside a finding interval
  * @param residualGate         shift of a residual or offset feature (kelvin) that makes a cluster a candidate fault
  * @param activityGate         shift of valve activity (percent per sample) that makes a cluster a candidate fault
+ * @param zoneErrorGate        shift of the zone's distance above its setpoint (kelvin) that makes a cluster a
+ *                             candidate fault
  * @param defaultAirflow       nominal airflow (m3/s) for units whose model gives none
  * @param causes               the candidate-cause table
  */
@@ -36,6 +38,7 @@ public record AnalysisSettings(
         int bridgeSamples,
         double residualGate,
         double activityGate,
+        double zoneErrorGate,
         double defaultAirflow,
         CauseTable causes) {
 
@@ -44,12 +47,13 @@ public record AnalysisSettings(
      * PCA + OPTICS practice (Ankerst et al. 1999 found MinPts 10-20 works well, from memory; Jolliffe 2002 s. 6.1
      * for 70-90 % variance). Findings need 8 samples (2 hours) with gaps of up to 4 samples (1 hour) bridged; the
      * 1.1 K gate is about the combined uncertainty of two air temperature sensors (ASHRAE Guideline 36 uses
-     * 2 F per sensor, from memory). Default airflow 0.19 m3/s (400 cfm, one nominal ton: 350-400 cfm per ton is
+     * 2 F per sensor, from memory); the 2 K zone-error gate is Guideline 36's zone temperature alarm
+     * threshold (2 K above the cooling setpoint, from memory via the Modelica Buildings Library's implementation). Default airflow 0.19 m3/s (400 cfm, one nominal ton: 350-400 cfm per ton is
      * common practice, no source).
      */
     public static AnalysisSettings defaults() {
         return new AnalysisSettings(ModeThresholds.defaults(), BandKind.TUKEY, new RunOptions(8, 2), 0.90, 20,
-                AutoParameters.DEFAULT, 96, 8, 4, 1.1, 2.0, 400 * 0.3048 * 0.3048 * 0.3048 / 60.0,
+                AutoParameters.DEFAULT, 96, 8, 4, 1.1, 2.0, 2.0, 400 * 0.3048 * 0.3048 * 0.3048 / 60.0,
                 CauseTable.standard());
     }
 

@@ -146,7 +146,8 @@ public final class UnitAnalysis {
             return ModeResult.skipped(name, modeSamples, "only " + features.size() + " complete samples in "
                     + name + " inside the load band");
         }
-        PcaResult pca = Pca.fit(features.healthRows(), ComponentRule.cumulativeVariance(settings.varianceTarget()));
+        PcaResult pca = Pca.fit(scaledByGate(features, settings),
+                ComponentRule.cumulativeVariance(settings.varianceTarget()), Pca.Scaling.CENTRE_ONLY);
         long t2 = System.nanoTime();
         times.add(StageTimes.Stage.PCA, t2 - t1);
         OpticsResult optics = Optics.fit(pca.scores(), settings.minPts());
@@ -199,9 +200,7 @@ public final class UnitAnalysis {
                 if (!f.health()[j]) {
                     continue;
                 }
-                double gate = f.names().get(j).equals("valve_activity") ? settings.activityGate()
-                        : settings.residualGate();
-                significant |= Math.abs(shifts.get(j).value()) >= gate;
+                significant |= Math.abs(shifts.get(j).value()) >= gate(f.names().get(j), settings);
             }
             // A failed direction check counts only where normal operation passes it: otherwise the check itself
             // cannot tell (e.g. a unit whose valve barely moves).
@@ -213,6 +212,36 @@ public final class UnitAnalysis {
             out.add(new ClusterSummary(c, size, candidate, shifts, dir, causes));
         }
         return out;
+    }
+
+    /**
+     * The health columns in units of their gate: a residual of 1.1 K, a valve activity of 2 %/sample and a zone
+     * error of 2 K all become 1. This is the standardisation before PCA, by engineering tolerance rather than by
+     * each column's own spread: a z-score would blow a column that only holds sensor noise up to the same size as
+     * one that holds a fault, and the density contrast OPTICS needs would be lost in the noise.
+     */
+    static double[][] scaledByGate(FeatureMatrix f, AnalysisSettings settings) {
+        List<String> names = f.healthNames();
+        double[][] rows = f.healthRows();
+        double[] gate = new double[names.size()];
+        for (int j = 0; j < gate.length; j++) {
+            gate[j] = gate(names.get(j), settings);
+        }
+        for (double[] row : rows) {
+            for (int j = 0; j < row.length; j++) {
+                row[j] /= gate[j];
+            }
+        }
+        return rows;
+    }
+
+    /** The shift of a health feature that makes a cluster a candidate fault, in the feature's unit. */
+    static double gate(String feature, AnalysisSettings settings) {
+        return switch (feature) {
+            case "valve_activity" -> settings.activityGate();
+            case "zone_error" -> settings.zoneErrorGate();
+            default -> settings.residualGate();
+        };
     }
 
     private static DirectionCheck.Outcome direction(FeatureMatrix f, int[] labels, int cluster, int valve,
