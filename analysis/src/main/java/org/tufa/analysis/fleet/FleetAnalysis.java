@@ -131,6 +131,11 @@ public final class FleetAnalysis {
             }
             UnitAnalysis.Result r = UnitAnalysis.run(s, in.fanSignal(), in.nominalAirflow(), settings, times);
             List<String> notes = new ArrayList<>(p.notes());
+            for (String valve : List.of("cooling_valve_command", "heating_valve_command")) {
+                if (!in.points().containsKey(valve)) {
+                    notes.add(valve + ": not found in the model; operating modes treat that valve as shut");
+                }
+            }
             if (!in.airflowFromModel()) {
                 notes.add(String.format(java.util.Locale.ROOT, "no nominal airflow in the model; energy uses the"
                         + " default %.3f m3/s (add tufa:nominalAirflow to the unit)", settings.defaultAirflow()));

@@ -24,6 +24,7 @@ import org.tufa.analysis.findings.DirectionCheck;
 import org.tufa.analysis.findings.Finding;
 import org.tufa.analysis.findings.IndexRange;
 import org.tufa.analysis.findings.Intervals;
+import org.tufa.analysis.findings.ModeHunting;
 import org.tufa.analysis.findings.Shift;
 import org.tufa.analysis.load.SensibleLoad;
 import org.tufa.analysis.modes.FanSignal;
@@ -82,10 +83,16 @@ public final class UnitAnalysis {
     public static Result run(UnitSignals s, FanSignal fanSignal, double nominalAirflow, AnalysisSettings settings,
                              StageTimes times) {
         int n = s.size();
-        ModeSplit modes = OperatingModes.classify(s.fanFraction(), fanSignal, s.coolingValveCommand(),
-                s.heatingValveCommand(), settings.modeThresholds());
+        // A valve the unit has no command for counts as shut (null), as for a unit without that coil; the fleet
+        // runner notes it for the reader.
+        ModeSplit modes = OperatingModes.classify(
+                fanSignal == FanSignal.NONE || !UnitSignals.present(s.fanFraction()) ? null : s.fanFraction(),
+                UnitSignals.present(s.fanFraction()) ? fanSignal : FanSignal.NONE,
+                UnitSignals.present(s.coolingValveCommand()) ? s.coolingValveCommand() : null,
+                UnitSignals.present(s.heatingValveCommand()) ? s.heatingValveCommand() : null,
+                settings.modeThresholds());
         double[] fan = s.fanFraction();
-        if (fanSignal == FanSignal.NONE) {
+        if (fanSignal == FanSignal.NONE || !UnitSignals.present(s.fanFraction())) {
             // Without a fan signal the fan counts as running whenever the unit is in a coil mode (inferred above).
             fan = new double[n];
             java.util.Arrays.fill(fan, 1.0);
@@ -96,8 +103,9 @@ public final class UnitAnalysis {
         List<ModeResult> results = new ArrayList<>();
         List<Finding> findings = new ArrayList<>();
 
-        findings.addAll(ruleFindings(modes, OperatingMode.SIMULTANEOUS, "simultaneous_heating_cooling", s, load,
+        findings.addAll(ruleFindings(modes.mask(OperatingMode.SIMULTANEOUS), "simultaneous_heating_cooling", s, load,
                 settings));
+        findings.addAll(ruleFindings(hunting(modes), "mode_hunting", s, load, settings));
         for (String mode : ModeFeatures.CLUSTERED_MODES) {
             OperatingMode m = OperatingMode.valueOf(mode.toUpperCase(java.util.Locale.ROOT));
             results.add(mode(mode, m, s, modes, load, bandState, findings, settings, times));
@@ -262,10 +270,32 @@ public final class UnitAnalysis {
         return DirectionCheck.check(v, d, cooling);
     }
 
-    private static List<Finding> ruleFindings(ModeSplit modes, OperatingMode m, String kind, UnitSignals s,
-                                              double[] load, AnalysisSettings settings) {
+    /**
+     * Samples in a stretch with at least 3 mode changes within a 2-hour window (8 samples at 15 minutes): the unit
+     * hunts. A change is a settling (transition) sample, which the mode split puts after every change, or a
+     * direct change between running modes; a daily start-up or stop gives one, so it never qualifies (common
+     * practice, no source).
+     */
+    private static boolean[] hunting(ModeSplit modes) {
+        byte[] codes = modes.codes();
+        boolean[] changed = new boolean[codes.length];
+        for (int i = 1; i < codes.length; i++) {
+            OperatingMode m = OperatingMode.ofCode(codes[i]);
+            OperatingMode previous = OperatingMode.ofCode(codes[i - 1]);
+            changed[i] = m == OperatingMode.TRANSITION || (m != previous && running(m) && running(previous));
+        }
+        return ModeHunting.flags(changed, 4, 3);
+    }
+
+    private static boolean running(OperatingMode m) {
+        return m == OperatingMode.COOLING || m == OperatingMode.HEATING || m == OperatingMode.VENTILATION
+                || m == OperatingMode.SIMULTANEOUS;
+    }
+
+    private static List<Finding> ruleFindings(boolean[] flagged, String kind, UnitSignals s, double[] load,
+                                              AnalysisSettings settings) {
         List<Finding> out = new ArrayList<>();
-        for (IndexRange r : Intervals.runs(modes.mask(m), settings.bridgeSamples(), settings.minFindingSamples())) {
+        for (IndexRange r : Intervals.runs(flagged, settings.bridgeSamples(), settings.minFindingSamples())) {
             out.add(finding("any", kind, -1, r, s, load, List.of(), settings.causes().causes(kind, List.of(), null)));
         }
         return out;
