@@ -14,7 +14,6 @@ import org.tufa.analysis.coverage.PointRef;
 import org.tufa.analysis.coverage.RoleMatch;
 import org.tufa.analysis.coverage.UnitCoverage;
 import org.tufa.analysis.findings.Finding;
-import org.tufa.analysis.findings.Shift;
 import org.tufa.analysis.fleet.FleetAnalysis;
 import org.tufa.analysis.fleet.FleetOutputs;
 import org.tufa.analysis.fleet.UnitOutcome;
@@ -143,14 +142,13 @@ public final class FleetPage {
             for (Finding f : u.findings()) {
                 b.append("<tr><td>").append(link(u)).append("</td><td>").append(Html.esc(f.mode()))
                         .append("</td><td>").append(Html.esc(f.kind())).append("</td><td>")
-                        .append(f.cluster() < 0 ? "" : "C" + f.cluster()).append("</td><td data-sort=\"")
+                        .append(f.cluster() < 0 ? "" : "C" + f.cluster()).append("</td><td class=\"t\" data-sort=\"")
                         .append(f.start().getEpochSecond()).append("\">").append(Times.local(f.start(), zone))
-                        .append("</td><td data-sort=\"").append(f.end().getEpochSecond()).append("\">")
+                        .append("</td><td class=\"t\" data-sort=\"").append(f.end().getEpochSecond()).append("\">")
                         .append(Times.local(f.end(), zone)).append("</td>");
                 num(b, f.hours(), 1);
                 num(b, f.energyKwh(), 1);
-                b.append("<td>").append(Html.esc(String.join("; ", f.shifts().stream().map(Shift::describe)
-                        .toList()))).append("</td><td>").append(Html.esc(String.join(" | ", f.causes())))
+                b.append("<td>").append(Html.shifts(f.shifts())).append("</td><td>").append(Html.esc(String.join(" | ", f.causes())))
                         .append("</td></tr>\n");
             }
         }

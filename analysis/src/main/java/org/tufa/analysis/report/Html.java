@@ -45,6 +45,11 @@ final class Html {
         return b == null ? s : b.toString();
     }
 
+    /** Shifts from normal, one per line, escaped. */
+    static String shifts(java.util.List<org.tufa.analysis.findings.Shift> shifts) {
+        return String.join("<br>", shifts.stream().map(s -> esc(s.describe())).toList());
+    }
+
     /** A rounded figure for tables; empty for NaN. */
     static String fixed(double v, int decimals) {
         return Double.isNaN(v) ? "" : String.format(Locale.ROOT, "%." + decimals + "f", v);
@@ -80,7 +85,7 @@ final class Html {
             color:#111;line-height:1.4}
             h1{font-size:1.5em}h2{font-size:1.25em;margin-top:1.6em;border-bottom:1px solid #ccc}h3{font-size:1.08em}
             table{border-collapse:collapse;margin:.5em 0 1em}th,td{border:1px solid #bbb;padding:.2em .45em;\
-            text-align:left;vertical-align:top}th{background:#eee}td.num,th.num{text-align:right}
+            text-align:left;vertical-align:top}th{background:#eee}td.num,th.num{text-align:right}td.t{white-space:nowrap}
             table.sortable th{cursor:pointer}table.sortable th:after{content:" \\2195";color:#777;font-weight:normal}
             .caution{border:2px solid #D55E00;background:#fff6ef;padding:.5em .8em}
             .found{background:#e8f4fb}.missing{background:#fbe3d3;font-weight:bold}.ambiguous{background:#fdf3c4;\

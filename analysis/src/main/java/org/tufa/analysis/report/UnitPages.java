@@ -15,7 +15,6 @@ import org.tufa.analysis.features.UnitSignals;
 import org.tufa.analysis.findings.ClusterSummary;
 import org.tufa.analysis.findings.DirectionCheck;
 import org.tufa.analysis.findings.Finding;
-import org.tufa.analysis.findings.Shift;
 import org.tufa.analysis.fleet.ModeResult;
 import org.tufa.analysis.fleet.UnitAnalysis;
 import org.tufa.analysis.fleet.UnitOutcome;
@@ -95,7 +94,6 @@ public final class UnitPages implements UnitSink {
             return b.toString();
         }
         modeCounts(b, r);
-        findings(b, o);
         if (signals != null) {
             Charts.writePng(strips(name, signals, r, o.findings()), STRIP_WIDTH, STRIP_HEIGHT,
                     dir.resolve("strips.png"));
@@ -106,12 +104,13 @@ public final class UnitPages implements UnitSink {
                             + "shaded\">\n<figcaption>Means over blocks of ")
                     .append(describe(r.interval().multipliedBy(factor)))
                     .append(" (display only; the analysis uses every sample), plotted at each block's start. "
-                            + "Shaded: findings (F numbers as in the table above; vermillion = fault cluster, "
+                            + "Shaded: findings (F numbers as in the findings table below; vermillion = fault cluster, "
                             + "yellow = sustained load outside the band, reddish purple = simultaneous heating "
                             + "and cooling). Fan: share of the time running, in %. Load: sensible load estimated "
                             + "from airflow and the zone-to-discharge temperature difference.</figcaption>"
                             + "</figure>\n");
         }
+        findings(b, o);
         for (ModeResult m : r.modeResults()) {
             mode(b, m, r, dir, name);
         }
@@ -145,12 +144,12 @@ public final class UnitPages implements UnitSink {
         for (Finding f : o.findings()) {
             b.append("<tr><td>F").append(k++).append("</td><td>").append(Html.esc(f.mode())).append("</td><td>")
                     .append(Html.esc(f.kind())).append("</td><td>")
-                    .append(f.cluster() < 0 ? "" : "C" + f.cluster()).append("</td><td>")
-                    .append(Times.local(f.start(), zone)).append("</td><td>").append(Times.local(f.end(), zone))
+                    .append(f.cluster() < 0 ? "" : "C" + f.cluster()).append("</td><td class=\"t\">")
+                    .append(Times.local(f.start(), zone)).append("</td><td class=\"t\">")
+                    .append(Times.local(f.end(), zone))
                     .append("</td><td class=\"num\">").append(Html.fixed(f.hours(), 1))
                     .append("</td><td class=\"num\">").append(Html.fixed(f.energyKwh(), 1)).append("</td><td>")
-                    .append(Html.esc(String.join("; ", f.shifts().stream().map(Shift::describe).toList())))
-                    .append("</td><td>");
+                    .append(Html.shifts(f.shifts())).append("</td><td>");
             list(b, f.causes());
             b.append("</td></tr>\n");
         }
@@ -208,8 +207,7 @@ public final class UnitPages implements UnitSink {
                     .append(Palette.hex(Palette.cluster(c.label()))).append("\"></span>C").append(c.label())
                     .append("</td><td class=\"num\">").append(c.size()).append("</td><td>").append(judged)
                     .append("</td><td>").append(direction(c.direction())).append("</td><td>")
-                    .append(Html.esc(String.join("; ", c.shifts().stream().map(Shift::describe).toList())))
-                    .append("</td><td>");
+                    .append(Html.shifts(c.shifts())).append("</td><td>");
             list(b, c.causes());
             b.append("</td></tr>\n");
         }

@@ -57,7 +57,10 @@ final class SyntheticFleet {
     }
 
     static Fleet build(int units, LocalDate first, LocalDate last) {
-        Season season = new Season(first, last, ZONE);
+        return build(units, new Season(first, last, ZONE));
+    }
+
+    static Fleet build(int units, Season season) {
         List<UnitSeriesTargets> targets = new ArrayList<>();
         for (int i = 0; i < units; i++) {
             String name = String.format(java.util.Locale.ROOT, "FCU-%02d", i + 1);
@@ -79,17 +82,26 @@ final class SyntheticFleet {
         List<UnitSignals> signals = new ArrayList<>();
         List<UnitCoverage> coverage = new ArrayList<>();
         Duration step = Duration.between(sim.timestamps().get(0), sim.timestamps().get(1));
-        for (int i = 0; i < sim.units().size(); i++) {
+        int n = sim.units().size();
+        UnitSignals[] prepared = new UnitSignals[n];
+        UnitAnalysis.Result[] results = new UnitAnalysis.Result[n];
+        // Units are independent and the analysis is pure: analyse in parallel, collect by index (same order).
+        java.util.stream.IntStream.range(0, n).parallel().forEach(i -> {
+            UnitTrace u = sim.units().get(i);
+            prepared[i] = new UnitSignals(sim.timestamps().get(0), step, d(u.zoneC()), d(u.dischargeC()),
+                    d(u.coolingCommandPct()), d(u.heatingCommandPct()), d(u.fanStatus()),
+                    i == 2 ? UnitSignals.absent(u.zoneC().length) : d(u.setpointC()), d(sim.chilledWaterSupplyC()),
+                    d(sim.hotWaterSupplyC()), d(sim.outdoorC()));
+            results[i] = UnitAnalysis.run(prepared[i], FanSignal.STATUS, 0.19, settings, new StageTimes());
+        });
+        for (int i = 0; i < n; i++) {
             UnitTrace u = sim.units().get(i);
             String label = i == 0 ? TRICKY_LABEL : targets.get(i).unitName();
             String folder = "FCU-" + (i + 1);
             boolean ambiguous = i == 2;
             coverage.add(coverage(u.unitIri(), label, ambiguous ? "zone_temperature_setpoint" : null, false));
-            UnitSignals s = new UnitSignals(sim.timestamps().get(0), step, d(u.zoneC()), d(u.dischargeC()),
-                    d(u.coolingCommandPct()), d(u.heatingCommandPct()), d(u.fanStatus()),
-                    ambiguous ? UnitSignals.absent(u.zoneC().length) : d(u.setpointC()), d(sim.chilledWaterSupplyC()),
-                    d(sim.hotWaterSupplyC()), d(sim.outdoorC()));
-            UnitAnalysis.Result r = UnitAnalysis.run(s, FanSignal.STATUS, 0.19, settings, new StageTimes());
+            UnitSignals s = prepared[i];
+            UnitAnalysis.Result r = results[i];
             List<String> notes = i == 1 ? List.of("series ELM.FCU-02.fan_status: values 0/1 read as on/off <ok>")
                     : List.of();
             boolean any = r.modeResults().stream().anyMatch(ModeResult::analyzed);
