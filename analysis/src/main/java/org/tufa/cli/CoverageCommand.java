@@ -59,9 +59,10 @@ public final class CoverageCommand implements Callable<Integer> {
         Profile chosen = vocabulary.profiles().profile(profile);
         Model data = ModelLoader.load(model);
         Model all = vocabulary.unionWith(data);
-        Set<String> classes = UnitClasses.resolve(unitClasses, all, all);
+        org.apache.jena.shared.PrefixMapping prefixes = Vocabulary.prefixesFor(data);
+        Set<String> classes = UnitClasses.resolve(unitClasses, all, prefixes);
         FleetCoverage coverage = Coverage.assess(data, vocabulary, chosen, classes);
-        CoverageSummary.lines(coverage, all, maxListed).forEach(stdout::println);
+        CoverageSummary.lines(coverage, prefixes, maxListed).forEach(stdout::println);
         if (coverage.units().isEmpty()) {
             stdout.println("Nothing to analyse in " + model + ": no instance of the unit classes above. "
                     + "Check the unit classes, or pass the full Brick file with --vocabulary if the model uses "

@@ -60,9 +60,9 @@ public final class QueryCommand implements Callable<Integer> {
                 ? SparqlQueries.parse(read(source.file), source.file.toString())
                 : SparqlQueries.parse(source.text, "-e");
         Vocabulary vocabulary = Vocabulary.load(vocabularies);
-        var all = vocabulary.unionWith(ModelLoader.load(model));
+        var data = ModelLoader.load(model);
         var out = spec.commandLine().getOut();
-        out.print(SparqlQueries.run(all, query, chosen));
+        out.print(SparqlQueries.run(vocabulary.unionWith(data), Vocabulary.prefixesFor(data), query, chosen));
         out.flush();
         return ExitCodes.OK;
     }

@@ -12,7 +12,7 @@ import picocli.CommandLine.Command;
         versionProvider = Tufa.Version.class,
         description = "Terminal Unit Fleet Analysis: point list to Brick model to per-unit fault candidates.",
         subcommands = {org.tufa.mapper.cli.MapCommand.class, CoverageCommand.class, QueryCommand.class,
-                AnalyzeCommand.class, EvaluateCommand.class, CommandLine.HelpCommand.class})
+                AnalyzeCommand.class, EvaluateCommand.class, DemoCommand.class, CommandLine.HelpCommand.class})
 public final class Tufa implements Runnable {
 
     @CommandLine.Spec
@@ -32,6 +32,11 @@ public final class Tufa implements Runnable {
         // --debug is read here, before picocli, so it works on every subcommand without being declared on each.
         boolean debug = java.util.Arrays.asList(args).contains("--debug");
         String[] rest = java.util.Arrays.stream(args).filter(a -> !a.equals("--debug")).toArray(String[]::new);
+        return commandLine(out, err, debug).execute(rest);
+    }
+
+    /** The configured command line: our streams, and one-line errors instead of stack traces. */
+    static CommandLine commandLine(PrintWriter out, PrintWriter err, boolean debug) {
         CommandLine cli = new CommandLine(new Tufa());
         cli.setOut(out);
         cli.setErr(err);
@@ -47,7 +52,7 @@ public final class Tufa implements Runnable {
                     + "); please report it with the command you ran" + (debug ? "" : ", rerun with --debug for details"));
             return ExitCodes.INTERNAL_ERROR;
         });
-        return cli.execute(rest);
+        return cli;
     }
 
     /** Reads the version Maven wrote into the jar manifest. */

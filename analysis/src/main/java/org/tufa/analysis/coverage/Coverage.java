@@ -54,11 +54,7 @@ public final class Coverage {
      * @throws InputException when a terminal unit is a blank node (it cannot be named in a report)
      */
     public static FleetCoverage assess(Model model, Vocabulary vocabulary, Profile profile, Set<String> unitClasses) {
-        return assessUnion(vocabulary.unionWith(model), profile, unitClasses);
-    }
-
-    /** As {@link #assess(Model, Vocabulary, Profile, Set)} on a model that already holds the vocabulary. */
-    static FleetCoverage assessUnion(Model all, Profile profile, Set<String> unitClasses) {
+        Model all = vocabulary.unionWith(model);
         Set<String> classes = new TreeSet<>(unitClasses.isEmpty() ? Set.of(TERMINAL_UNIT) : unitClasses);
         Map<String, Set<String>> unitTypes = findUnits(all, classes);
         PointDetails details = new PointDetails(all);
@@ -88,7 +84,7 @@ public final class Coverage {
             out.add(new UnitCoverage(unit, label == null ? "" : label, mostSpecific.get(unit), roles, airflow, modes,
                     problems));
         }
-        return new FleetCoverage(profile, List.copyOf(classes), out);
+        return new FleetCoverage(profile, List.copyOf(classes), out, undeclaredBrickClasses(model, all));
     }
 
     private static RoleMatch match(Role role, String unit, Map<Lookup, Map<String, LookupRunner.Hits>> results) {
@@ -106,6 +102,22 @@ public final class Coverage {
         List<PointRef> hints = new ArrayList<>(untagged);
         hints.sort(java.util.Comparator.comparing(PointRef::iri));
         return RoleMatch.missing(role.name(), hints);
+    }
+
+    /** Brick classes the data model uses that neither it nor the vocabulary declares, with instance counts. */
+    static Map<String, Integer> undeclaredBrickClasses(Model data, Model all) {
+        Map<String, Set<String>> instances = new TreeMap<>();
+        data.listStatements(null, org.apache.jena.vocabulary.RDF.type, (RDFNode) null).forEachRemaining(s -> {
+            RDFNode c = s.getObject();
+            if (c.isURIResource() && c.asResource().getURI().startsWith(Namespaces.BRICK)
+                    && !all.contains(c.asResource(), org.apache.jena.vocabulary.RDF.type,
+                            org.apache.jena.vocabulary.OWL.Class)) {
+                instances.computeIfAbsent(c.asResource().getURI(), k -> new TreeSet<>()).add(s.getSubject().toString());
+            }
+        });
+        Map<String, Integer> out = new TreeMap<>();
+        instances.forEach((c, xs) -> out.put(c, xs.size()));
+        return out;
     }
 
     /** Units (IRI, sorted) with their asserted types that fall under the given classes. */

@@ -92,6 +92,9 @@ public final class CoverageFiles {
         coverage.profile().modes().forEach(m -> modes.addProperty(m.name(), coverage.modeCount(m.name())));
         summary.add("analyzable_by_mode", modes);
         root.add("summary", summary);
+        JsonObject undeclared = new JsonObject();
+        coverage.undeclaredBrickClasses().forEach(undeclared::addProperty);
+        root.add("undeclared_brick_classes", undeclared);
         JsonArray units = new JsonArray();
         for (UnitCoverage u : coverage.units()) {
             JsonObject o = new JsonObject();

@@ -23,6 +23,13 @@ public final class CoverageSummary {
         int n = coverage.units().size();
         out.add("Profile " + coverage.profile().name() + ", unit classes "
                 + String.join(", ", coverage.unitClasses().stream().map(prefixes::shortForm).toList()));
+        if (!coverage.undeclaredBrickClasses().isEmpty()) {
+            List<String> named = new ArrayList<>();
+            coverage.undeclaredBrickClasses().forEach((c, k) -> named.add(prefixes.shortForm(c) + " (" + k + ")"));
+            out.add("Classes the vocabulary does not declare (their instances are not recognised; pass the full Brick "
+                    + "file with --vocabulary): " + String.join(", ", named.subList(0, Math.min(named.size(), maxUnits)))
+                    + (named.size() > maxUnits ? " ... and " + (named.size() - maxUnits) + " more" : ""));
+        }
         if (n == 0) {
             out.add("No terminal units found.");
             return out;

@@ -10,11 +10,16 @@ import java.util.TreeMap;
  * @param profile the profile assessed
  * @param unitClasses the terminal-unit classes asked for (IRIs, sorted)
  * @param units one entry per unit, sorted by unit IRI
+ * @param undeclaredBrickClasses Brick classes the model uses but the loaded vocabulary does not declare, with
+ *     their instance counts (sorted): their instances may be terminal units tufa cannot recognise without the
+ *     full Brick file
  */
-public record FleetCoverage(Profile profile, List<String> unitClasses, List<UnitCoverage> units) {
+public record FleetCoverage(Profile profile, List<String> unitClasses, List<UnitCoverage> units,
+        Map<String, Integer> undeclaredBrickClasses) {
     public FleetCoverage {
         unitClasses = List.copyOf(unitClasses);
         units = List.copyOf(units);
+        undeclaredBrickClasses = java.util.Collections.unmodifiableMap(new TreeMap<>(undeclaredBrickClasses));
     }
 
     public long analyzableCount() {

@@ -31,32 +31,9 @@ final class LookupRunner {
               { ?host brick:hasPoint ?pt } UNION { ?pt brick:isPointOf ?host }
             }""";
 
-    private static final String PART_POINTS = """
-            SELECT ?host ?pt ?t WHERE {
-              VALUES ?t { }
-              VALUES ?pc { }
-              ?pt rdf:type ?t .
-              { ?part brick:hasPoint ?pt } UNION { ?pt brick:isPointOf ?part }
-              ?part rdf:type ?pc .
-              ?host (brick:hasPart|^brick:isPartOf)+ ?part .
-            }""";
-
-    private static final String ZONE_POINTS = """
-            SELECT ?host ?space ?pt ?t ?tier WHERE {
-              VALUES ?t { }
-              ?pt rdf:type ?t .
-              { ?space brick:hasPoint ?pt } UNION { ?pt brick:isPointOf ?space }
-              {
-                ?host (brick:feeds|^brick:isFedBy|brick:hasLocation|^brick:isLocationOf) ?space .
-                BIND(0 AS ?tier)
-              } UNION {
-                VALUES ?zc { }
-                ?space (^brick:hasPart|brick:isPartOf)+ ?zone .
-                ?zone rdf:type ?zc .
-                ?host (brick:feeds|^brick:isFedBy|brick:hasLocation|^brick:isLocationOf) ?zone .
-                BIND(1 AS ?tier)
-              }
-            }""";
+    // One query per lookup finds the qualifying points and what they hang on; the unit's parts, zones and feeders
+    // are followed in Java on the model (cached per unit). Part and zone classes are checked in Java too, so the
+    // query stays a flat chain of patterns that ARQ evaluates left to right with its variables bound.
 
     private static final String ANY_POINTS = """
             SELECT ?pt ?t ?host WHERE {
@@ -79,8 +56,14 @@ final class LookupRunner {
     private final Property isFedBy;
     private final Property hasPart;
     private final Property isPartOf;
+    private final Property hasLocation;
+    private final Property isLocationOf;
     // Cache of subclass closures; keys are looked up, never iterated.
     private final Map<List<String>, Set<String>> closures = new HashMap<>();
+    private final Map<String, SortedMap<Integer, Set<String>>> upstreamCache = new HashMap<>();
+    private final Map<String, Set<String>> partsCache = new HashMap<>();
+    private final Map<String, SortedMap<Integer, Set<String>>> spacesCache = new HashMap<>();
+    private final Map<Set<String>, Map<String, SortedMap<String, Set<String>>>> hostedCache = new HashMap<>();
 
     LookupRunner(Model all, Set<String> units, PointDetails details) {
         this.all = all;
@@ -92,6 +75,8 @@ final class LookupRunner {
         this.isFedBy = all.createProperty(Namespaces.BRICK, "isFedBy");
         this.hasPart = all.createProperty(Namespaces.BRICK, "hasPart");
         this.isPartOf = all.createProperty(Namespaces.BRICK, "isPartOf");
+        this.hasLocation = all.createProperty(Namespaces.BRICK, "hasLocation");
+        this.isLocationOf = all.createProperty(Namespaces.BRICK, "isLocationOf");
     }
 
     /** Per unit IRI (only units with at least one candidate): the hits of this lookup. */
@@ -103,23 +88,29 @@ final class LookupRunner {
         Map<String, SortedMap<Integer, SortedMap<String, Set<String>>>> tiers = new TreeMap<>();
         switch (lookup.place()) {
             case ON_UNIT -> {
-                for (QuerySolution row : Sparql.select(all, Sparql.build(HOSTED_POINTS, Map.of("t", accepted)))) {
-                    add(tiers, iri(row, "host"), 0, row);
+                Map<String, SortedMap<String, Set<String>>> pointsByHost = pointsByHost(accepted);
+                for (String unit : units) {
+                    addHostPoints(tiers, unit, 0, pointsByHost.get(unit));
                 }
             }
             case ON_PART -> {
-                Map<String, Set<String>> values = Map.of("t", accepted, "pc", closure(lookup.partClasses()));
-                for (QuerySolution row : Sparql.select(all, Sparql.build(PART_POINTS, values))) {
-                    add(tiers, iri(row, "host"), 0, row);
+                Set<String> partClasses = closure(lookup.partClasses());
+                Map<String, SortedMap<String, Set<String>>> pointsByHost = pointsByHost(accepted);
+                for (String unit : units) {
+                    for (String part : partsOf(unit)) {
+                        if (pointsByHost.containsKey(part) && !Collections.disjoint(details.types(part), partClasses)) {
+                            addHostPoints(tiers, unit, 0, pointsByHost.get(part));
+                        }
+                    }
                 }
             }
             case ON_ZONE -> {
-                Map<String, Set<String>> values = Map.of("t", accepted, "zc", zoneClasses);
-                for (QuerySolution row : Sparql.select(all, Sparql.build(ZONE_POINTS, values))) {
-                    String space = iri(row, "space");
-                    // A unit may feed equipment too; only spaces count as its zone.
-                    if (space != null && Collections.disjoint(details.types(space), equipmentClasses)) {
-                        add(tiers, iri(row, "host"), row.getLiteral("tier").getInt(), row);
+                Map<String, SortedMap<String, Set<String>>> pointsByHost = pointsByHost(accepted);
+                for (String unit : units) {
+                    for (Map.Entry<Integer, Set<String>> tier : spacesOf(unit).entrySet()) {
+                        for (String space : tier.getValue()) {
+                            addHostPoints(tiers, unit, tier.getKey(), pointsByHost.get(space));
+                        }
                     }
                 }
             }
@@ -129,6 +120,11 @@ final class LookupRunner {
         Map<String, Hits> out = new TreeMap<>();
         tiers.forEach((unit, byTier) -> out.put(unit, choose(byTier, excluded, lookup.anyTags())));
         return out;
+    }
+
+    /** A unit may feed equipment too; only spaces (not equipment) count as its zone. */
+    private boolean isSpace(String node) {
+        return node != null && Collections.disjoint(details.types(node), equipmentClasses);
     }
 
     private Hits choose(SortedMap<Integer, SortedMap<String, Set<String>>> byTier, Set<String> excluded,
@@ -154,15 +150,6 @@ final class LookupRunner {
         return new Hits(List.of(), untagged);
     }
 
-    private void add(Map<String, SortedMap<Integer, SortedMap<String, Set<String>>>> tiers, String unit, int tier,
-            QuerySolution row) {
-        String pt = iri(row, "pt");
-        if (unit == null || pt == null || !units.contains(unit)) {
-            return;
-        }
-        add(tiers, unit, tier, pt, row.getResource("t").getURI());
-    }
-
     private static void add(Map<String, SortedMap<Integer, SortedMap<String, Set<String>>>> tiers, String unit,
             int tier, String pt, String cls) {
         tiers.computeIfAbsent(unit, k -> new TreeMap<>()).computeIfAbsent(tier, k -> new TreeMap<>())
@@ -174,6 +161,25 @@ final class LookupRunner {
      * 2k holds the points of the feeders k steps away, tier 2k+1 the points of their parts (a loop's chiller).
      */
     private void upstream(Set<String> accepted, Map<String, SortedMap<Integer, SortedMap<String, Set<String>>>> tiers) {
+        Map<String, SortedMap<String, Set<String>>> pointsByHost = pointsByHost(accepted);
+        if (pointsByHost.isEmpty()) {
+            return;
+        }
+        for (String unit : units) {
+            for (Map.Entry<Integer, Set<String>> tier : upstreamTiers(unit).entrySet()) {
+                for (String host : tier.getValue()) {
+                    addHostPoints(tiers, unit, tier.getKey(), pointsByHost.get(host));
+                }
+            }
+        }
+    }
+
+    /** Qualifying points per host (equipment, part or space that has them), from one query per class set. */
+    private Map<String, SortedMap<String, Set<String>>> pointsByHost(Set<String> accepted) {
+        return hostedCache.computeIfAbsent(accepted, this::queryPointsByHost);
+    }
+
+    private Map<String, SortedMap<String, Set<String>>> queryPointsByHost(Set<String> accepted) {
         Map<String, SortedMap<String, Set<String>>> pointsByHost = new HashMap<>();
         for (QuerySolution row : Sparql.select(all, Sparql.build(HOSTED_POINTS, Map.of("t", accepted)))) {
             String host = iri(row, "host");
@@ -183,12 +189,51 @@ final class LookupRunner {
                         .add(row.getResource("t").getURI());
             }
         }
-        if (pointsByHost.isEmpty()) {
-            return;
-        }
-        for (String unit : units) {
-            Set<String> visited = new TreeSet<>(parts(unit));
-            visited.add(unit);
+        return pointsByHost;
+    }
+
+    /**
+     * The spaces a unit serves, by tier: 0 what it brick:feeds or brick:hasLocation (and the inverses), 1 the parts
+     * (rooms) of those that are zones. Equipment it feeds is not a space.
+     */
+    private SortedMap<Integer, Set<String>> spacesOf(String unit) {
+        return spacesCache.computeIfAbsent(unit, u -> {
+            Resource r = all.createResource(u);
+            Set<String> direct = new TreeSet<>();
+            all.listObjectsOfProperty(r, feeds).forEachRemaining(o -> addIri(direct, o));
+            all.listObjectsOfProperty(r, hasLocation).forEachRemaining(o -> addIri(direct, o));
+            all.listSubjectsWithProperty(isFedBy, r).forEachRemaining(x -> addIri(direct, x));
+            all.listSubjectsWithProperty(isLocationOf, r).forEachRemaining(x -> addIri(direct, x));
+            direct.removeIf(x -> !isSpace(x));
+            Set<String> rooms = new TreeSet<>();
+            for (String space : direct) {
+                if (!Collections.disjoint(details.types(space), zoneClasses)) {
+                    rooms.addAll(parts(space));
+                }
+            }
+            rooms.removeAll(direct);
+            rooms.removeIf(x -> !isSpace(x));
+            SortedMap<Integer, Set<String>> out = new TreeMap<>();
+            if (!direct.isEmpty()) {
+                out.put(0, direct);
+            }
+            if (!rooms.isEmpty()) {
+                out.put(1, rooms);
+            }
+            return out;
+        });
+    }
+
+    private Set<String> partsOf(String unit) {
+        return partsCache.computeIfAbsent(unit, this::parts);
+    }
+
+    /** Per tier (2k: feeders k steps away, 2k+1: their parts), the upstream nodes of a unit; cached per unit. */
+    private SortedMap<Integer, Set<String>> upstreamTiers(String unit) {
+        return upstreamCache.computeIfAbsent(unit, u -> {
+            SortedMap<Integer, Set<String>> out = new TreeMap<>();
+            Set<String> visited = new TreeSet<>(partsOf(u));
+            visited.add(u);
             Set<String> frontier = new TreeSet<>(visited);
             for (int distance = 1; !frontier.isEmpty(); distance++) {
                 Set<String> next = new TreeSet<>();
@@ -200,17 +245,24 @@ final class LookupRunner {
                     }
                 }
                 visited.addAll(next);
+                if (!next.isEmpty()) {
+                    out.put(2 * distance, next);
+                }
+                Set<String> feederParts = new TreeSet<>();
                 for (String feeder : next) {
-                    addHostPoints(tiers, unit, 2 * distance, pointsByHost.get(feeder));
                     for (String part : parts(feeder)) {
                         if (!visited.contains(part)) {
-                            addHostPoints(tiers, unit, 2 * distance + 1, pointsByHost.get(part));
+                            feederParts.add(part);
                         }
                     }
                 }
+                if (!feederParts.isEmpty()) {
+                    out.put(2 * distance + 1, feederParts);
+                }
                 frontier = next;
             }
-        }
+            return out;
+        });
     }
 
     private static void addHostPoints(Map<String, SortedMap<Integer, SortedMap<String, Set<String>>>> tiers,

@@ -50,17 +50,24 @@ public final class Vocabulary {
         return profiles;
     }
 
-    /** A new model holding the vocabulary and the given model: what the SPARQL lookups run on. */
+    /**
+     * The vocabulary and the given model seen as one graph (a union view, nothing copied): what the SPARQL lookups
+     * and user queries run on. Do not add to it.
+     */
     public Model unionWith(Model data) {
-        Model all = ModelFactory.createDefaultModel();
-        all.add(model);
-        all.add(data);
-        all.setNsPrefixes(StandardPrefixes.mapping());
+        // Data on the left: its triples come straight through; the small vocabulary is checked for duplicates.
+        return ModelFactory.createModelForGraph(new org.apache.jena.graph.compose.Union(data.getGraph(),
+                model.getGraph()));
+    }
+
+    /** The standard prefixes plus the model's own, for shortening IRIs in output. */
+    public static org.apache.jena.shared.PrefixMapping prefixesFor(Model data) {
+        org.apache.jena.shared.PrefixMapping pm = StandardPrefixes.mapping();
         data.getNsPrefixMap().forEach((prefix, iri) -> {
-            if (all.getNsPrefixURI(prefix) == null) {
-                all.setNsPrefix(prefix, iri);
+            if (pm.getNsPrefixURI(prefix) == null) {
+                pm.setNsPrefix(prefix, iri);
             }
         });
-        return all;
+        return pm;
     }
 }

@@ -7,60 +7,88 @@ import java.util.Arrays;
  * residual of each sample against it: the physically informed feature that separates a coil or sensor fault
  * from normal operation at the same valve position.
  *
- * <p>Energy balance of a water coil (ASHRAE Handbook Fundamentals; see also the APAR rules of Schein, Bushby,
- * Castro and House, Energy and Buildings 38(12), 2006): the air temperature change across the coil is the coil
- * effectiveness times the entering temperature difference between air and water, and the effectiveness grows
- * with the valve opening. When the supply-water temperature is known the response is learned as effectiveness
- * {@code e = dT_air / (T_zone - T_water)} per valve band, else as the air temperature change itself.
- * The per-band statistic is the median, so up to half of a band's samples may be faulty without moving it
- * (a fault episode is a minority of a season).
+ * <p>Energy balance of a water coil (ASHRAE Handbook Fundamentals; the APAR rules of Schein, Bushby, Castro and
+ * House, Energy and Buildings 38(12), 2006, use the same balances): the air temperature change across the coil is
+ * the coil effectiveness times the entering temperature difference between air and water, and the effectiveness
+ * grows with the valve opening. When the supply-water temperature is known the response is learned as
+ * effectiveness {@code e = dT_air / (T_zone - T_water)}, else as the air temperature change itself.
  *
- * @param bandUpperEdges upper edge of each valve band, in percent
- * @param bandResponse   median response per band (effectiveness, or kelvin when {@code usesWaterTemperature} is false);
- *                       NaN for a band without samples
+ * <p>The response is a quadratic in the valve fraction, {@code c0 + c1 v + c2 v^2}, fitted by iteratively
+ * reweighted least squares with Huber weights (Huber, "Robust estimation of a location parameter", Annals of
+ * Mathematical Statistics 35(1), 1964; tuning constant 1.345 with the MAD scale, as in Holland and Welsch,
+ * Communications in Statistics A6(9), 1977), started from the per-band medians. A smooth curve over all valve
+ * openings keeps a fault that fills one band (a failed fan keeps the valve wide open for days) from redefining
+ * "normal" in that band, and the robust weights keep a minority of faulty samples from bending it.
+ *
+ * @param coefficients         c0, c1, c2 of the response against the valve fraction (0..1)
  * @param usesWaterTemperature whether the response is an effectiveness against the supply-water temperature
  */
-public record CoilResponse(double[] bandUpperEdges, double[] bandResponse, boolean usesWaterTemperature) {
+public record CoilResponse(double[] coefficients, boolean usesWaterTemperature) {
 
-    /** Valve bands, in percent: fine at low openings where the response changes fastest. */
-    private static final double[] EDGES = {10, 20, 30, 40, 50, 60, 70, 80, 90, 100.0001};
-    /** Fewest samples for a band's median to be trusted; sparser bands borrow from the nearest trusted band. */
-    private static final int MIN_BAND_SAMPLES = 8;
+    /** Huber's tuning constant for 95 % efficiency at the normal distribution (Holland and Welsch 1977). */
+    private static final double HUBER_K = 1.345;
+    private static final int ITERATIONS = 20;
+    private static final double[] BAND_EDGES = {0.1, 0.2, 0.3, 0.4, 0.5, 0.6, 0.7, 0.8, 0.9, 1.0001};
+
+    public CoilResponse {
+        coefficients = coefficients.clone();
+    }
+
+    @Override
+    public double[] coefficients() {
+        return coefficients.clone();
+    }
 
     /**
      * Learns the response from samples in one mode.
      *
-     * @param valvePercent   valve command of the active coil, percent
-     * @param airDeltaT      air temperature change across the coil in the direction of the mode, kelvin
-     *                       (zone - discharge in cooling, discharge - zone in heating)
-     * @param waterDeltaT    entering temperature difference between air and water in the same direction
-     *                       (zone - chilled water, hot water - zone), or null when the water temperature is unknown
+     * @param valvePercent valve command of the active coil, percent
+     * @param airDeltaT    air temperature change across the coil in the direction of the mode, kelvin
+     *                     (zone - discharge in cooling, discharge - zone in heating)
+     * @param waterDeltaT  entering temperature difference between air and water in the same direction
+     *                     (zone - chilled water, hot water - zone), or null when the water temperature is unknown
      */
     public static CoilResponse fit(double[] valvePercent, double[] airDeltaT, double[] waterDeltaT) {
         boolean useWater = waterDeltaT != null;
-        int bands = EDGES.length;
-        double[][] values = new double[bands][];
-        int[] counts = new int[bands];
-        for (int b = 0; b < bands; b++) {
-            values[b] = new double[16];
-        }
-        for (int i = 0; i < valvePercent.length; i++) {
+        int n = valvePercent.length;
+        double[] v = new double[n];
+        double[] y = new double[n];
+        int m = 0;
+        for (int i = 0; i < n; i++) {
             double r = response(airDeltaT[i], useWater ? waterDeltaT[i] : Double.NaN, useWater);
             if (Double.isNaN(r) || Double.isNaN(valvePercent[i])) {
                 continue;
             }
-            int b = band(valvePercent[i]);
-            if (counts[b] == values[b].length) {
-                values[b] = Arrays.copyOf(values[b], counts[b] * 2);
+            v[m] = Math.min(1.0, Math.max(0.0, valvePercent[i] / 100.0));
+            y[m++] = r;
+        }
+        v = Arrays.copyOf(v, m);
+        y = Arrays.copyOf(y, m);
+        if (m < 3) {
+            return new CoilResponse(new double[] {m == 0 ? 0 : median(y), 0, 0}, useWater);
+        }
+        double[] c = startFromBandMedians(v, y);
+        double[] w = new double[m];
+        double[] res = new double[m];
+        for (int it = 0; it < ITERATIONS; it++) {
+            for (int i = 0; i < m; i++) {
+                res[i] = y[i] - eval(c, v[i]);
             }
-            values[b][counts[b]++] = r;
+            double scale = 1.4826 * median(abs(res));
+            if (scale < 1e-9) {
+                break;
+            }
+            for (int i = 0; i < m; i++) {
+                double u = Math.abs(res[i]) / (HUBER_K * scale);
+                w[i] = u <= 1 ? 1 : 1 / u;
+            }
+            double[] next = weightedQuadratic(v, y, w);
+            if (next == null) {
+                break;
+            }
+            c = next;
         }
-        double[] median = new double[bands];
-        for (int b = 0; b < bands; b++) {
-            median[b] = counts[b] >= MIN_BAND_SAMPLES ? median(values[b], counts[b]) : Double.NaN;
-        }
-        fillFromNeighbours(median);
-        return new CoilResponse(EDGES.clone(), median, useWater);
+        return new CoilResponse(c, useWater);
     }
 
     /**
@@ -71,10 +99,7 @@ public record CoilResponse(double[] bandUpperEdges, double[] bandResponse, boole
         if (Double.isNaN(valvePercent) || Double.isNaN(airDeltaT)) {
             return Double.NaN;
         }
-        double expected = bandResponse[band(valvePercent)];
-        if (Double.isNaN(expected)) {
-            return Double.NaN;
-        }
+        double expected = eval(coefficients, Math.min(1.0, Math.max(0.0, valvePercent / 100.0)));
         if (usesWaterTemperature) {
             if (Double.isNaN(waterDeltaT)) {
                 return Double.NaN;
@@ -82,6 +107,10 @@ public record CoilResponse(double[] bandUpperEdges, double[] bandResponse, boole
             return airDeltaT - expected * waterDeltaT;
         }
         return airDeltaT - expected;
+    }
+
+    private static double eval(double[] c, double v) {
+        return c[0] + c[1] * v + c[2] * v * v;
     }
 
     private static double response(double airDeltaT, double waterDeltaT, boolean useWater) {
@@ -95,38 +124,95 @@ public record CoilResponse(double[] bandUpperEdges, double[] bandResponse, boole
         return airDeltaT / waterDeltaT;
     }
 
-    private static int band(double valvePercent) {
-        for (int b = 0; b < EDGES.length; b++) {
-            if (valvePercent < EDGES[b]) {
-                return b;
+    /** Quadratic through the per-band medians, weighted by band counts: a robust starting curve. */
+    private static double[] startFromBandMedians(double[] v, double[] y) {
+        int bands = BAND_EDGES.length;
+        double[] centre = new double[bands];
+        double[] med = new double[bands];
+        double[] count = new double[bands];
+        for (int b = 0; b < bands; b++) {
+            double lo = b == 0 ? 0 : BAND_EDGES[b - 1];
+            double[] in = new double[v.length];
+            double sum = 0;
+            int k = 0;
+            for (int i = 0; i < v.length; i++) {
+                if (v[i] >= lo && v[i] < BAND_EDGES[b]) {
+                    in[k++] = y[i];
+                    sum += v[i];
+                }
             }
+            count[b] = k;
+            centre[b] = k == 0 ? 0 : sum / k;
+            med[b] = k == 0 ? 0 : median(Arrays.copyOf(in, k));
         }
-        return EDGES.length - 1;
+        double[] c = weightedQuadratic(centre, med, count);
+        return c != null ? c : new double[] {median(y), 0, 0};
     }
 
-    private static double median(double[] v, int n) {
-        double[] s = Arrays.copyOf(v, n);
-        Arrays.sort(s);
-        return n % 2 == 1 ? s[n / 2] : 0.5 * (s[n / 2 - 1] + s[n / 2]);
-    }
-
-    /** A band without enough samples takes the value of the nearest trusted band (lower band on a tie). */
-    private static void fillFromNeighbours(double[] m) {
-        double[] src = m.clone();
-        for (int b = 0; b < m.length; b++) {
-            if (!Double.isNaN(src[b])) {
+    /** Weighted least squares for y = c0 + c1 v + c2 v^2 (normal equations, 3 x 3), or null when singular. */
+    private static double[] weightedQuadratic(double[] v, double[] y, double[] w) {
+        double[][] a = new double[3][4];
+        for (int i = 0; i < v.length; i++) {
+            if (w[i] == 0) {
                 continue;
             }
-            for (int d = 1; d < m.length; d++) {
-                if (b - d >= 0 && !Double.isNaN(src[b - d])) {
-                    m[b] = src[b - d];
-                    break;
+            double[] x = {1, v[i], v[i] * v[i]};
+            for (int r = 0; r < 3; r++) {
+                for (int s = 0; s < 3; s++) {
+                    a[r][s] += w[i] * x[r] * x[s];
                 }
-                if (b + d < m.length && !Double.isNaN(src[b + d])) {
-                    m[b] = src[b + d];
-                    break;
+                a[r][3] += w[i] * x[r] * y[i];
+            }
+        }
+        // Gaussian elimination with partial pivoting.
+        for (int col = 0; col < 3; col++) {
+            int pivot = col;
+            for (int r = col + 1; r < 3; r++) {
+                if (Math.abs(a[r][col]) > Math.abs(a[pivot][col])) {
+                    pivot = r;
+                }
+            }
+            if (Math.abs(a[pivot][col]) < 1e-12) {
+                // Too few distinct valve openings for a curve: fall back to a weighted constant.
+                return constant(y, w);
+            }
+            double[] t = a[col];
+            a[col] = a[pivot];
+            a[pivot] = t;
+            for (int r = 0; r < 3; r++) {
+                if (r != col) {
+                    double f = a[r][col] / a[col][col];
+                    for (int s = col; s < 4; s++) {
+                        a[r][s] -= f * a[col][s];
+                    }
                 }
             }
         }
+        return new double[] {a[0][3] / a[0][0], a[1][3] / a[1][1], a[2][3] / a[2][2]};
+    }
+
+    private static double[] constant(double[] y, double[] w) {
+        double sw = 0;
+        double sy = 0;
+        for (int i = 0; i < y.length; i++) {
+            sw += w[i];
+            sy += w[i] * y[i];
+        }
+        return sw == 0 ? null : new double[] {sy / sw, 0, 0};
+    }
+
+    private static double[] abs(double[] r) {
+        double[] a = new double[r.length];
+        for (int i = 0; i < r.length; i++) {
+            a[i] = Math.abs(r[i]);
+        }
+        return a;
+    }
+
+    private static double median(double[] v) {
+        double[] s = v.clone();
+        Arrays.sort(s);
+        int n = s.length;
+        return n % 2 == 1 ? s[n / 2] : 0.5 * (s[n / 2 - 1] + s[n / 2]);
     }
 }

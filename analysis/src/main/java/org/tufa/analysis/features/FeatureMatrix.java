@@ -7,9 +7,9 @@ import java.util.List;
  *
  * @param names       feature names (column headers of features.csv)
  * @param units       engineering unit of each feature, as printed in findings (e.g. "K", "%", "degC")
- * @param health      per feature: true when a shift in it means the unit behaves differently at the same
- *                    operating point (a residual, an offset, an activity), false for operating-point
- *                    features (load level, weather) whose shift alone is a normal regime, not a fault
+ * @param health      per feature: true for the health features that are clustered, whose shift means the unit
+ *                    behaves differently at the same operating point (a residual, an offset, an activity);
+ *                    false for role values that describe the operating point (load level, weather)
  * @param rows        n x p values, no NaN
  * @param sampleIndex grid index of each row
  */
@@ -42,6 +42,23 @@ public record FeatureMatrix(List<String> names, List<String> units, boolean[] he
             c[i] = rows[i][j];
         }
         return c;
+    }
+
+    /** The health columns of every row: what is standardised, reduced by PCA and clustered. */
+    public double[][] healthRows() {
+        int[] cols = java.util.stream.IntStream.range(0, health.length).filter(j -> health[j]).toArray();
+        double[][] out = new double[rows.length][cols.length];
+        for (int i = 0; i < rows.length; i++) {
+            for (int k = 0; k < cols.length; k++) {
+                out[i][k] = rows[i][cols[k]];
+            }
+        }
+        return out;
+    }
+
+    /** Names of the health columns, in order. */
+    public List<String> healthNames() {
+        return java.util.stream.IntStream.range(0, health.length).filter(j -> health[j]).mapToObj(names::get).toList();
     }
 
     /** Index of a feature by name, or -1. */

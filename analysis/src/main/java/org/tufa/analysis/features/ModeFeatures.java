@@ -4,10 +4,16 @@ import java.util.ArrayList;
 import java.util.List;
 
 /**
- * Builds the feature rows of one unit in one operating mode: the unit's role values in that mode, the upstream
- * supply-water and outdoor temperatures where present, and physically informed features that make a fault
- * stand out from a change of load: the coil residual ({@link CoilResponse}), the discharge offset in
- * ventilation, and the valve activity ({@link ValveActivity}).
+ * Builds the feature rows of one unit in one operating mode: physically informed health features that make a
+ * fault stand out from a change of load — the coil residual ({@link CoilResponse}), the discharge offset in
+ * ventilation, the valve activity ({@link ValveActivity}), residuals and offsets smoothed by a short running
+ * median ({@link RollingMedian}) — and the unit's role values in that mode with the upstream supply-water and
+ * outdoor temperatures where present.
+ *
+ * <p>Only the health features are clustered: in the space of raw role values a change of load (valve, zone and
+ * discharge temperatures moving together) separates samples as much as a fault does, which is why PCA + OPTICS
+ * on raw values flags few fault hours. The role values stay in the matrix (and in features.csv) to describe
+ * each cluster's shift from normal in engineering units.
  *
  * <p>A sample enters only when every feature of the mode has a value; the others are counted by the caller.
  */
@@ -15,6 +21,9 @@ public final class ModeFeatures {
 
     /** Half window of the valve activity: 4 samples each side, 2 hours at 15 minutes (common practice, no source). */
     public static final int ACTIVITY_HALF_WINDOW = 4;
+    /** Half window of the running median on residuals and offsets: 2 samples each side, 75 minutes at 15 minutes
+     * (common practice, no source): long enough to remove a spike, short enough to keep a fault's start. */
+    public static final int SMOOTHING_HALF_WINDOW = 2;
 
     private ModeFeatures() {
     }
@@ -83,6 +92,11 @@ public final class ModeFeatures {
         }
         CoilResponse response = CoilResponse.fit(v, air, wat);
         double[] activity = ValveActivity.of(valve, ACTIVITY_HALF_WINDOW);
+        double[] residualGrid = UnitSignals.absent(s.size());
+        for (int k = 0; k < n; k++) {
+            residualGrid[samples[k]] = response.residual(v[k], air[k], hasWater ? wat[k] : Double.NaN);
+        }
+        double[] residual = RollingMedian.of(residualGrid, SMOOTHING_HALF_WINDOW);
 
         String valveName = cooling ? "cooling_valve_command" : "heating_valve_command";
         String waterName = cooling ? "chilled_water_supply_temperature" : "hot_water_supply_temperature";
@@ -102,10 +116,9 @@ public final class ModeFeatures {
         List<Integer> index = new ArrayList<>(n);
         for (int k = 0; k < n; k++) {
             int i = samples[k];
-            double r = response.residual(v[k], air[k], hasWater ? wat[k] : Double.NaN);
             double[] row = new double[c.size()];
             int j = 0;
-            row[j++] = r;
+            row[j++] = residual[i];
             row[j++] = activity[i];
             row[j++] = discharge[i];
             row[j++] = zone[i];
@@ -135,11 +148,16 @@ public final class ModeFeatures {
         if (hasOutdoor) {
             c.add("outdoor_air_temperature", "degC", false);
         }
+        double[] offsetGrid = UnitSignals.absent(s.size());
+        for (int i : samples) {
+            offsetGrid[i] = s.dischargeAirTemperature()[i] - s.zoneAirTemperature()[i];
+        }
+        double[] offset = RollingMedian.of(offsetGrid, SMOOTHING_HALF_WINDOW);
         List<double[]> rows = new ArrayList<>(samples.length);
         List<Integer> index = new ArrayList<>(samples.length);
         for (int i : samples) {
             double[] row = new double[c.size()];
-            row[0] = s.dischargeAirTemperature()[i] - s.zoneAirTemperature()[i];
+            row[0] = offset[i];
             row[1] = s.dischargeAirTemperature()[i];
             row[2] = s.zoneAirTemperature()[i];
             if (hasOutdoor) {

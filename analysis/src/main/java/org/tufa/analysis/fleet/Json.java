@@ -85,7 +85,7 @@ final class Json {
         p.add("explained_variance_ratio", ratios);
         JsonArray kept = new JsonArray();
         for (int c : pca.keptColumns()) {
-            kept.add(m.features().names().get(c));
+            kept.add(m.features().healthNames().get(c));
         }
         p.add("kept_features", kept);
         JsonArray loadings = new JsonArray();

@@ -146,7 +146,7 @@ public final class UnitAnalysis {
             return ModeResult.skipped(name, modeSamples, "only " + features.size() + " complete samples in "
                     + name + " inside the load band");
         }
-        PcaResult pca = Pca.fit(features.rows(), ComponentRule.cumulativeVariance(settings.varianceTarget()));
+        PcaResult pca = Pca.fit(features.healthRows(), ComponentRule.cumulativeVariance(settings.varianceTarget()));
         long t2 = System.nanoTime();
         times.add(StageTimes.Stage.PCA, t2 - t1);
         OpticsResult optics = Optics.fit(pca.scores(), settings.minPts());

@@ -64,9 +64,13 @@ public final class SparqlQueries {
         return query;
     }
 
-    /** Runs the query and renders SELECT/ASK results in the format, CONSTRUCT/DESCRIBE results as Turtle. */
-    public static String run(Model data, Query query, Format format) {
-        PrefixMapping prefixes = PrefixMapping.Factory.create().setNsPrefixes(data.getNsPrefixMap())
+    /**
+     * Runs the query and renders SELECT/ASK results in the format, CONSTRUCT/DESCRIBE results as Turtle.
+     *
+     * @param modelPrefixes prefixes for shortening IRIs in table and Turtle output (the query's own are added)
+     */
+    public static String run(Model data, PrefixMapping modelPrefixes, Query query, Format format) {
+        PrefixMapping prefixes = PrefixMapping.Factory.create().setNsPrefixes(modelPrefixes)
                 .setNsPrefixes(query.getPrefixMapping());
         ByteArrayOutputStream out = new ByteArrayOutputStream();
         try (QueryExecution qe = QueryExecution.model(data).query(query).build()) {

@@ -50,7 +50,7 @@ class SafetyAndBadInputTest {
         Vocabulary v = Vocabulary.standard();
         Model all = v.unionWith(ModelLoader.load(Fixtures.resource("quillmoor-hall.ttl")));
         InputException e = assertThrows(InputException.class,
-                () -> UnitClasses.resolve(List.of("brick:Fan_Coil_Unit> } UNION { ?unit ?p ?o"), all, all));
+                () -> UnitClasses.resolve(List.of("brick:Fan_Coil_Unit> } UNION { ?unit ?p ?o"), all, StandardPrefixes.mapping()));
         assertTrue(e.getMessage().contains("nearest: brick:Fan_Coil_Unit"), e.getMessage());
     }
 
@@ -59,16 +59,16 @@ class SafetyAndBadInputTest {
         Vocabulary v = Vocabulary.standard();
         Model all = v.unionWith(ModelLoader.load(Fixtures.resource("quillmoor-hall.ttl")));
         InputException e = assertThrows(InputException.class,
-                () -> UnitClasses.resolve(List.of("brick:Fan_Coil_Unti"), all, all));
+                () -> UnitClasses.resolve(List.of("brick:Fan_Coil_Unti"), all, StandardPrefixes.mapping()));
         assertTrue(e.getMessage().startsWith("--unit-class brick:Fan_Coil_Unti: not a terminal-unit class"), e.getMessage());
         assertTrue(e.getMessage().contains("nearest: brick:Fan_Coil_Unit"), e.getMessage());
         assertFalse(e.getMessage().contains("\n"));
         // A real class that is not a terminal unit is refused too.
-        assertThrows(InputException.class, () -> UnitClasses.resolve(List.of("brick:Chiller"), all, all));
+        assertThrows(InputException.class, () -> UnitClasses.resolve(List.of("brick:Chiller"), all, StandardPrefixes.mapping()));
         assertEquals(Set.of(Namespaces.BRICK + "Fan_Coil_Unit", Namespaces.BRICK + "FCU"),
-                UnitClasses.resolve(List.of("brick:Fan_Coil_Unit", "<" + Namespaces.BRICK + "FCU>"), all, all));
+                UnitClasses.resolve(List.of("brick:Fan_Coil_Unit", "<" + Namespaces.BRICK + "FCU>"), all, StandardPrefixes.mapping()));
         assertEquals(Set.of(Namespaces.BRICK + "Variable_Air_Volume_Box"),
-                UnitClasses.resolve(List.of("Variable_Air_Volume_Box"), all, all));
+                UnitClasses.resolve(List.of("Variable_Air_Volume_Box"), all, StandardPrefixes.mapping()));
     }
 
     @Test

@@ -26,7 +26,7 @@ class SparqlQueriesTest {
     @Test
     void subclassPathsReachTheVocabularyWithoutPrefixDeclarations() {
         String q = "SELECT ?u WHERE { ?u rdf:type/rdfs:subClassOf* brick:Terminal_Unit } ORDER BY ?u";
-        String csv = SparqlQueries.run(all, SparqlQueries.parse(q, "-e"), SparqlQueries.Format.CSV);
+        String csv = SparqlQueries.run(all, org.tufa.analysis.coverage.StandardPrefixes.mapping(), SparqlQueries.parse(q, "-e"), SparqlQueries.Format.CSV);
         // FCU-102 is typed brick:FCU, VAV-201 a reheat box: both reach Terminal_Unit only through the vocabulary.
         assertEquals(String.join("\r\n", "u",
                 "https://quillmoor.example.org/building#FCU_101",
@@ -41,18 +41,18 @@ class SparqlQueriesTest {
     void askAndTableAndJson() {
         String ask = "ASK { ?p a brick:Chilled_Water_Supply_Temperature_Sensor }";
         assertEquals("true" + System.lineSeparator(),
-                SparqlQueries.run(all, SparqlQueries.parse(ask, "-e"), SparqlQueries.Format.TABLE));
+                SparqlQueries.run(all, org.tufa.analysis.coverage.StandardPrefixes.mapping(), SparqlQueries.parse(ask, "-e"), SparqlQueries.Format.TABLE));
         String select = "SELECT ?l WHERE { ?u a brick:Variable_Air_Volume_Box_With_Reheat ; rdfs:label ?l }";
-        String table = SparqlQueries.run(all, SparqlQueries.parse(select, "-e"), SparqlQueries.Format.TABLE);
+        String table = SparqlQueries.run(all, org.tufa.analysis.coverage.StandardPrefixes.mapping(), SparqlQueries.parse(select, "-e"), SparqlQueries.Format.TABLE);
         assertTrue(table.contains("| \"VAV-201\" |"), table);
-        String json = SparqlQueries.run(all, SparqlQueries.parse(select, "-e"), SparqlQueries.Format.JSON);
+        String json = SparqlQueries.run(all, org.tufa.analysis.coverage.StandardPrefixes.mapping(), SparqlQueries.parse(select, "-e"), SparqlQueries.Format.JSON);
         assertTrue(json.contains("\"value\" : \"VAV-201\"") || json.contains("\"value\": \"VAV-201\""), json);
     }
 
     @Test
     void constructPrintsTurtle() {
         String q = "CONSTRUCT { ?u a brick:Terminal_Unit } WHERE { ?u a brick:Variable_Air_Volume_Box_With_Reheat }";
-        String ttl = SparqlQueries.run(all, SparqlQueries.parse(q, "-e"), SparqlQueries.Format.TABLE);
+        String ttl = SparqlQueries.run(all, org.tufa.analysis.coverage.StandardPrefixes.mapping(), SparqlQueries.parse(q, "-e"), SparqlQueries.Format.TABLE);
         assertTrue(ttl.contains("brick:Terminal_Unit"), ttl);
         assertTrue(ttl.contains("VAV_201"), ttl);
     }

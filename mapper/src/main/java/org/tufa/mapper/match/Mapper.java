@@ -368,6 +368,11 @@ public final class Mapper {
             className = r.pointClass().get();
             score = 1.0;
         } else {
+            if (tags.isEmpty()) {
+                return Outcome.of(Status.UNMAPPED, "rule " + r.label() + " matched but '"
+                        + r.tagSource().render(values) + "' gives no tags; tokens not in the dictionary: "
+                        + String.join(" ", lookup.unknownTokens()));
+            }
             if (tags.stream().noneMatch(ROLE_TAGS::contains)) {
                 tags.addAll(rules.typeTags().getOrDefault(p.objectType(), List.of()));
             }

@@ -49,6 +49,10 @@ public final class ModelBuilder {
     private final SortedMap<String, SortedSet<String>> classesById = new TreeMap<>();
     private final SortedMap<String, String> airflowById = new TreeMap<>();
     private final List<String> warnings = new ArrayList<>();
+    /** Equipment-level statements already written (equipment id + what), so each is added once. */
+    private final java.util.Set<String> done = new java.util.HashSet<>();
+    /** Class and predicate nodes, made once (point and equipment IRIs are not cached: each is used a few times). */
+    private final java.util.Map<String, Node> vocabularyNodes = new java.util.HashMap<>();
 
     private ModelBuilder(IriMinter iris) {
         this.iris = iris;
@@ -128,18 +132,26 @@ public final class ModelBuilder {
         }
         Assignment.Equipment eq = a.equipment().get();
         Node equipment = uri(iris.equipment(eq.id()));
-        typed(equipment, eq.id(), eq.className());
         Node holder = equipment;
         if (a.part().isPresent()) {
             Assignment.Part part = a.part().get();
             Node pn = uri(iris.part(eq.id(), part.localId()));
-            typed(pn, part.id(), part.className());
-            add(equipment, uri(BRICK + "hasPart"), pn);
-            add(pn, uri(BRICK + "isPartOf"), equipment);
+            if (done.add("part\u0000" + part.id() + "\u0000" + part.className())) {
+                typed(pn, part.id(), part.className());
+                add(equipment, uri(BRICK + "hasPart"), pn);
+                add(pn, uri(BRICK + "isPartOf"), equipment);
+            }
             holder = pn;
         }
         add(holder, uri(BRICK + "hasPoint"), point);
         add(point, uri(BRICK + "isPointOf"), holder);
+        // equipment-level statements depend only on the rule's output for this equipment: write them once per
+        // distinct (equipment, class, locations, links, airflow)
+        if (!done.add("eq\u0000" + eq.id() + "\u0000" + eq.className() + "\u0000" + a.locations() + a.feeds()
+                + a.fedBy() + a.airflow())) {
+            return;
+        }
+        typed(equipment, eq.id(), eq.className());
 
         Node parent = building;
         for (Assignment.Link loc : a.locations()) {
@@ -193,7 +205,10 @@ public final class ModelBuilder {
         g.add(Triple.create(s, p, o));
     }
 
-    private static Node uri(String iri) {
+    private Node uri(String iri) {
+        if (iri.startsWith(BRICK) || iri.startsWith(REF) || iri.startsWith(TUFA) || iri.startsWith(Namespaces.UNIT)) {
+            return vocabularyNodes.computeIfAbsent(iri, NodeFactory::createURI);
+        }
         return NodeFactory.createURI(iri);
     }
 

@@ -6,7 +6,6 @@ import java.io.OutputStream;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
-import java.util.Comparator;
 import java.util.List;
 import java.util.Locale;
 import org.apache.jena.graph.Graph;
@@ -91,21 +90,44 @@ public final class ModelFiles {
         List<Triple> list = new ArrayList<>(g.size());
         g.find().forEachRemaining(list::add);
         Node type = RDF.type.asNode();
-        list.sort(Comparator.<Triple, String>comparing(t -> key(t.getSubject()))
-                .thenComparing(t -> !t.getPredicate().equals(type))
-                .thenComparing(t -> key(t.getPredicate()))
-                .thenComparing(t -> key(t.getObject())));
+        list.sort((a, b) -> {
+            int c = compare(a.getSubject(), b.getSubject());
+            if (c != 0) {
+                return c;
+            }
+            boolean at = a.getPredicate().equals(type);
+            boolean bt = b.getPredicate().equals(type);
+            if (at != bt) {
+                return at ? -1 : 1;
+            }
+            c = compare(a.getPredicate(), b.getPredicate());
+            return c != 0 ? c : compare(a.getObject(), b.getObject());
+        });
         return list;
     }
 
-    private static String key(Node n) {
-        if (n.isURI()) {
-            return n.getURI();
+    /** IRIs before blank nodes before literals; IRIs by text; literals by lexical form, datatype, language. */
+    static int compare(Node a, Node b) {
+        int ka = kind(a);
+        int kb = kind(b);
+        if (ka != kb) {
+            return Integer.compare(ka, kb);
         }
-        if (n.isLiteral()) {
-            return n.getLiteralLexicalForm() + "\u0000" + n.getLiteralDatatypeURI() + "\u0000" + n.getLiteralLanguage();
+        if (a.isURI()) {
+            return a.getURI().compareTo(b.getURI());
         }
-        return n.toString();
+        if (a.isLiteral()) {
+            int c = a.getLiteralLexicalForm().compareTo(b.getLiteralLexicalForm());
+            if (c == 0) {
+                c = a.getLiteralDatatypeURI().compareTo(b.getLiteralDatatypeURI());
+            }
+            return c != 0 ? c : a.getLiteralLanguage().compareTo(b.getLiteralLanguage());
+        }
+        return a.toString().compareTo(b.toString());
+    }
+
+    private static int kind(Node n) {
+        return n.isURI() ? 0 : n.isBlank() ? 1 : 2;
     }
 
     /** Reads a model (Turtle, N-Triples, JSON-LD by extension); bad files are an {@link InputException}. */

@@ -30,9 +30,16 @@ public final class ObjectTypes {
     /** The abbreviation for an export spelling; empty when the spelling is not a known object type. */
     public static Optional<String> normalise(String raw) {
         String s = raw.trim().toLowerCase(Locale.ROOT);
-        // drop an instance number: "AI:3", "analog-input,3", "AI 3", "AI3"
-        s = s.replaceAll("[\\s:,_#-]*\\d+$", "");
-        s = s.replaceAll("[^a-z]", "");
+        String hit = BY_SPELLING.get(s);
+        if (hit != null) {
+            return Optional.of(hit);
+        }
+        // drop an instance number ("AI:3", "analog-input,3", "AI 3", "AI3"), then everything but letters
+        s = INSTANCE.matcher(s).replaceAll("");
+        s = NON_LETTERS.matcher(s).replaceAll("");
         return Optional.ofNullable(BY_SPELLING.get(s));
     }
+
+    private static final java.util.regex.Pattern INSTANCE = java.util.regex.Pattern.compile("[\\s:,_#-]*\\d+$");
+    private static final java.util.regex.Pattern NON_LETTERS = java.util.regex.Pattern.compile("[^a-z]");
 }

@@ -119,7 +119,7 @@ public final class PointListReader {
         for (String h : records.get(0)) {
             headers.add(h);
         }
-        long headerLine = lineOf(lineStarts, records.get(0).getCharacterPosition());
+        long headerLine = lineOf(lineStarts, skipLineBreaks(text, records.get(0).getCharacterPosition()));
         ColumnMap columns = mapColumns(file, headerLine, headers, options, delimiter);
         int nameIdx = headers.indexOf(columns.name());
         int descIdx = columns.description().map(headers::indexOf).orElse(-1);
@@ -131,7 +131,7 @@ public final class PointListReader {
         List<PointRecord> points = new ArrayList<>(records.size());
         for (int i = 1; i < records.size(); i++) {
             CSVRecord r = records.get(i);
-            long line = lineOf(lineStarts, r.getCharacterPosition());
+            long line = lineOf(lineStarts, skipLineBreaks(text, r.getCharacterPosition()));
             TreeMap<String, String> extras = new TreeMap<>();
             for (int c = 0; c < r.size(); c++) {
                 if (c == nameIdx || c == descIdx || c == unitsIdx || c == typeIdx || c == devIdx || c == seriesIdx) {
@@ -303,6 +303,15 @@ public final class PointListReader {
             }
         }
         return Arrays.copyOf(starts, n);
+    }
+
+    /** Commons CSV reports a record's position before the empty lines it skipped; step over them. */
+    private static long skipLineBreaks(String text, long pos) {
+        int p = (int) pos;
+        while (p < text.length() && (text.charAt(p) == '\n' || text.charAt(p) == '\r')) {
+            p++;
+        }
+        return p;
     }
 
     private static long lineOf(int[] lineStarts, long charPos) {

@@ -47,6 +47,7 @@ public final class RuleFileParser {
             "MSO", List.of("Command"));
 
     private static final Pattern GROUP_NAME = Pattern.compile("\\(\\?<([a-zA-Z][a-zA-Z0-9]*)>");
+    private static final Pattern TRAILING_COMMENT = Pattern.compile("\\s#");
     private static final Pattern UNIT_NAME = Pattern.compile("[A-Za-z][A-Za-z0-9_\\-]*");
 
     private final Path file;
@@ -112,6 +113,13 @@ public final class RuleFileParser {
             int sp = indexOfWhitespace(trimmed);
             String keyword = sp < 0 ? trimmed : trimmed.substring(0, sp);
             String rest = sp < 0 ? "" : trimmed.substring(sp).strip();
+            if (!keyword.equals("match") && !keyword.equals("expect")) {
+                // a trailing comment: white space then '#' (match and expect lines are taken verbatim)
+                Matcher c = TRAILING_COMMENT.matcher(rest);
+                if (c.find()) {
+                    rest = rest.substring(0, c.start()).strip();
+                }
+            }
             if (!indented) {
                 current = null;
                 if (keyword.equals("rule")) {

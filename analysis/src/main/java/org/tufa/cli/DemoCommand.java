@@ -1,0 +1,147 @@
+package org.tufa.cli;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.PrintWriter;
+import java.io.UncheckedIOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.StandardCopyOption;
+import java.util.List;
+import java.util.concurrent.Callable;
+import org.tufa.analysis.simulate.DemoTrends;
+import org.tufa.analysis.simulate.Season;
+import org.tufa.analysis.simulate.SimulationPlan;
+import org.tufa.analysis.simulate.SimulationResult;
+import org.tufa.analysis.simulate.Simulator;
+import org.tufa.analysis.simulate.DemoSimulation;
+import org.tufa.analysis.simulate.DemoTargets;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/**
+ * {@code tufa demo}: the whole job on the invented demo building. It runs the same commands a user would run, in
+ * order (map, coverage, analyze, evaluate), with trends simulated from the mapped model in between.
+ */
+@Command(name = "demo", mixinStandardHelpOptions = true,
+        description = {"Run the whole job on the bundled demo building (Wrenfield Chandlery House, invented): map its "
+                + "point list, check coverage, simulate a season of trends with known faults, analyse every unit, "
+                + "write the report and score the findings against the known faults."})
+public final class DemoCommand implements Callable<Integer> {
+
+    /** Where the demo's inputs sit on the class path (module demo-data). */
+    static final String RESOURCES = "org/tufa/demo/";
+
+    @Spec
+    CommandLine.Model.CommandSpec spec;
+
+    @Option(names = "--out", paramLabel = "DIR", defaultValue = "tufa-demo",
+            description = "Output folder (default: ${DEFAULT-VALUE}).")
+    Path out;
+
+    @Option(names = "--full-year", description = "Simulate the whole year 2031 instead of the summer season.")
+    boolean fullYear;
+
+    @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: all cores).")
+    int threads = Runtime.getRuntime().availableProcessors();
+
+    @Override
+    public Integer call() throws IOException {
+        PrintWriter stdout = spec.commandLine().getOut();
+        long start = System.nanoTime();
+        Path input = out.resolve("input");
+        Files.createDirectories(input);
+        Path points = copy("points.csv", input);
+        Path rules = copy("rules.tufa", input);
+        Path model = out.resolve("model.ttl");
+
+        step(stdout, "1/5 map the point list to a Brick model");
+        int code = run("map", "--points", points.toString(), "--rules", rules.toString(), "--out", model.toString(),
+                "--report", out.resolve("mapping.csv").toString());
+        if (code != ExitCodes.OK) {
+            return code;
+        }
+        step(stdout, "2/5 coverage: which units have the points the analysis needs");
+        code = run("coverage", "--model", model.toString(), "--out", out.resolve("coverage").toString(), "--list", "8");
+        if (code != ExitCodes.OK) {
+            return code;
+        }
+        Season season = fullYear ? Season.fullYear(2031) : Season.summer(2031);
+        Path trends = out.resolve(fullYear ? "trends-year" : "trends-summer");
+        step(stdout, "3/5 simulate " + (fullYear ? "the year" : "the summer") + " 2031 with known faults -> " + trends);
+        simulate(model, season, trends, stdout);
+
+        step(stdout, "4/5 analyse every unit, per operating mode");
+        code = run("analyze", "--model", model.toString(), "--trends",
+                trends.resolve(DemoTrends.TRENDS_FILE).toString(), "--out", out.toString(), "--timezone",
+                season.zone().getId(), "--threads", Integer.toString(threads));
+        if (code != ExitCodes.OK) {
+            return code;
+        }
+        step(stdout, "5/5 score the findings against the known faults (the demo's ground truth)");
+        code = run("evaluate", "--findings", out.toString(), "--truth", trends.resolve(DemoTrends.TRUTH_FILE).toString());
+        stdout.printf(java.util.Locale.ROOT, "%nDemo done in %.1f s. Open %s in a browser; tables in %s and %s.%n",
+                (System.nanoTime() - start) / 1e9, out.resolve("report").resolve("index.html"),
+                out.resolve("fleet.csv"), out.resolve("findings.csv"));
+        stdout.flush();
+        return code;
+    }
+
+    /** Simulates the season unless the folder already holds the same simulation (same season and seed). */
+    private void simulate(Path model, Season season, Path dir, PrintWriter stdout) throws IOException {
+        Path stamp = dir.resolve("simulation.txt");
+        String id = "season " + season.firstDay() + ".." + season.lastDay() + " " + season.zone() + ", seed "
+                + DemoSimulation.DEMO_SEED + ", model sha256 " + sha256(model) + "\n";
+        if (Files.isRegularFile(stamp) && Files.readString(stamp, StandardCharsets.UTF_8).equals(id)
+                && Files.isRegularFile(dir.resolve(DemoTrends.TRENDS_FILE))) {
+            stdout.println("Reusing the trends already simulated in " + dir);
+            return;
+        }
+        FleetModelOptions.Assessed assessed = FleetModelOptions.assess(model, "fcu-modes", List.of(), List.of());
+        DemoTargets targets = DemoTargets.from(assessed.coverage());
+        SimulationPlan plan = DemoSimulation.plan(targets.units(), targets.building(), season, DemoSimulation.DEMO_SEED);
+        SimulationResult result = Simulator.run(plan);
+        Files.createDirectories(dir);
+        List<Path> written = DemoTrends.write(dir, result, DemoTrends.Layout.WIDE);
+        Files.writeString(stamp, id, StandardCharsets.UTF_8);
+        stdout.println("Simulated " + targets.units().size() + " units with " + plan.faults().size()
+                + " fault episodes; wrote " + String.join(", ", written.stream().map(Path::toString).toList()));
+    }
+
+    private int run(String... args) {
+        // A fresh command line per step, with the same streams and error handling as the user's own call.
+        CommandLine root = spec.root().commandLine();
+        return Tufa.commandLine(root.getOut(), root.getErr(), false).execute(args);
+    }
+
+    private static void step(PrintWriter out, String text) {
+        out.println();
+        out.println("== " + text);
+        out.flush();
+    }
+
+    private static Path copy(String name, Path dir) {
+        Path target = dir.resolve(name);
+        try (InputStream in = DemoCommand.class.getClassLoader().getResourceAsStream(RESOURCES + name)) {
+            if (in == null) {
+                throw new IllegalStateException("demo resource missing from the jar: " + RESOURCES + name);
+            }
+            Files.copy(in, target, StandardCopyOption.REPLACE_EXISTING);
+            return target;
+        } catch (IOException e) {
+            throw new UncheckedIOException("cannot write " + target + ": " + e.getMessage(), e);
+        }
+    }
+
+    private static String sha256(Path file) throws IOException {
+        try {
+            java.security.MessageDigest d = java.security.MessageDigest.getInstance("SHA-256");
+            return java.util.HexFormat.of().formatHex(d.digest(Files.readAllBytes(file)));
+        } catch (java.security.NoSuchAlgorithmException e) {
+            throw new IllegalStateException(e);
+        }
+    }
+}
