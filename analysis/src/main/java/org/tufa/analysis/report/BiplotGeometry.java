@@ -2,6 +2,7 @@ package org.tufa.analysis.report;
 
 import java.util.Arrays;
 import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.Map;
 import org.tufa.analysis.cluster.PcaResult;
 import org.tufa.analysis.features.FeatureMatrix;
@@ -50,8 +51,37 @@ final class BiplotGeometry {
     }
 
     /**
-     * Score change (all kept components) of a feature change given in engineering units; features not in the
-     * matrix or dropped as constant by the PCA contribute nothing.
+     * Names of the PCA's input columns: the health features when the PCA was fitted on those alone (as the
+     * detection does), else all features.
+     */
+    static List<String> pcaInputNames(PcaResult pca, FeatureMatrix features) {
+        if (pca.inputWidth() == features.width()) {
+            return features.names();
+        }
+        List<String> health = features.healthNames();
+        if (pca.inputWidth() == health.size()) {
+            return health;
+        }
+        throw new IllegalArgumentException("PCA input width " + pca.inputWidth() + " matches neither the "
+                + features.width() + " features nor the " + health.size() + " health features");
+    }
+
+    /** The part of a feature change the PCA can see (features among its kept inputs), in the change's order. */
+    static Map<String, Double> visible(PcaResult pca, FeatureMatrix features, Map<String, Double> change) {
+        List<String> names = pcaInputNames(pca, features);
+        Map<String, Double> out = new LinkedHashMap<>();
+        change.forEach((name, dx) -> {
+            int j = names.indexOf(name);
+            if (j >= 0 && java.util.Arrays.stream(pca.keptColumns()).anyMatch(c -> c == j)) {
+                out.put(name, dx);
+            }
+        });
+        return out;
+    }
+
+    /**
+     * Score change (all kept components) of a feature change given in engineering units; features not among the
+     * PCA's inputs or dropped as constant contribute nothing.
      */
     static double[] scoreChange(PcaResult pca, FeatureMatrix features, Map<String, Double> change) {
         int k = pca.componentCount();
@@ -59,8 +89,9 @@ final class BiplotGeometry {
         int[] kept = pca.keptColumns();
         double[][] loadings = pca.loadings();
         double[] scales = pca.scales();
+        List<String> names = pcaInputNames(pca, features);
         for (int f = 0; f < kept.length; f++) {
-            Double dx = change.get(features.names().get(kept[f]));
+            Double dx = change.get(names.get(kept[f]));
             if (dx == null) {
                 continue;
             }

@@ -55,6 +55,12 @@ final class ModeCharts {
         return groups;
     }
 
+    /** E.g. "coil_residual -1 K, discharge_air_temperature +1 K". */
+    private static String describe(Map<String, Double> change) {
+        return String.join(", ", change.entrySet().stream().map(e -> e.getKey() + " "
+                + (e.getValue() >= 0 ? "+" : "") + Html.fixed(e.getValue(), 0) + " K").toList());
+    }
+
     private record Biplot(org.jfree.chart.JFreeChart chart, String caption) {
     }
 
@@ -93,14 +99,16 @@ final class ModeCharts {
         double[][] loadings = pca.loadings();
         double scale = BiplotGeometry.loadingScale(extent, loadings);
         int[] kept = pca.keptColumns();
+        List<String> inputs = BiplotGeometry.pcaInputNames(pca, f);
         for (int j = 0; j < kept.length; j++) {
             double lx = loadings[j][0] * scale;
             double ly = k > 1 ? loadings[j][1] * scale : 0;
-            arrows.add(new ArrowAnnotation(0, 0, lx, ly, Palette.BLACK, false, 0.9f, f.names().get(kept[j])));
+            arrows.add(new ArrowAnnotation(0, 0, lx, ly, Palette.BLACK, false, 0.9f, inputs.get(kept[j])));
         }
         StringBuilder cap = new StringBuilder();
         cap.append("PCA biplot (Gabriel, Biometrika 1971): scores of the clustered samples on the first two "
-                + "principal components (standardised features; PC1 ").append(Html.fixed(100 * ratio[0], 0))
+                + "principal components of the standardised clustered features (")
+                .append(Html.esc(String.join(", ", inputs))).append("; PC1 ").append(Html.fixed(100 * ratio[0], 0))
                 .append(" %");
         if (k > 1) {
             cap.append(", PC2 ").append(Html.fixed(100 * ratio[1], 0)).append(" %");
@@ -118,7 +126,7 @@ final class ModeCharts {
         }
         cap.append(". Thin black arrows: loading of each feature (its direction in the PC1/PC2 plane), all "
                 + "multiplied by ").append(Html.fixed(scale, 2)).append(" to fit the cloud.");
-        Map<String, Double> less = BiplotGeometry.coilDoesLess(m.mode());
+        Map<String, Double> less = BiplotGeometry.visible(pca, f, BiplotGeometry.coilDoesLess(m.mode()));
         double[] expected = less.isEmpty() ? new double[0] : BiplotGeometry.scoreChange(pca, f, less);
         double[] normal = BiplotGeometry.medianScores(scores, labels, 0);
         List<String> notes = new ArrayList<>();
@@ -155,16 +163,17 @@ final class ModeCharts {
                     + " normal C0 to median scores of the cluster).");
             if (!less.isEmpty()) {
                 cap.append(" Dashed black arrow: the direction the scores would move if the coil delivered 1 K "
-                        + "less and nothing else changed (").append(m.mode().equals("cooling")
-                        ? "discharge air 1 K warmer, coil residual 1 K lower"
-                        : "discharge air 1 K cooler, coil residual 1 K lower")
-                        .append("), drawn at the length of the actual arrow. Arrows that agree support causes in "
+                        + "less and nothing else changed (").append(Html.esc(describe(less)))
+                        .append(" among the clustered features), drawn at the length of the actual arrow. Arrows that agree support causes in "
                                 + "which the coil does less (water flow, fouling, supply water); arrows that "
                                 + "disagree point elsewhere (a sensor, a valve, a change of operating point). The "
                                 + "plane shows only two components; the cosine over all kept components is the "
                                 + "fairer measure: ").append(Html.esc(String.join("; ", notes))).append('.');
-            } else {
+            } else if (m.mode().equals("ventilation")) {
                 cap.append(" No expected direction is drawn in ventilation: no coil is meant to be at work.");
+            } else {
+                cap.append(" No expected direction is drawn: none of the features a weaker coil moves (coil "
+                        + "residual, discharge air temperature) is among the clustered ones.");
             }
         } else {
             cap.append(" No candidate fault cluster in this mode.");

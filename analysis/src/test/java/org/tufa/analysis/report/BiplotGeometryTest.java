@@ -53,6 +53,18 @@ class BiplotGeometryTest {
     }
 
     @Test
+    void healthOnlyPcaMapsColumnsToHealthNames() {
+        FeatureMatrix f = features();
+        PcaResult pca = Pca.fit(f.healthRows(), ComponentRule.cumulativeVariance(0.99));
+        assertEquals(List.of("coil_residual"), BiplotGeometry.pcaInputNames(pca, f));
+        Map<String, Double> seen = BiplotGeometry.visible(pca, f, BiplotGeometry.coilDoesLess("cooling"));
+        assertEquals(Map.of("coil_residual", -1.0), seen, "discharge temperature is not a PCA input here");
+        double[] a = pca.project(new double[] {0.5});
+        double[] b = pca.project(new double[] {-0.5});
+        assertEquals(b[0] - a[0], BiplotGeometry.scoreChange(pca, f, seen)[0], 1e-12);
+    }
+
+    @Test
     void coilDoesLessDirections() {
         assertEquals(Map.of("discharge_air_temperature", 1.0, "coil_residual", -1.0),
                 BiplotGeometry.coilDoesLess("cooling"));

@@ -118,7 +118,7 @@ final class SyntheticFleet {
                 ROLES.stream().map(r -> new Role(r, "https://tufa.example.org/ns#" + r, ROLES.indexOf(r), List.of()))
                         .toList());
         FleetCoverage fleet = new FleetCoverage(profile, List.of("https://brickschema.org/schema/Brick#FCU"),
-                coverage);
+                coverage, Map.of());
         FleetAnalysis.Result result = new FleetAnalysis.Result(outcomes,
                 new IngestReport(List.of(), List.of(), List.of(), List.of()), new StageTimes());
         return new Fleet(result, fleet, signals);
