@@ -130,6 +130,7 @@ final class ModeCharts {
         double[] expected = less.isEmpty() ? new double[0] : BiplotGeometry.scoreChange(pca, f, less);
         double[] normal = BiplotGeometry.medianScores(scores, labels, 0);
         List<String> notes = new ArrayList<>();
+        double longest = 0;
         for (ClusterSummary c : m.clusters()) {
             if (!c.candidateFault()) {
                 continue;
@@ -143,20 +144,22 @@ final class ModeCharts {
             double ay = k > 1 ? actual[1] : 0;
             arrows.add(new ArrowAnnotation(normal[0], ny, normal[0] + actual[0], ny + ay,
                     Palette.cluster(c.label()), false, 2.6f, "C" + c.label() + " actual"));
+            longest = Math.max(longest, Math.hypot(actual[0], ay));
             if (expected.length == 0) {
                 continue;
             }
-            double ex = expected[0];
-            double ey = k > 1 ? expected[1] : 0;
-            double len2 = Math.hypot(actual[0], ay);
-            double elen2 = Math.hypot(ex, ey);
             double cos = BiplotGeometry.cosine(actual, expected);
-            if (elen2 > 1e-9 && len2 > 0) {
-                arrows.add(new ArrowAnnotation(normal[0], ny, normal[0] + ex / elen2 * len2,
-                        ny + ey / elen2 * len2, Palette.BLACK, true, 1.8f, "C" + c.label() + " expected"));
-            }
             notes.add("C" + c.label() + ": cosine between actual and expected shift over all " + k
                     + " kept components " + (Double.isNaN(cos) ? "undefined" : Html.fixed(cos, 2)));
+        }
+        // One expected arrow serves every fault cluster (the direction is the same), at the longest actual length.
+        double ex = expected.length > 0 ? expected[0] : 0;
+        double ey = expected.length > 1 ? expected[1] : 0;
+        double elen = Math.hypot(ex, ey);
+        if (elen > 1e-9 && longest > 0) {
+            double ny = k > 1 ? normal[1] : 0;
+            arrows.add(new ArrowAnnotation(normal[0], ny, normal[0] + ex / elen * longest, ny + ey / elen * longest,
+                    Palette.BLACK, true, 1.8f, "expected if the coil does less"));
         }
         if (m.clusters().stream().anyMatch(ClusterSummary::candidateFault)) {
             cap.append(" Thick coloured arrow: a candidate fault cluster's departure from normal (median scores of"
@@ -164,7 +167,7 @@ final class ModeCharts {
             if (!less.isEmpty()) {
                 cap.append(" Dashed black arrow: the direction the scores would move if the coil delivered 1 K "
                         + "less and nothing else changed (").append(Html.esc(describe(less)))
-                        .append(" among the clustered features), drawn at the length of the actual arrow. Arrows that agree support causes in "
+                        .append(" among the clustered features), drawn from the normal median at the length of the longest actual arrow (one arrow: the direction is the same for every cluster). Arrows that agree support causes in "
                                 + "which the coil does less (water flow, fouling, supply water); arrows that "
                                 + "disagree point elsewhere (a sensor, a valve, a change of operating point). The "
                                 + "plane shows only two components; the cosine over all kept components is the "

@@ -104,7 +104,7 @@ public final class UnitPages implements UnitSink {
                             + "shaded\">\n<figcaption>Means over blocks of ")
                     .append(describe(r.interval().multipliedBy(factor)))
                     .append(" (display only; the analysis uses every sample), plotted at each block's start. "
-                            + "Shaded: findings (F numbers as in the findings table below; vermillion = fault cluster, "
+                            + "Shaded: findings (numbered F1, F2, ... as in the findings table below when there are at most eight; vermillion = fault cluster, "
                             + "yellow = sustained load outside the band, reddish purple = simultaneous heating "
                             + "and cooling). Fan: share of the time running, in %. Load: sensible load estimated "
                             + "from airflow and the zone-to-discharge temperature difference.</figcaption>"
@@ -278,7 +278,7 @@ public final class UnitPages implements UnitSink {
             Color c = f.kind().equals("fault_cluster") ? Palette.VERMILLION
                     : f.kind().startsWith("out_of_band") ? Palette.YELLOW : Palette.REDDISH_PURPLE;
             shades.add(new Charts.Shade(f.start().toEpochMilli(), f.end().toEpochMilli(), c,
-                    findings.size() <= 20 ? "F" + k : null));
+                    findings.size() <= 8 ? "F" + k : null));
             k++;
         }
         return Charts.strips(name + ": signals and findings", times, strips, shades, zone);
