@@ -1,7 +1,8 @@
 #!/usr/bin/env bash
 # Opens a tufa report in headless Chromium and fails on a console error or an image that did not load.
-# Usage: analysis/src/test/report-check.sh DIR   (DIR holds report/index.html, as written by `tufa analyze --out DIR`)
-# Checks report/index.html and the first unit page: each is loaded twice, once dumping the DOM (each page's inline
+# Usage: analysis/src/test/report-check.sh DIR [UNIT]   (DIR holds report/index.html, as written by
+# `tufa analyze --out DIR`; UNIT is a folder under DIR/report/units, default the first)
+# Checks report/index.html and one unit page: each is loaded twice, once dumping the DOM (each page's inline
 # script writes the count of broken images into <html data-broken-images="N"> on load) and once taking a
 # screenshot (DIR/report-check/*.png, 1400x2000) with console messages logged to stderr.
 # Exit 0 all good, 1 a check failed, 2 usage or no browser.
@@ -13,7 +14,14 @@ browser="${CHROMIUM:-/usr/bin/chromium}"
 [ -x "$browser" ] || { echo "report-check: no chromium at $browser (apt-get install chromium)" >&2; exit 2; }
 [ -f "$report/index.html" ] || { echo "report-check: $report/index.html not found" >&2; exit 2; }
 
-unit_page="$(find "$report/units" -mindepth 2 -maxdepth 2 -name index.html 2>/dev/null | sort | head -n 1)"
+# The unit page: DIR/report/units/UNIT/index.html when a second argument names UNIT, else the first in name order
+# (sed reads all input, so no SIGPIPE under pipefail as with head).
+if [ -n "${2:-}" ]; then
+  unit_page="$report/units/$2/index.html"
+  [ -f "$unit_page" ] || unit_page=""
+else
+  unit_page="$(find "$report/units" -mindepth 2 -maxdepth 2 -name index.html 2>/dev/null | sort | sed -n 1p)"
+fi
 [ -n "$unit_page" ] || { echo "report-check: no unit page under $report/units" >&2; exit 1; }
 
 shots="$dir/report-check"
@@ -33,7 +41,7 @@ check() {
   "$browser" "${flags[@]}" --enable-logging=stderr --v=0 --window-size=1400,2000 \
       --screenshot="$shots/$name.png" "$url" >/dev/null 2>"$log" || true
   local broken
-  broken="$( (grep -o 'data-broken-images="[^"]*"' "$dom" || true) | head -n 1 | sed 's/.*="\(.*\)"/\1/')"
+  broken="$( (grep -o 'data-broken-images="[^"]*"' "$dom" || true) | sed -n '1s/.*="\(.*\)"/\1/p')"
   local images
   images="$( (grep -o '<img ' "$dom" || true) | wc -l)"
   if [ "$broken" != "0" ]; then
