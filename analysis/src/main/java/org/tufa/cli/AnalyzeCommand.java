@@ -24,6 +24,9 @@ import org.tufa.analysis.fleet.FleetAnalysis;
 import org.tufa.analysis.fleet.FleetOutputs;
 import org.tufa.analysis.fleet.FleetReport;
 import org.tufa.analysis.fleet.UnitFiles;
+import org.tufa.analysis.fleet.UnitSink;
+import org.tufa.analysis.report.FleetPage;
+import org.tufa.analysis.report.UnitPages;
 import org.tufa.analysis.trends.TimeOptions;
 import org.tufa.common.InputException;
 import picocli.CommandLine.Command;
@@ -35,7 +38,8 @@ import picocli.CommandLine.Spec;
 @Command(name = "analyze", mixinStandardHelpOptions = true,
         description = {"Run the detection on every analysable terminal unit, per operating mode: trends, modes, load "
                 + "band, PCA, OPTICS, clusters, candidate faults.",
-            "Writes DIR/fleet.csv, DIR/findings.csv, DIR/ranking.csv, DIR/run.json and DIR/units/. Findings are "
+            "Writes DIR/fleet.csv, DIR/findings.csv, DIR/ranking.csv, DIR/run.json, DIR/units/ and the HTML report "
+                + "DIR/report/index.html (opens offline in any browser). Findings are "
                 + "candidates for review by qualified staff, never commands to equipment."})
 public final class AnalyzeCommand implements Callable<Integer> {
 
@@ -97,6 +101,9 @@ public final class AnalyzeCommand implements Callable<Integer> {
     @Option(names = "--strict", description = "Stop at the first unparsable trend value instead of counting it.")
     boolean strict;
 
+    @Option(names = "--no-report", description = "Skip the HTML report (DIR/report/index.html and one page per unit).")
+    boolean noReport;
+
     @Override
     public Integer call() {
         PrintWriter stdout = spec.commandLine().getOut();
@@ -123,14 +130,23 @@ public final class AnalyzeCommand implements Callable<Integer> {
                 causes == null ? defaults.causes() : CauseTable.load(causes));
         ProgressBar bar = new ProgressBar(stderr, "units");
         long start = System.nanoTime();
+        List<UnitSink> sinks = new ArrayList<>();
+        sinks.add(new UnitFiles(out, zone));
+        if (!noReport) {
+            sinks.add(new UnitPages(out, zone)); // unit pages and charts render in the worker threads
+        }
         FleetAnalysis.Result result = FleetAnalysis.run(assessed.coverage(), trends, time, settings,
-                Math.max(1, threads), List.of(new UnitFiles(out, zone)), bar::update);
+                Math.max(1, threads), sinks, bar::update);
         CoverageFiles.write(assessed.coverage(), out);
         List<Path> inputs = new ArrayList<>();
         inputs.add(fleet.model);
         inputs.addAll(trends);
         FleetOutputs.write(out, result, zone, parameters(settings, time, zone), inputs);
+        Path report = noReport ? null : FleetPage.write(FleetPage.reportDir(out), result, assessed.coverage(), zone);
         FleetReport.summary(result, assessed.coverage(), out).forEach(stdout::println);
+        if (report != null) {
+            stdout.println("Report: " + report);
+        }
         stderr.printf(java.util.Locale.ROOT, "time: %.1f s wall; per stage (summed over threads): %s%n",
                 (System.nanoTime() - start) / 1e9, result.times().summary());
         stdout.flush();

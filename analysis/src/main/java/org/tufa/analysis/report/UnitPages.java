@@ -1,0 +1,293 @@
+package org.tufa.analysis.report;
+
+import java.awt.Color;
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Duration;
+import java.time.ZoneId;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import org.tufa.analysis.features.UnitSignals;
+import org.tufa.analysis.findings.ClusterSummary;
+import org.tufa.analysis.findings.DirectionCheck;
+import org.tufa.analysis.findings.Finding;
+import org.tufa.analysis.fleet.ModeResult;
+import org.tufa.analysis.fleet.UnitAnalysis;
+import org.tufa.analysis.fleet.UnitOutcome;
+import org.tufa.analysis.fleet.UnitSink;
+import org.tufa.analysis.modes.OperatingMode;
+
+/**
+ * Writes one report page per unit, {@code DIR/report/units/<folder>/index.html}, with its charts beside it, while
+ * the unit's signals are still in memory (a {@link UnitSink}, called from the worker threads). Writes nothing
+ * outside the unit's own folder, so units render in parallel.
+ */
+public final class UnitPages implements UnitSink {
+
+    /** Chart sizes in pixels: small enough for 150 units to stay well under 30 MB. */
+    static final int STRIP_WIDTH = 900;
+    static final int STRIP_HEIGHT = 520;
+    static final int REACH_WIDTH = 720;
+    static final int REACH_HEIGHT = 300;
+    static final int BIPLOT_SIZE = 600;
+    /** Most points a biplot shows (display only; every sample is clustered). */
+    static final int BIPLOT_POINTS = 2000;
+    /** Most points per strip line (display only). */
+    static final int STRIP_POINTS = 2500;
+
+    private final Path unitsDir;
+    private final ZoneId zone;
+
+    /** @param outDir the run's output directory; pages go below {@code outDir/report/units} */
+    public UnitPages(Path outDir, ZoneId zone) {
+        Charts.init();
+        this.unitsDir = FleetPage.reportDir(outDir).resolve("units");
+        this.zone = zone;
+    }
+
+    @Override
+    public void accept(UnitOutcome o, UnitSignals signals) {
+        Path dir = unitsDir.resolve(o.folder());
+        if (!dir.normalize().startsWith(unitsDir.normalize())) {
+            throw new IllegalStateException("unit folder escapes the report folder: " + o.folder());
+        }
+        try {
+            Files.createDirectories(dir);
+            Files.writeString(dir.resolve("index.html"), page(o, signals, dir), StandardCharsets.UTF_8);
+        } catch (IOException e) {
+            throw new UncheckedIOException("cannot write " + dir + ": " + e.getMessage(), e);
+        }
+    }
+
+    private String page(UnitOutcome o, UnitSignals signals, Path dir) {
+        String name = o.label().isEmpty() ? o.unit() : o.label();
+        StringBuilder b = new StringBuilder(16_384);
+        Html.open(b, name + " - tufa unit report", "Unit " + name);
+        b.append("<p><a href=\"../../index.html\">&larr; Fleet report</a></p>\n");
+        b.append("<p>Unit: <code>").append(Html.esc(o.unit())).append("</code>. Status: <strong")
+                .append(o.status().equals(UnitOutcome.FAILED) ? " class=\"failed\"" : "").append('>')
+                .append(Html.esc(o.status())).append("</strong>");
+        if (!o.reason().isEmpty()) {
+            b.append(" &mdash; ").append(Html.esc(o.reason()));
+        }
+        b.append(".</p>\n");
+        UnitAnalysis.Result r = o.result();
+        if (r != null) {
+            b.append("<p>Fault hours ").append(Html.fixed(o.faultHours(), 1)).append(" h, estimated sensible "
+                    + "energy moved during findings ").append(Html.fixed(o.faultEnergyKwh(), 0)).append(" kWh, ")
+                    .append(o.findings().size()).append(" finding(s).</p>\n");
+        }
+        b.append("<h2>Notes</h2>\n");
+        if (o.notes().isEmpty()) {
+            b.append("<p>No data-quality notes.</p>\n");
+        } else {
+            b.append("<ul>\n");
+            o.notes().forEach(n -> b.append("<li>").append(Html.esc(n)).append("</li>\n"));
+            b.append("</ul>\n");
+        }
+        if (r == null) {
+            Html.close(b);
+            return b.toString();
+        }
+        modeCounts(b, r);
+        if (signals != null) {
+            Charts.writePng(strips(name, signals, r, o.findings()), STRIP_WIDTH, STRIP_HEIGHT,
+                    dir.resolve("strips.png"));
+            int factor = stripFactor(r.interval(), signals.size());
+            b.append("<h2>Signals over the period</h2>\n<figure><img src=\"strips.png\" width=\"").append(STRIP_WIDTH)
+                    .append("\" height=\"").append(STRIP_HEIGHT).append("\" alt=\"Time series of ")
+                    .append(Html.esc(name)).append(": temperatures, valve commands, fan and load, with findings "
+                            + "shaded\">\n<figcaption>Means over blocks of ")
+                    .append(describe(r.interval().multipliedBy(factor)))
+                    .append(" (display only; the analysis uses every sample), plotted at each block's start. "
+                            + "Shaded: findings (numbered F1, F2, ... as in the findings table below when there are at most eight; vermillion = fault cluster, "
+                            + "yellow = sustained load outside the band, reddish purple = simultaneous heating "
+                            + "and cooling). Fan: share of the time running, in %. Load: sensible load estimated "
+                            + "from airflow and the zone-to-discharge temperature difference.</figcaption>"
+                            + "</figure>\n");
+        }
+        findings(b, o);
+        for (ModeResult m : r.modeResults()) {
+            mode(b, m, r, dir, name);
+        }
+        Html.close(b);
+        return b.toString();
+    }
+
+    private static void modeCounts(StringBuilder b, UnitAnalysis.Result r) {
+        b.append("<h2>Samples per operating mode</h2>\n<table>\n<thead><tr>");
+        Map<OperatingMode, Integer> counts = r.modes().countsByMode();
+        counts.keySet().forEach(m -> b.append("<th class=\"num\">").append(m.label()).append("</th>"));
+        b.append("</tr></thead>\n<tbody><tr>");
+        counts.values().forEach(c -> b.append("<td class=\"num\">").append(c).append("</td>"));
+        b.append("</tr></tbody>\n</table>\n");
+        if (r.modes().fanInferred()) {
+            b.append("<p class=\"small\">No fan signal: the fan was taken as running whenever a valve was open."
+                    + "</p>\n");
+        }
+    }
+
+    private void findings(StringBuilder b, UnitOutcome o) {
+        b.append("<h2>Findings</h2>\n");
+        if (o.findings().isEmpty()) {
+            b.append("<p>No findings.</p>\n");
+            return;
+        }
+        b.append("<table>\n<thead><tr><th>#</th><th>mode</th><th>kind</th><th>cluster</th><th>start</th>"
+                + "<th>end</th><th class=\"num\">hours</th><th class=\"num\">energy (kWh)</th>"
+                + "<th>shift from normal</th><th>candidate causes (verify on site)</th></tr></thead>\n<tbody>\n");
+        int k = 1;
+        for (Finding f : o.findings()) {
+            b.append("<tr><td>F").append(k++).append("</td><td>").append(Html.esc(f.mode())).append("</td><td>")
+                    .append(Html.esc(f.kind())).append("</td><td>")
+                    .append(f.cluster() < 0 ? "" : "C" + f.cluster()).append("</td><td class=\"t\">")
+                    .append(Times.local(f.start(), zone)).append("</td><td class=\"t\">")
+                    .append(Times.local(f.end(), zone))
+                    .append("</td><td class=\"num\">").append(Html.fixed(f.hours(), 1))
+                    .append("</td><td class=\"num\">").append(Html.fixed(f.energyKwh(), 1)).append("</td><td>")
+                    .append(Html.shifts(f.shifts())).append("</td><td>");
+            list(b, f.causes());
+            b.append("</td></tr>\n");
+        }
+        b.append("</tbody>\n</table>\n");
+    }
+
+    private static void list(StringBuilder b, List<String> items) {
+        if (items.isEmpty()) {
+            return;
+        }
+        b.append("<ul>");
+        items.forEach(c -> b.append("<li>").append(Html.esc(c)).append("</li>"));
+        b.append("</ul>");
+    }
+
+    private static void mode(StringBuilder b, ModeResult m, UnitAnalysis.Result r, Path dir, String name) {
+        b.append("<h2>Mode: ").append(Html.esc(m.mode())).append("</h2>\n");
+        if (!m.analyzed()) {
+            b.append("<p>Not clustered: ").append(Html.esc(m.reason())).append(" (").append(m.modeSamples())
+                    .append(" samples in this mode).</p>\n");
+            return;
+        }
+        b.append("<p>").append(m.modeSamples()).append(" samples in ").append(Html.esc(m.mode())).append(", ")
+                .append(m.features().size()).append(" clustered");
+        if (m.band() != null) {
+            b.append(" (inside the load band)");
+        }
+        b.append("; PCA kept ").append(m.pca().componentCount()).append(" component(s) explaining ")
+                .append(Html.fixed(100 * m.pca().explainedVariance(), 0)).append(" % of the variance.</p>\n");
+        clusterTable(b, m);
+        ModeCharts.Drawn drawn = ModeCharts.draw(m, name, dir);
+        b.append("<figure><img src=\"").append(drawn.reachabilityFile()).append("\" width=\"").append(REACH_WIDTH)
+                .append("\" height=\"").append(REACH_HEIGHT).append("\" alt=\"Reachability plot, ")
+                .append(Html.esc(m.mode())).append("\">\n<figcaption>OPTICS reachability plot (Ankerst, Breunig, "
+                        + "Kriegel and Sander, SIGMOD 1999): one bar per clustered sample in processing order; "
+                        + "valleys are dense regions. Bars coloured by cluster, noise grey; the brackets under the "
+                        + "axis mark each extracted xi cluster's span of the ordering (C0 = normal, the largest). "
+                        + "Distances are in standardised PCA-score units (features scaled to unit variance). "
+                        + "Undefined reachability (first sample of a region) is drawn at the top.</figcaption>"
+                        + "</figure>\n");
+        b.append("<figure><img src=\"").append(drawn.biplotFile()).append("\" width=\"").append(BIPLOT_SIZE)
+                .append("\" height=\"").append(BIPLOT_SIZE).append("\" alt=\"PCA biplot, ")
+                .append(Html.esc(m.mode())).append("\">\n<figcaption>").append(drawn.caption())
+                .append("</figcaption></figure>\n");
+    }
+
+    private static void clusterTable(StringBuilder b, ModeResult m) {
+        b.append("<table>\n<thead><tr><th>cluster</th><th class=\"num\">samples</th><th>judged</th>"
+                + "<th>direction check</th><th>shift from normal</th><th>candidate causes</th></tr></thead>\n"
+                + "<tbody>\n");
+        for (ClusterSummary c : m.clusters()) {
+            String judged = c.label() == 0 ? "normal (largest)" : c.candidateFault() ? "candidate fault"
+                    : "other regime of normal operation";
+            b.append("<tr><td><span class=\"swatch\" style=\"background:")
+                    .append(Palette.hex(Palette.cluster(c.label()))).append("\"></span>C").append(c.label())
+                    .append("</td><td class=\"num\">").append(c.size()).append("</td><td>").append(judged)
+                    .append("</td><td>").append(direction(c.direction())).append("</td><td>")
+                    .append(Html.shifts(c.shifts())).append("</td><td>");
+            list(b, c.causes());
+            b.append("</td></tr>\n");
+        }
+        int noise = 0;
+        for (int l : m.labels()) {
+            noise += l < 0 ? 1 : 0;
+        }
+        b.append("<tr><td><span class=\"swatch\" style=\"background:").append(Palette.hex(Palette.NOISE_GREY))
+                .append("\"></span>noise</td><td class=\"num\">").append(noise)
+                .append("</td><td>ignored</td><td></td><td></td><td></td></tr>\n</tbody>\n</table>\n");
+    }
+
+    private static String direction(DirectionCheck.Outcome d) {
+        if (d == null) {
+            return "not applicable";
+        }
+        return switch (d) {
+            case AS_EXPECTED -> "discharge follows the valve as expected";
+            case FAILS -> "discharge does not follow the valve";
+            case INCONCLUSIVE -> "inconclusive (valve barely moved)";
+        };
+    }
+
+    static int stripFactor(Duration interval, int samples) {
+        long perHour = Math.max(1, Math.round(3_600_000.0 / Math.max(1, interval.toMillis())));
+        long factor = Math.max(perHour, (samples + STRIP_POINTS - 1) / STRIP_POINTS);
+        return (int) factor;
+    }
+
+    private static String describe(Duration d) {
+        long minutes = d.toMinutes();
+        if (minutes % 60 == 0) {
+            long h = minutes / 60;
+            return h == 1 ? "one hour" : h + " hours";
+        }
+        return minutes + " minutes";
+    }
+
+    private org.jfree.chart.JFreeChart strips(String name, UnitSignals s, UnitAnalysis.Result r, List<Finding> findings) {
+        int factor = stripFactor(r.interval(), s.size());
+        int blocks = (s.size() + factor - 1) / factor;
+        long[] times = new long[blocks];
+        for (int i = 0; i < blocks; i++) {
+            times[i] = r.time(i * factor).toEpochMilli();
+        }
+        List<Charts.Strip> strips = new ArrayList<>();
+        List<Charts.Line> temps = new ArrayList<>();
+        add(temps, "zone air (degC)", s.zoneAirTemperature(), factor, Palette.BLUE, false);
+        add(temps, "discharge air (degC)", s.dischargeAirTemperature(), factor, Palette.VERMILLION, false);
+        add(temps, "zone setpoint (degC)", s.zoneSetpoint(), factor, Palette.BLACK, true);
+        strips.add(new Charts.Strip("temperature (degC)", temps));
+        List<Charts.Line> commands = new ArrayList<>();
+        add(commands, "cooling valve (%)", s.coolingValveCommand(), factor, Palette.SKY_BLUE, false);
+        add(commands, "heating valve (%)", s.heatingValveCommand(), factor, Palette.ORANGE, false);
+        double[] fan = s.fanFraction().clone();
+        for (int i = 0; i < fan.length; i++) {
+            fan[i] *= 100;
+        }
+        add(commands, "fan running (% of time)", fan, factor, Palette.BLUISH_GREEN, true);
+        strips.add(new Charts.Strip("command (%)", commands));
+        List<Charts.Line> load = new ArrayList<>();
+        add(load, "sensible load (kW)", r.loadKw(), factor, Palette.REDDISH_PURPLE, false);
+        strips.add(new Charts.Strip("load (kW)", load));
+        strips.removeIf(st -> st.lines().isEmpty());
+        List<Charts.Shade> shades = new ArrayList<>();
+        int k = 1;
+        for (Finding f : findings) {
+            Color c = f.kind().equals("fault_cluster") ? Palette.VERMILLION
+                    : f.kind().startsWith("out_of_band") ? Palette.YELLOW : Palette.REDDISH_PURPLE;
+            shades.add(new Charts.Shade(f.start().toEpochMilli(), f.end().toEpochMilli(), c,
+                    findings.size() <= 8 ? "F" + k : null));
+            k++;
+        }
+        return Charts.strips(name + ": signals and findings", times, strips, shades, zone);
+    }
+
+    private static void add(List<Charts.Line> lines, String name, double[] values, int factor, Color colour,
+                            boolean dashed) {
+        if (UnitSignals.present(values)) {
+            lines.add(new Charts.Line(name, Thinning.blockMeans(values, factor), colour, dashed));
+        }
+    }
+}
