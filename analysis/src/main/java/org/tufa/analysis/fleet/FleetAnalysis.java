@@ -133,7 +133,7 @@ public final class FleetAnalysis {
             List<String> notes = new ArrayList<>(p.notes());
             for (String valve : List.of("cooling_valve_command", "heating_valve_command")) {
                 if (!in.points().containsKey(valve)) {
-                    notes.add(valve + ": not found in the model; operating modes treat that valve as shut");
+                    notes.add(valve + ": not found in the model; operating modes treat that valve as shut, and fan-only (ventilation) samples cannot be told from it, so they are left out");
                 }
             }
             if (!in.airflowFromModel()) {

@@ -18,6 +18,8 @@ import org.tufa.analysis.cluster.PcaResult;
 import org.tufa.analysis.features.FeatureMatrix;
 import org.tufa.analysis.features.ModeFeatures;
 import org.tufa.analysis.features.UnitSignals;
+import org.tufa.analysis.features.ValveActivity;
+import org.tufa.analysis.findings.BalanceRules;
 import org.tufa.analysis.findings.ClusterShifts;
 import org.tufa.analysis.findings.ClusterSummary;
 import org.tufa.analysis.findings.DirectionCheck;
@@ -29,6 +31,7 @@ import org.tufa.analysis.findings.Shift;
 import org.tufa.analysis.load.SensibleLoad;
 import org.tufa.analysis.modes.FanSignal;
 import org.tufa.analysis.modes.ModeSplit;
+import org.tufa.analysis.modes.ModeThresholds;
 import org.tufa.analysis.modes.OperatingMode;
 import org.tufa.analysis.modes.OperatingModes;
 
@@ -83,14 +86,7 @@ public final class UnitAnalysis {
     public static Result run(UnitSignals s, FanSignal fanSignal, double nominalAirflow, AnalysisSettings settings,
                              StageTimes times) {
         int n = s.size();
-        // A valve the unit has no command for counts as shut (null), as for a unit without that coil; the fleet
-        // runner notes it for the reader.
-        ModeSplit modes = OperatingModes.classify(
-                fanSignal == FanSignal.NONE || !UnitSignals.present(s.fanFraction()) ? null : s.fanFraction(),
-                UnitSignals.present(s.fanFraction()) ? fanSignal : FanSignal.NONE,
-                UnitSignals.present(s.coolingValveCommand()) ? s.coolingValveCommand() : null,
-                UnitSignals.present(s.heatingValveCommand()) ? s.heatingValveCommand() : null,
-                settings.modeThresholds());
+        ModeSplit modes = classify(s, fanSignal, settings.modeThresholds());
         double[] fan = s.fanFraction();
         if (fanSignal == FanSignal.NONE || !UnitSignals.present(s.fanFraction())) {
             // Without a fan signal the fan counts as running whenever the unit is in a coil mode (inferred above).
@@ -105,7 +101,8 @@ public final class UnitAnalysis {
 
         findings.addAll(ruleFindings(modes.mask(OperatingMode.SIMULTANEOUS), "simultaneous_heating_cooling", s, load,
                 settings));
-        findings.addAll(ruleFindings(hunting(modes), "mode_hunting", s, load, settings));
+        findings.addAll(ruleFindings(hunting(s, fanSignal, settings), "mode_hunting", s, load, settings));
+        findings.addAll(balanceFindings(modes, s, load, settings));
         for (String mode : ModeFeatures.CLUSTERED_MODES) {
             OperatingMode m = OperatingMode.valueOf(mode.toUpperCase(java.util.Locale.ROOT));
             results.add(mode(mode, m, s, modes, load, bandState, findings, settings, times));
@@ -271,21 +268,114 @@ public final class UnitAnalysis {
     }
 
     /**
-     * Samples in a stretch with at least 3 mode changes within a 2-hour window (8 samples at 15 minutes): the unit
-     * hunts. A change is a settling (transition) sample, which the mode split puts after every change, or a
-     * direct change between running modes; a daily start-up or stop gives one, so it never qualifies (common
-     * practice, no source).
+     * Samples in a stretch with at least 3 changes between running modes (cooling, heating, ventilation,
+     * simultaneous) within a 2-hour window (8 samples at 15 minutes) while a valve swings by at least
+     * {@link #HUNTING_ACTIVITY} percent per sample on average: the unit hunts. Changes are counted on the modes
+     * before settling, and a fan starting or stopping (to or from off) is not a change, so unoccupied fan cycling
+     * never counts; the swing condition keeps a valve that settles near the open threshold (flipping between
+     * fan-only and cooling at low load) from counting (common practice, no source).
      */
-    private static boolean[] hunting(ModeSplit modes) {
-        byte[] codes = modes.codes();
+    private static boolean[] hunting(UnitSignals s, FanSignal fanSignal, AnalysisSettings settings) {
+        ModeSplit raw = classify(s, fanSignal, settings.modeThresholds().withSettlingSamples(0));
+        byte[] codes = raw.codes();
         boolean[] changed = new boolean[codes.length];
         for (int i = 1; i < codes.length; i++) {
             OperatingMode m = OperatingMode.ofCode(codes[i]);
             OperatingMode previous = OperatingMode.ofCode(codes[i - 1]);
-            changed[i] = m == OperatingMode.TRANSITION || (m != previous && running(m) && running(previous));
+            changed[i] = m != previous && running(m) && running(previous);
         }
-        return ModeHunting.flags(changed, 4, 3);
+        boolean[] flags = ModeHunting.flags(changed, 4, 3);
+        double[] cooling = ValveActivity.of(s.coolingValveCommand(), ModeFeatures.ACTIVITY_HALF_WINDOW);
+        double[] heating = ValveActivity.of(s.heatingValveCommand(), ModeFeatures.ACTIVITY_HALF_WINDOW);
+        for (int i = 0; i < flags.length; i++) {
+            double swing = Math.max(Double.isNaN(cooling[i]) ? 0 : cooling[i], Double.isNaN(heating[i]) ? 0 : heating[i]);
+            flags[i] &= swing >= HUNTING_ACTIVITY;
+        }
+        return flags;
     }
+
+    /**
+     * The mode energy-balance rules ({@link BalanceRules}) on the discharge and zone temperatures, each sample
+     * smoothed by the same running median as the features so a spike cannot fail a rule. Tolerance: twice the
+     * residual gate (two sensors, each within about 1.1 K) in ventilation, once in heating and cooling, where the
+     * coil drives the difference well past it.
+     */
+    private static List<Finding> balanceFindings(ModeSplit modes, UnitSignals s, double[] load,
+                                                 AnalysisSettings settings) {
+        if (!UnitSignals.present(s.dischargeAirTemperature()) || !UnitSignals.present(s.zoneAirTemperature())) {
+            return List.of();
+        }
+        List<Finding> out = new ArrayList<>();
+        double eps = settings.residualGate();
+        record Rule(OperatingMode mode, String kind, double tolerance) {
+        }
+        for (Rule rule : List.of(new Rule(OperatingMode.HEATING, "heating_without_heat", eps),
+                new Rule(OperatingMode.COOLING, "cooling_without_cooling", eps),
+                new Rule(OperatingMode.VENTILATION, "ventilation_offset", 2 * eps))) {
+            boolean[] in = modes.mask(rule.mode());
+            int n = 0;
+            for (boolean b : in) {
+                n += b ? 1 : 0;
+            }
+            int[] idx = new int[n];
+            double[] difference = new double[n];
+            int k = 0;
+            for (int i = 0; i < in.length; i++) {
+                if (in[i]) {
+                    idx[k] = i;
+                    difference[k++] = s.dischargeAirTemperature()[i] - s.zoneAirTemperature()[i];
+                }
+            }
+            double[] smooth = org.tufa.analysis.features.RollingMedian.of(difference, 2);
+            boolean[] failed = new boolean[in.length];
+            for (int j = 0; j < n; j++) {
+                double d = smooth[j];
+                if (Double.isNaN(d)) {
+                    continue;
+                }
+                failed[idx[j]] = switch (rule.mode()) {
+                    case HEATING -> BalanceRules.heatingWithoutHeat(0, d, rule.tolerance());
+                    case COOLING -> BalanceRules.coolingWithoutCooling(0, d, rule.tolerance());
+                    default -> BalanceRules.ventilationOffset(0, d, rule.tolerance());
+                };
+            }
+            String mode = rule.mode().label();
+            for (IndexRange r : Intervals.runs(failed, settings.bridgeSamples(), settings.minFindingSamples())) {
+                out.add(finding(mode, rule.kind(), -1, r, s, load, List.of(),
+                        settings.causes().causes(rule.kind(), List.of(), null)));
+            }
+        }
+        return out;
+    }
+
+    /**
+     * Modes per sample. A valve the unit has no command for counts as shut, so the other coil's modes are still
+     * found (the fleet runner notes it); but "both valves shut" cannot be known then, so what would be ventilation
+     * becomes no_data: a real cooling valve, open and unseen, must not pass for fan-only operation.
+     */
+    private static ModeSplit classify(UnitSignals s, FanSignal fanSignal, ModeThresholds thresholds) {
+        boolean fan = fanSignal != FanSignal.NONE && UnitSignals.present(s.fanFraction());
+        boolean cooling = UnitSignals.present(s.coolingValveCommand());
+        boolean heating = UnitSignals.present(s.heatingValveCommand());
+        ModeSplit split = OperatingModes.classify(fan ? s.fanFraction() : null, fan ? fanSignal : FanSignal.NONE,
+                cooling ? s.coolingValveCommand() : null, heating ? s.heatingValveCommand() : null, thresholds);
+        if (cooling && heating) {
+            return split;
+        }
+        byte[] codes = split.codes().clone();
+        int[] counts = split.counts().clone();
+        for (int i = 0; i < codes.length; i++) {
+            if (codes[i] == OperatingMode.VENTILATION.code()) {
+                codes[i] = OperatingMode.NO_DATA.code();
+                counts[OperatingMode.VENTILATION.code()]--;
+                counts[OperatingMode.NO_DATA.code()]++;
+            }
+        }
+        return new ModeSplit(codes, counts, split.fanInferred());
+    }
+
+    /** Valve swing (mean absolute change per sample, percent) that makes mode changes hunting. */
+    static final double HUNTING_ACTIVITY = 10.0;
 
     private static boolean running(OperatingMode m) {
         return m == OperatingMode.COOLING || m == OperatingMode.HEATING || m == OperatingMode.VENTILATION
