@@ -45,7 +45,7 @@ public record AnalysisSettings(
     /**
      * Defaults for unattended fleet runs at 15-minute samples. MinPts 20 and 90 % variance follow the published
      * PCA + OPTICS practice (Ankerst et al. 1999 found MinPts 10-20 works well, from memory; Jolliffe 2002 s. 6.1
-     * for 70-90 % variance). Findings need 8 samples (2 hours) with gaps of up to 4 samples (1 hour) bridged; the
+     * for 70-90 % variance). Findings need 8 samples (2 hours) with gaps of up to 12 samples (3 hours) bridged; the
      * 1.1 K gate is about the combined uncertainty of two air temperature sensors (ASHRAE Guideline 36 uses
      * 2 F per sensor, from memory); the 2 K zone-error gate is Guideline 36's zone temperature alarm
      * threshold (2 K above the cooling setpoint, from memory via the Modelica Buildings Library's implementation). Default airflow 0.19 m3/s (400 cfm, one nominal ton: 350-400 cfm per ton is
@@ -53,7 +53,7 @@ public record AnalysisSettings(
      */
     public static AnalysisSettings defaults() {
         return new AnalysisSettings(ModeThresholds.defaults(), BandKind.TUKEY, new RunOptions(8, 2), 0.90, 20,
-                AutoParameters.DEFAULT, 96, 8, 4, 1.1, 2.0, 2.0, 400 * 0.3048 * 0.3048 * 0.3048 / 60.0,
+                AutoParameters.DEFAULT, 96, 8, 12, 1.1, 2.0, 2.0, 400 * 0.3048 * 0.3048 * 0.3048 / 60.0,
                 CauseTable.standard());
     }
 

@@ -161,22 +161,41 @@ public final class UnitAnalysis {
         AutoClusters clusters = Extraction.auto(optics, settings.extraction());
         int[] labels = clusters.labels();
         List<ClusterSummary> summaries = summarise(name, features, labels, clusters.clusterCount(), settings);
-        for (ClusterSummary c : summaries) {
-            if (!c.candidateFault()) {
-                continue;
+        // Samples of all candidate-fault clusters together, so one fault that OPTICS split into neighbouring
+        // clusters gives one finding per interval, not one per cluster; each interval is described by the
+        // cluster holding most of its samples.
+        int[] clusterAt = new int[s.size()];
+        java.util.Arrays.fill(clusterAt, -1);
+        boolean[] flagged = new boolean[s.size()];
+        for (int k = 0; k < labels.length; k++) {
+            if (labels[k] > 0 && summaries.get(labels[k]).candidateFault()) {
+                flagged[features.sampleIndex()[k]] = true;
+                clusterAt[features.sampleIndex()[k]] = labels[k];
             }
-            boolean[] flagged = new boolean[s.size()];
-            for (int k = 0; k < labels.length; k++) {
-                if (labels[k] == c.label()) {
-                    flagged[features.sampleIndex()[k]] = true;
-                }
-            }
-            for (IndexRange r : Intervals.runs(flagged, settings.bridgeSamples(), settings.minFindingSamples())) {
-                findings.add(finding(name, "fault_cluster", c.label(), r, s, load, c.shifts(), c.causes()));
-            }
+        }
+        for (IndexRange r : Intervals.runs(flagged, settings.bridgeSamples(), settings.minFindingSamples())) {
+            ClusterSummary c = summaries.get(dominant(clusterAt, r, summaries.size()));
+            findings.add(finding(name, "fault_cluster", c.label(), r, s, load, c.shifts(), c.causes()));
         }
         times.add(StageTimes.Stage.FINDINGS, System.nanoTime() - t3);
         return new ModeResult(name, true, "", modeSamples, band, features, pca, optics, labels, summaries);
+    }
+
+    /** The cluster with most samples in the range (lowest label on a tie). */
+    private static int dominant(int[] clusterAt, IndexRange r, int clusters) {
+        int[] count = new int[clusters];
+        for (int i = r.start(); i < r.end(); i++) {
+            if (clusterAt[i] > 0) {
+                count[clusterAt[i]]++;
+            }
+        }
+        int best = 1;
+        for (int c = 1; c < clusters; c++) {
+            if (count[c] > count[best]) {
+                best = c;
+            }
+        }
+        return best;
     }
 
     /** Shifts, direction check, gate and causes of every cluster against cluster 0 (the largest = normal). */
