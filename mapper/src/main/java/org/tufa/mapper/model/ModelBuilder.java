@@ -29,7 +29,8 @@ import org.tufa.vocabulary.Namespaces;
  * <p>Written: the building (brick:Building, rdfs:label); each equipment (its class, rdfs:label = id,
  * brick:hasLocation, brick:feeds / brick:isFedBy, brick:hasPart / brick:isPartOf to its parts, tufa:nominalAirflow);
  * each location (brick:isPartOf the previous one in the rule's chain, the first isPartOf the building, with the
- * inverse brick:hasPart); each point (its class, rdfs:label = the raw name, brick:isPointOf / brick:hasPoint,
+ * inverse brick:hasPart); each point (its class, rdfs:label = the raw name, brick:isPointOf / brick:hasPoint its
+ * equipment or part, or the building when the rule names no equipment,
  * brick:hasUnit, ref:hasExternalReference to a ref:TimeseriesReference with ref:hasTimeseriesId = the series id or
  * the name, tufa:mappedBy = "file:line" of the rule, the export's other columns). Rows no rule classified are
  * written as plain brick:Point with tufa:mappingStatus, so nothing in the export is lost.
@@ -128,6 +129,11 @@ public final class ModelBuilder {
         add(point, uri(TUFA + "mappedBy"), text(a.ruleLabel()));
         a.unit().ifPresent(u -> add(point, uri(BRICK + "hasUnit"), uri(Namespaces.UNIT + u)));
         if (a.equipment().isEmpty()) {
+            // A classified point that belongs to no equipment (a roof weather sensor, a site meter) is a point of
+            // the building: Brick lets a location have points, and consumers looking for building-wide points
+            // (the outdoor air temperature) find it there.
+            add(building, uri(BRICK + "hasPoint"), point);
+            add(point, uri(BRICK + "isPointOf"), building);
             return;
         }
         Assignment.Equipment eq = a.equipment().get();

@@ -32,7 +32,10 @@ public final class ExportUnits {
         put("KiloW", "kw", "kilowatt", "kilowatts", "48");
         put("KiloW-HR", "kwh", "kw-h", "kilowatt-hours", "kilowatthours", "19");
         put("PA", "pa", "pascal", "pascals", "53");
-        put("IN_H2O", "inh2o", "in h2o", "\"wc", "in. w.c.", "inwc", "58");
+        put("IN_H2O", "inh2o", "in h2o", "\"wc", "in. w.c.", "inwc", "in. wc", "in.wc", "inches of water", "58");
+        put("KiloPA", "kpa", "kilopascal", "kilopascals", "54");
+        put("PSI", "psi", "pounds per square inch", "56");
+        put("MegaW-HR", "mwh", "megawatt-hours", "megawatthours", "146");
         put("PPM", "ppm", "partspermillion", "96");
         put("REV-PER-MIN", "rpm", "revolutionsperminute", "104");
         put("BTU_IT-PER-HR", "btu/h", "btu/hr", "btuh", "50");
