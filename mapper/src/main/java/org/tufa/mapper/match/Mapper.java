@@ -403,7 +403,10 @@ public final class Mapper {
             if (unit.isEmpty()) {
                 SortedSet<String> all = new TreeSet<>(tags);
                 all.addAll(vocabulary.associatedTags(className));
-                for (Map.Entry<String, String> d : rules.unitDefaults()) {
+                // The rule's own unit-for lines first (a contract's convention), then the file's.
+                List<Map.Entry<String, String>> defaults = new ArrayList<>(r.unitDefaults());
+                defaults.addAll(rules.unitDefaults());
+                for (Map.Entry<String, String> d : defaults) {
                     if (all.contains(d.getKey())) {
                         unit = Optional.of(d.getValue());
                         break;

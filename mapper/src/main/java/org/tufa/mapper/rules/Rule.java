@@ -1,6 +1,7 @@
 package org.tufa.mapper.rules;
 
 import java.util.List;
+import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
 import java.util.regex.Pattern;
@@ -25,6 +26,7 @@ import java.util.regex.Pattern;
  * @param feeds things the equipment feeds
  * @param fedBy things that feed the equipment
  * @param unit default QUDT unit for points of this rule when the export gives none
+ * @param unitDefaults this rule's own {@code unit-for} lines (tag -> QUDT unit), tried before the file's
  * @param airflow the equipment's nominal airflow
  * @param compete competition group name (empty: first match wins silently)
  * @param dictionary abbreviations local to this rule, falling back to the file's
@@ -33,7 +35,8 @@ import java.util.regex.Pattern;
 public record Rule(String id, String label, int index, Optional<Pattern> name, Optional<Pattern> description,
         Optional<Pattern> units, Optional<Pattern> device, Set<String> types, Optional<String> pointClass, Template tagSource,
         List<String> extraTags, Optional<EquipmentSpec> equipment, List<PartSpec> parts, List<LinkSpec> locations,
-        List<LinkSpec> feeds, List<LinkSpec> fedBy, Optional<String> unit, Optional<AirflowSpec> airflow,
+        List<LinkSpec> feeds, List<LinkSpec> fedBy, Optional<String> unit, List<Map.Entry<String, String>> unitDefaults,
+        Optional<AirflowSpec> airflow,
         Optional<String> compete, Dictionary dictionary, Optional<String> literalPrefix) {
 
     /** Equipment id template and Brick class. */

@@ -39,7 +39,7 @@ public final class RuleFileParser {
     static final List<String> TOP_KEYWORDS = List.of("building", "base-iri", "abbr", "type-tags", "unit-for", "part",
             "min-score", "expect", "rule");
     static final List<String> RULE_KEYWORDS = List.of("match", "class", "tags", "equipment", "part", "location",
-            "feeds", "fed-by", "unit", "airflow", "compete", "abbr", "expect");
+            "feeds", "fed-by", "unit", "unit-for", "airflow", "compete", "abbr", "expect");
 
     /** Default object-type tags: a hardware input senses, an output commands (BACnet usage, see notes §7). */
     static final Map<String, List<String>> DEFAULT_TYPE_TAGS = Map.of("AI", List.of("Sensor"), "AO",
@@ -300,6 +300,13 @@ public final class RuleFileParser {
                 (keyword.equals("location") ? r.locations : keyword.equals("feeds") ? r.feeds : r.fedBy).add(link);
             }
             case "unit" -> r.unit = once(ln, r.unit, unit(ln, rest), "unit");
+            case "unit-for" -> {
+                String[] w = rest.split("\\s+");
+                if (w.length != 2) {
+                    throw error(ln, "'unit-for' needs 'Tag UNIT', e.g. 'unit-for Temperature DEG_F'");
+                }
+                r.unitDefaults.add(Map.entry(tag(ln, w[0]), unit(ln, w[1])));
+            }
             case "airflow" -> {
                 String[] w = rest.split("\\s+");
                 if (w.length != 2) {
@@ -618,6 +625,7 @@ public final class RuleFileParser {
         final List<Rule.LinkSpec> feeds = new ArrayList<>();
         final List<Rule.LinkSpec> fedBy = new ArrayList<>();
         Optional<String> unit = Optional.empty();
+        final List<Map.Entry<String, String>> unitDefaults = new ArrayList<>();
         Optional<Rule.AirflowSpec> airflow = Optional.empty();
         Optional<String> compete = Optional.empty();
         final List<Dictionary.Entry> abbreviations = new ArrayList<>();
@@ -664,7 +672,8 @@ public final class RuleFileParser {
             String label = fileName + ":" + line;
             return new Rule(id, label, index, name, description, units, device, Set.copyOf(types), pointClass, tagSource,
                     List.copyOf(extraTags), equipment, List.copyOf(parts), List.copyOf(locations), List.copyOf(feeds),
-                    List.copyOf(fedBy), unit, airflow, compete, dict, name.flatMap(RuleFileParser::literalPrefix));
+                    List.copyOf(fedBy), unit, List.copyOf(unitDefaults), airflow, compete, dict,
+                    name.flatMap(RuleFileParser::literalPrefix));
         }
     }
 
