@@ -5,6 +5,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Set;
 import org.apache.jena.rdf.model.Model;
+import org.apache.jena.shared.PrefixMapping;
 import org.tufa.analysis.coverage.Coverage;
 import org.tufa.analysis.coverage.FleetCoverage;
 import org.tufa.analysis.coverage.ModelLoader;
@@ -33,8 +34,8 @@ public final class FleetModelOptions {
             description = "Extra vocabulary: the full Brick file, or your own roles and profiles. Repeatable.")
     List<Path> vocabularies = new ArrayList<>();
 
-    /** The coverage of the chosen fleet, and the model with the vocabulary (for prefixes in messages). */
-    public record Assessed(FleetCoverage coverage, Model all) {
+    /** The coverage of the chosen fleet, and the prefixes to print IRIs with. */
+    public record Assessed(FleetCoverage coverage, PrefixMapping prefixes) {
     }
 
     public Assessed assess() {
@@ -46,7 +47,8 @@ public final class FleetModelOptions {
         var chosen = vocabulary.profiles().profile(profile);
         Model data = ModelLoader.load(model);
         Model all = vocabulary.unionWith(data);
-        Set<String> classes = UnitClasses.resolve(unitClasses, all, all);
-        return new Assessed(Coverage.assess(data, vocabulary, chosen, classes), all);
+        PrefixMapping prefixes = Vocabulary.prefixesFor(data);
+        Set<String> classes = UnitClasses.resolve(unitClasses, all, prefixes);
+        return new Assessed(Coverage.assess(data, vocabulary, chosen, classes), prefixes);
     }
 }

@@ -64,7 +64,7 @@ public final class NameSuggester {
         return (double) hits / (query.size() + candidate.size() - hits);
     }
 
-    /** Classic dynamic-programming edit distance (insert, delete, substitute each cost 1). */
+    /** Edit distance, insert, delete and substitute each costing 1 (Levenshtein, Soviet Physics Doklady 10(8), 1966). */
     public static int levenshtein(String a, String b) {
         int[] prev = new int[b.length() + 1];
         int[] cur = new int[b.length() + 1];

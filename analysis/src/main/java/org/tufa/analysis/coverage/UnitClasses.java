@@ -58,7 +58,7 @@ public final class UnitClasses {
     private static List<String> nearest(String name, Set<String> known, PrefixMapping prefixes) {
         String local = localName(name);
         return known.stream().map(prefixes::shortForm)
-                .sorted(Comparator.<String>comparingInt(k -> distance(localName(k).toLowerCase(java.util.Locale.ROOT),
+                .sorted(Comparator.<String>comparingInt(k -> org.tufa.vocabulary.NameSuggester.levenshtein(localName(k).toLowerCase(java.util.Locale.ROOT),
                         local.toLowerCase(java.util.Locale.ROOT))).thenComparing(Comparator.naturalOrder()))
                 .limit(3).toList();
     }
@@ -66,25 +66,5 @@ public final class UnitClasses {
     private static String localName(String s) {
         int cut = Math.max(Math.max(s.lastIndexOf('#'), s.lastIndexOf('/')), s.lastIndexOf(':'));
         return s.substring(cut + 1).replace(">", "");
-    }
-
-    /** Levenshtein edit distance (Levenshtein, Soviet Physics Doklady 10(8), 1966). */
-    static int distance(String a, String b) {
-        int[] prev = new int[b.length() + 1];
-        int[] cur = new int[b.length() + 1];
-        for (int j = 0; j <= b.length(); j++) {
-            prev[j] = j;
-        }
-        for (int i = 1; i <= a.length(); i++) {
-            cur[0] = i;
-            for (int j = 1; j <= b.length(); j++) {
-                int sub = prev[j - 1] + (a.charAt(i - 1) == b.charAt(j - 1) ? 0 : 1);
-                cur[j] = Math.min(sub, Math.min(prev[j] + 1, cur[j - 1] + 1));
-            }
-            int[] t = prev;
-            prev = cur;
-            cur = t;
-        }
-        return prev[b.length()];
     }
 }
