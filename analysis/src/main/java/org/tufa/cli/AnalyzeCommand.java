@@ -24,6 +24,7 @@ import org.tufa.analysis.fleet.FleetAnalysis;
 import org.tufa.analysis.fleet.FleetOutputs;
 import org.tufa.analysis.fleet.FleetReport;
 import org.tufa.analysis.fleet.UnitFiles;
+import org.tufa.analysis.modes.ModeThresholds;
 import org.tufa.analysis.fleet.UnitSink;
 import org.tufa.analysis.report.FleetPage;
 import org.tufa.analysis.report.UnitPages;
@@ -80,6 +81,19 @@ public final class AnalyzeCommand implements Callable<Integer> {
             description = "Load band: iqr (Q1..Q3), tukey (Q1-1.5 IQR..Q3+1.5 IQR) or none (default: ${DEFAULT-VALUE}).")
     String band;
 
+    @Option(names = "--valve-open", paramLabel = "PERCENT", defaultValue = "5",
+            description = "A valve command above this counts as open when splitting modes (default: ${DEFAULT-VALUE}).")
+    double valveOpen;
+
+    @Option(names = "--fan-on", paramLabel = "FRACTION", defaultValue = "0.5",
+            description = "A fan status on for at least this share of a sample counts as running "
+                    + "(default: ${DEFAULT-VALUE}); a fan speed above 0 always does.")
+    double fanOn;
+
+    @Option(names = "--settling", paramLabel = "SAMPLES", defaultValue = "1",
+            description = "Samples after a mode change left out as transition (default: ${DEFAULT-VALUE}).")
+    int settling;
+
     @Option(names = "--min-pts", paramLabel = "N", defaultValue = "20", description = "OPTICS MinPts (default: ${DEFAULT-VALUE}).")
     int minPts;
 
@@ -108,12 +122,6 @@ public final class AnalyzeCommand implements Callable<Integer> {
     public Integer call() {
         PrintWriter stdout = spec.commandLine().getOut();
         PrintWriter stderr = spec.commandLine().getErr();
-        FleetModelOptions.Assessed assessed = fleet.assess();
-        if (assessed.coverage().units().isEmpty()) {
-            stdout.println("Nothing to analyse in " + fleet.model + ": no terminal units of the requested classes.");
-            stdout.flush();
-            return ExitCodes.CHECK_FAILED;
-        }
         ZoneId zone = zone();
         TimeOptions time;
         try {
@@ -123,11 +131,28 @@ public final class AnalyzeCommand implements Callable<Integer> {
             throw new InputException("--interval, --max-gap, --from or --to: " + e.getMessage());
         }
         AnalysisSettings defaults = AnalysisSettings.defaults();
-        AnalysisSettings settings = new AnalysisSettings(defaults.modeThresholds(), bandKind(), defaults.bandRuns(),
+        if (!(valveOpen >= 0 && valveOpen < 100) || !(fanOn > 0 && fanOn <= 1) || settling < 0) {
+            throw new InputException("--valve-open must be 0..100, --fan-on in (0, 1] and --settling >= 0; got "
+                    + valveOpen + ", " + fanOn + ", " + settling);
+        }
+        if (minPts < 2 || !(variance > 0 && variance <= 1) || !(xi > 0 && xi < 1)) {
+            throw new InputException("--min-pts must be >= 2, --variance in (0, 1] and --xi in (0, 1); got "
+                    + minPts + ", " + variance + ", " + xi);
+        }
+        ModeThresholds modes = new ModeThresholds(valveOpen, fanOn, defaults.modeThresholds().fanSpeedOnFraction(),
+                settling);
+        AnalysisSettings settings = new AnalysisSettings(modes, bandKind(), defaults.bandRuns(),
                 variance, minPts, new AutoParameters(xi, defaults.extraction().minClusterFraction(),
                 defaults.extraction().mergeCoverage()), defaults.minModeSamples(), defaults.minFindingSamples(),
-                defaults.bridgeSamples(), defaults.residualGate(), defaults.activityGate(), defaults.zoneErrorGate(), defaults.defaultAirflow(),
+                defaults.bridgeSamples(), defaults.residualGate(), defaults.activityGate(), defaults.zoneErrorGate(),
+                defaults.defaultAirflow(),
                 causes == null ? defaults.causes() : CauseTable.load(causes));
+        FleetModelOptions.Assessed assessed = fleet.assess();
+        if (assessed.coverage().units().isEmpty()) {
+            stdout.println("Nothing to analyse in " + fleet.model + ": no terminal units of the requested classes.");
+            stdout.flush();
+            return ExitCodes.CHECK_FAILED;
+        }
         ProgressBar bar = new ProgressBar(stderr, "units");
         long start = System.nanoTime();
         List<UnitSink> sinks = new ArrayList<>();
