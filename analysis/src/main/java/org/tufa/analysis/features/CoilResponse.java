@@ -18,7 +18,13 @@ import java.util.Arrays;
  * Mathematical Statistics 35(1), 1964; tuning constant 1.345 with the MAD scale, as in Holland and Welsch,
  * Communications in Statistics A6(9), 1977), started from the per-band medians. A smooth curve over all valve
  * openings keeps a fault that fills one band (a failed fan keeps the valve wide open for days) from redefining
- * "normal" in that band, and the robust weights keep a minority of faulty samples from bending it.
+ * "normal" in that band outright, and the robust weights keep a minority of faulty samples from bending it. The
+ * curve is held non-decreasing over the valve range (a coil never does less as its valve opens): where the free
+ * fit would fall at either end, that end's slope is fixed at zero and the fit repeated. Limit: Huber weights cap
+ * the pull of a large residual but not the leverage of many samples piled at one end of the valve range
+ * (Rousseeuw and Leroy, Robust Regression and Outlier Detection, 1987); from about a quarter of the samples at
+ * full opening the curve bends toward them, so the fault's residual shrinks (it still passes the gate) and healthy
+ * samples near full opening pick up a positive residual ({@code CoilResponseFitTest} measures it).
  *
  * @param coefficients         c0, c1, c2 of the response against the valve fraction (0..1)
  * @param usesWaterTemperature whether the response is an effectiveness against the supply-water temperature
