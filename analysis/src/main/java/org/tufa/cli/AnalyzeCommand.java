@@ -147,11 +147,23 @@ public final class AnalyzeCommand implements Callable<Integer> {
         if (report != null) {
             stdout.println("Report: " + report);
         }
-        stderr.printf(java.util.Locale.ROOT, "time: %.1f s wall; per stage (summed over threads): %s%n",
-                (System.nanoTime() - start) / 1e9, result.times().summary());
+        stderr.printf(java.util.Locale.ROOT, "time: %.1f s wall; per stage (summed over threads): %s;"
+                + " peak heap %.0f MB of %.0f MB max%n", (System.nanoTime() - start) / 1e9, result.times().summary(),
+                peakHeapMegabytes(), Runtime.getRuntime().maxMemory() / 1048576.0);
         stdout.flush();
         stderr.flush();
         return ExitCodes.OK;
+    }
+
+    /** Sum of the heap pools' peak usage since JVM start: an upper bound of the peak heap in use (pools peak apart). */
+    private static double peakHeapMegabytes() {
+        long peak = 0;
+        for (var pool : java.lang.management.ManagementFactory.getMemoryPoolMXBeans()) {
+            if (pool.getType() == java.lang.management.MemoryType.HEAP) {
+                peak += pool.getPeakUsage().getUsed();
+            }
+        }
+        return peak / 1048576.0;
     }
 
     private ZoneId zone() {
