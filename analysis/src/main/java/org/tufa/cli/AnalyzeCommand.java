@@ -108,10 +108,12 @@ public final class AnalyzeCommand implements Callable<Integer> {
     public Integer call() {
         PrintWriter stdout = spec.commandLine().getOut();
         PrintWriter stderr = spec.commandLine().getErr();
+        HeapWatch heap = HeapWatch.start();
         FleetModelOptions.Assessed assessed = fleet.assess();
         if (assessed.coverage().units().isEmpty()) {
             stdout.println("Nothing to analyse in " + fleet.model + ": no terminal units of the requested classes.");
             stdout.flush();
+            heap.stop();
             return ExitCodes.CHECK_FAILED;
         }
         ZoneId zone = zone();
@@ -147,23 +149,11 @@ public final class AnalyzeCommand implements Callable<Integer> {
         if (report != null) {
             stdout.println("Report: " + report);
         }
-        stderr.printf(java.util.Locale.ROOT, "time: %.1f s wall; per stage (summed over threads): %s;"
-                + " peak heap %.0f MB of %.0f MB max%n", (System.nanoTime() - start) / 1e9, result.times().summary(),
-                peakHeapMegabytes(), Runtime.getRuntime().maxMemory() / 1048576.0);
+        stderr.printf(java.util.Locale.ROOT, "time: %.1f s wall; per stage (summed over threads): %s; %s%n",
+                (System.nanoTime() - start) / 1e9, result.times().summary(), heap.stop());
         stdout.flush();
         stderr.flush();
         return ExitCodes.OK;
-    }
-
-    /** Sum of the heap pools' peak usage since JVM start: an upper bound of the peak heap in use (pools peak apart). */
-    private static double peakHeapMegabytes() {
-        long peak = 0;
-        for (var pool : java.lang.management.ManagementFactory.getMemoryPoolMXBeans()) {
-            if (pool.getType() == java.lang.management.MemoryType.HEAP) {
-                peak += pool.getPeakUsage().getUsed();
-            }
-        }
-        return peak / 1048576.0;
     }
 
     private ZoneId zone() {

@@ -73,7 +73,7 @@ public final class FleetBenchmark {
     private static final double TARGET_SECONDS = 60;
     private static final double TARGET_HEAP_MB = 1536;
     private static final Pattern STAGE = Pattern.compile("([a-z]+) ([0-9.]+) s");
-    private static final Pattern PEAK_HEAP = Pattern.compile("peak heap ([0-9.]+) MB");
+    private static final Pattern PEAK_HEAP = Pattern.compile("peak heap ([0-9.]+) MB in use, ([0-9.]+) MB live");
 
     /** Command-line settings. */
     record Settings(int units, Path dir, boolean keep, boolean temporary, String heap, int threads, long seed,
@@ -287,7 +287,7 @@ public final class FleetBenchmark {
 
     /** What the child run gave. */
     record Measurement(int exitCode, double wallSeconds, String timeLine, Map<String, Double> stageSeconds,
-            double peakHeapMb, long maxRssKb, String loadBefore, String loadAfter) {
+            double peakHeapMb, double liveHeapMb, long maxRssKb, String loadBefore, String loadAfter) {
 
         boolean passes() {
             return wallSeconds < TARGET_SECONDS && peakHeapMb >= 0 && peakHeapMb < TARGET_HEAP_MB;
@@ -339,14 +339,16 @@ public final class FleetBenchmark {
             }
         }
         Matcher hm = PEAK_HEAP.matcher(timeLine);
-        double peakHeap = hm.find() ? Double.parseDouble(hm.group(1)) : -1;
+        boolean heapFound = hm.find();
+        double peakHeap = heapFound ? Double.parseDouble(hm.group(1)) : -1;
+        double liveHeap = heapFound ? Double.parseDouble(hm.group(2)) : -1;
         if (code != 0) {
             System.out.println("child failed with exit code " + code + "; its stderr (" + stderr + "):");
             errLines.stream().skip(Math.max(0, errLines.size() - 30)).forEach(System.out::println);
         } else {
             Files.readAllLines(stdout, StandardCharsets.UTF_8).forEach(l -> System.out.println("  | " + l));
         }
-        return new Measurement(code, wall, timeLine, stages, peakHeap, rss, loadBefore, loadAfter);
+        return new Measurement(code, wall, timeLine, stages, peakHeap, liveHeap, rss, loadBefore, loadAfter);
     }
 
     private static String loadAverage() {
@@ -379,9 +381,11 @@ public final class FleetBenchmark {
         System.out.println("analyze says     " + (m.timeLine().isEmpty() ? "(no time line)" : m.timeLine()));
         StringBuilder stages = new StringBuilder();
         m.stageSeconds().forEach((k, v) -> stages.append(String.format(Locale.ROOT, "%s %.1f s  ", k, v)));
-        System.out.println("stages (CPU-ish, summed over threads): " + stages.toString().trim());
-        System.out.printf(Locale.ROOT, "peak heap        %s (sum of heap pools' peaks: an upper bound)%n",
-                m.peakHeapMb() < 0 ? "unknown" : String.format(Locale.ROOT, "%.0f MB", m.peakHeapMb()));
+        System.out.println("stages (summed over worker threads) " + stages.toString().trim());
+        System.out.printf(Locale.ROOT, "peak heap        %s%n", m.peakHeapMb() < 0 ? "unknown"
+                : String.format(Locale.ROOT, "%.0f MB in use just before a GC; %.0f MB live just after one (what the"
+                        + " run needs; G1 lets use grow towards -Xmx before collecting)", m.peakHeapMb(),
+                        m.liveHeapMb()));
         System.out.printf(Locale.ROOT, "peak RSS         %s%n",
                 m.maxRssKb() < 0 ? "unknown (/usr/bin/time not installed)"
                         : String.format(Locale.ROOT, "%.0f MB (whole JVM, /usr/bin/time -v)", m.maxRssKb() / 1024.0));
