@@ -147,10 +147,12 @@ public final class AnalyzeCommand implements Callable<Integer> {
                 defaults.bridgeSamples(), defaults.residualGate(), defaults.activityGate(), defaults.zoneErrorGate(),
                 defaults.defaultAirflow(),
                 causes == null ? defaults.causes() : CauseTable.load(causes));
+        HeapWatch heap = HeapWatch.start();
         FleetModelOptions.Assessed assessed = fleet.assess();
         if (assessed.coverage().units().isEmpty()) {
             stdout.println("Nothing to analyse in " + fleet.model + ": no terminal units of the requested classes.");
             stdout.flush();
+            heap.stop();
             return ExitCodes.CHECK_FAILED;
         }
         ProgressBar bar = new ProgressBar(stderr, "units");
@@ -172,8 +174,8 @@ public final class AnalyzeCommand implements Callable<Integer> {
         if (report != null) {
             stdout.println("Report: " + report);
         }
-        stderr.printf(java.util.Locale.ROOT, "time: %.1f s wall; per stage (summed over threads): %s%n",
-                (System.nanoTime() - start) / 1e9, result.times().summary());
+        stderr.printf(java.util.Locale.ROOT, "time: %.1f s wall; per stage (summed over threads): %s; %s%n",
+                (System.nanoTime() - start) / 1e9, result.times().summary(), heap.stop());
         stdout.flush();
         stderr.flush();
         return ExitCodes.OK;
