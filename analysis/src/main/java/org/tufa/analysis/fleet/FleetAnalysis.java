@@ -85,7 +85,7 @@ public final class FleetAnalysis {
                         }
                         times.add(StageTimes.Stage.WRITE, System.nanoTime() - w);
                         progress.unitDone(done.incrementAndGet(), units.size());
-                        return o;
+                        return o.withoutDetail();
                     }));
                 }
                 List<UnitOutcome> outcomes = new ArrayList<>(units.size());

@@ -24,6 +24,11 @@ public final class UnitFiles implements UnitSink {
 
     private final Path unitsDir;
     private final ZoneId zone;
+    /** Formatted time of every grid sample, made once per run: every unit shares the grid. */
+    private volatile GridTimes gridTimes;
+
+    private record GridTimes(java.time.Instant start, java.time.Duration interval, String[] text) {
+    }
 
     public UnitFiles(Path outDir, ZoneId zone) {
         this.unitsDir = outDir.resolve("units");
@@ -43,11 +48,12 @@ public final class UnitFiles implements UnitSink {
                 return;
             }
             UnitAnalysis.Result r = o.result();
+            String[] times = times(r);
             try (BufferedWriter w = Files.newBufferedWriter(dir.resolve("modes.csv"), StandardCharsets.UTF_8)) {
                 w.write("timestamp,mode,in_band\n");
                 byte[] codes = r.modes().codes();
                 for (int i = 0; i < codes.length; i++) {
-                    w.write(Csv.time(r.time(i), zone));
+                    w.write(times[i]);
                     w.write(',');
                     w.write(OperatingMode.ofCode(codes[i]).label());
                     w.write(',');
@@ -58,7 +64,7 @@ public final class UnitFiles implements UnitSink {
             }
             for (ModeResult m : r.modeResults()) {
                 if (m.analyzed()) {
-                    writeMode(dir.resolve(m.mode()), m, r);
+                    writeMode(dir.resolve(m.mode()), m, times);
                 }
             }
         } catch (IOException e) {
@@ -66,13 +72,33 @@ public final class UnitFiles implements UnitSink {
         }
     }
 
-    private void writeMode(Path dir, ModeResult m, UnitAnalysis.Result r) throws IOException {
+    private String[] times(UnitAnalysis.Result r) {
+        GridTimes g = gridTimes;
+        int n = r.modes().codes().length;
+        if (g == null || !g.start().equals(r.gridStart()) || !g.interval().equals(r.interval()) || g.text().length != n) {
+            synchronized (this) {
+                g = gridTimes;
+                if (g == null || !g.start().equals(r.gridStart()) || !g.interval().equals(r.interval())
+                        || g.text().length != n) {
+                    String[] text = new String[n];
+                    for (int i = 0; i < n; i++) {
+                        text[i] = Csv.time(r.time(i), zone);
+                    }
+                    g = new GridTimes(r.gridStart(), r.interval(), text);
+                    gridTimes = g;
+                }
+            }
+        }
+        return g.text();
+    }
+
+    private void writeMode(Path dir, ModeResult m, String[] times) throws IOException {
         Files.createDirectories(dir);
         FeatureMatrix f = m.features();
         try (BufferedWriter w = Files.newBufferedWriter(dir.resolve("features.csv"), StandardCharsets.UTF_8)) {
             w.write("timestamp," + String.join(",", f.names()) + "\n");
             for (int i = 0; i < f.size(); i++) {
-                w.write(Csv.time(r.time(f.sampleIndex()[i]), zone));
+                w.write(times[f.sampleIndex()[i]]);
                 for (double v : f.rows()[i]) {
                     w.write(',');
                     w.write(Csv.number(v));
@@ -89,7 +115,7 @@ public final class UnitFiles implements UnitSink {
             w.write('\n');
             double[][] scores = pca.scores();
             for (int i = 0; i < scores.length; i++) {
-                w.write(Csv.time(r.time(f.sampleIndex()[i]), zone));
+                w.write(times[f.sampleIndex()[i]]);
                 for (double v : scores[i]) {
                     w.write(',');
                     w.write(Csv.number(v));
@@ -103,7 +129,7 @@ public final class UnitFiles implements UnitSink {
             w.write("order,timestamp,reachability,core_distance,cluster\n");
             for (int k = 0; k < order.length; k++) {
                 int i = order[k];
-                w.write(k + "," + Csv.time(r.time(f.sampleIndex()[i]), zone) + "," + Csv.number(o.reachabilityOf(i))
+                w.write(k + "," + times[f.sampleIndex()[i]] + "," + Csv.number(o.reachabilityOf(i))
                         + "," + Csv.number(o.coreDistanceOf(i)) + "," + m.labels()[i] + "\n");
             }
         }
