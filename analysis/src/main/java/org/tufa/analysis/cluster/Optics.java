@@ -187,46 +187,73 @@ public final class Optics {
 
     private static int pass2(
             double[] c, int[] sample, double[] r, int[] p, int m, double x0, double x1, double co, int o) {
+        int best = 0;
+        double bestR = Double.POSITIVE_INFINITY;
+        int bestSample = Integer.MAX_VALUE;
         for (int j = 0; j < m; j++) {
-            double d0 = x0 - c[2 * j];
-            double d1 = x1 - c[2 * j + 1];
-            double sq = d0 * d0 + d1 * d1;
             double rj = r[j];
-            if (sq < rj * rj * SQUARE_MARGIN) {
-                double nr = Math.max(co, Math.sqrt(sq));
-                if (nr < rj) {
-                    r[j] = nr;
-                    p[j] = o;
+            if (co < rj) { // else max(co, d) >= co >= rj: no strict improvement possible, skip the distance
+                double d0 = x0 - c[2 * j];
+                double d1 = x1 - c[2 * j + 1];
+                double sq = d0 * d0 + d1 * d1;
+                if (sq < rj * rj * SQUARE_MARGIN) {
+                    double nr = Math.max(co, Math.sqrt(sq));
+                    if (nr < rj) {
+                        rj = nr;
+                        r[j] = nr;
+                        p[j] = o;
+                    }
                 }
             }
+            if (rj <= bestR && (rj < bestR || sample[j] < bestSample)) {
+                best = j;
+                bestR = rj;
+                bestSample = sample[j];
+            }
         }
-        return argMin(r, sample, m);
+        return best;
     }
 
     private static int pass3(
             double[] c, int[] sample, double[] r, int[] p, int m, double x0, double x1, double x2, double co,
             int o) {
+        // One pass updates reachability and finds the next point (smallest reachability, ties to the lowest
+        // sample index), so each element is touched once.
+        int best = 0;
+        double bestR = Double.POSITIVE_INFINITY;
+        int bestSample = Integer.MAX_VALUE;
         for (int j = 0; j < m; j++) {
-            int k = 3 * j;
-            double d0 = x0 - c[k];
-            double d1 = x1 - c[k + 1];
-            double d2 = x2 - c[k + 2];
-            double sq = d0 * d0 + d1 * d1 + d2 * d2;
             double rj = r[j];
-            if (sq < rj * rj * SQUARE_MARGIN) {
-                double nr = Math.max(co, Math.sqrt(sq));
-                if (nr < rj) {
-                    r[j] = nr;
-                    p[j] = o;
+            if (co < rj) {
+                int k = 3 * j;
+                double d0 = x0 - c[k];
+                double d1 = x1 - c[k + 1];
+                double d2 = x2 - c[k + 2];
+                double sq = d0 * d0 + d1 * d1 + d2 * d2;
+                if (sq < rj * rj * SQUARE_MARGIN) {
+                    double nr = Math.max(co, Math.sqrt(sq));
+                    if (nr < rj) {
+                        rj = nr;
+                        r[j] = nr;
+                        p[j] = o;
+                    }
                 }
             }
+            if (rj <= bestR && (rj < bestR || sample[j] < bestSample)) {
+                best = j;
+                bestR = rj;
+                bestSample = sample[j];
+            }
         }
-        return argMin(r, sample, m);
+        return best;
     }
 
     private static int passAny(
             double[] c, int dim, int[] sample, double[] r, int[] p, int m, double[] x, double co, int o) {
         for (int j = 0; j < m; j++) {
+            if (co >= r[j]) {
+                continue; // max(co, d) >= co >= r[j]: no strict improvement possible, skip the distance
+            }
             int k = dim * j;
             double sum = 0.0;
             for (int d = 0; d < dim; d++) {
