@@ -1,6 +1,5 @@
 package org.tufa.analysis.fleet;
 
-import java.time.Duration;
 import org.tufa.analysis.band.BandKind;
 import org.tufa.analysis.band.RunOptions;
 import org.tufa.analysis.cluster.AutoParameters;
@@ -56,7 +55,4 @@ public record AnalysisSettings(
                 AutoParameters.DEFAULT, 96, 8, 12, 1.1, 2.0, 2.0, 400 * 0.3048 * 0.3048 * 0.3048 / 60.0,
                 CauseTable.standard());
     }
-
-    /** The grid step the persistence rules assume, for documentation in run.json. */
-    public static final Duration NOMINAL_INTERVAL = Duration.ofMinutes(15);
 }

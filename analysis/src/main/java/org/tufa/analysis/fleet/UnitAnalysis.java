@@ -5,7 +5,6 @@ import java.time.Instant;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
-import org.tufa.analysis.band.BandKind;
 import org.tufa.analysis.band.LoadBand;
 import org.tufa.analysis.band.OutOfBandRun;
 import org.tufa.analysis.cluster.AutoClusters;
@@ -440,10 +439,5 @@ public final class UnitAnalysis {
             }
         }
         return idx;
-    }
-
-    /** Band kinds by their option names, for the command line. */
-    public static BandKind band(String label) {
-        return BandKind.fromLabel(label);
     }
 }

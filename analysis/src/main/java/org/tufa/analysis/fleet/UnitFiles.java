@@ -7,7 +7,6 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.ZoneId;
-import java.util.List;
 import org.tufa.analysis.cluster.OpticsResult;
 import org.tufa.analysis.cluster.PcaResult;
 import org.tufa.analysis.features.FeatureMatrix;
@@ -133,10 +132,5 @@ public final class UnitFiles implements UnitSink {
                         + "," + Csv.number(o.coreDistanceOf(i)) + "," + m.labels()[i] + "\n");
             }
         }
-    }
-
-    /** Files of a unit folder, for tests and the report. */
-    public static List<String> modeFiles() {
-        return List.of("features.csv", "scores.csv", "reachability.csv");
     }
 }
