@@ -101,7 +101,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
             description = "PCA: cumulative explained variance to keep (default: ${DEFAULT-VALUE}).")
     double variance;
 
-    @Option(names = "--xi", paramLabel = "XI", defaultValue = "0.05",
+    @Option(names = "--xi", paramLabel = "XI", defaultValue = "0.03",
             description = "OPTICS xi steepness for cluster extraction (default: ${DEFAULT-VALUE}).")
     double xi;
 
