@@ -17,12 +17,8 @@ import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import java.util.stream.Stream;
 import org.apache.jena.rdf.model.Model;
-import org.apache.jena.rdf.model.ModelFactory;
-import org.apache.jena.rdf.model.Resource;
 import org.apache.jena.riot.RDFDataMgr;
 import org.apache.jena.riot.RDFFormat;
-import org.apache.jena.vocabulary.RDF;
-import org.apache.jena.vocabulary.RDFS;
 import org.tufa.analysis.coverage.Coverage;
 import org.tufa.analysis.coverage.FleetCoverage;
 import org.tufa.analysis.coverage.ModelLoader;
@@ -39,7 +35,6 @@ import org.tufa.analysis.simulate.SimulationResult;
 import org.tufa.analysis.simulate.Simulator;
 import org.tufa.analysis.simulate.UnitSeriesTargets;
 import org.tufa.analysis.simulate.UnitTrace;
-import org.tufa.vocabulary.Namespaces;
 
 /**
  * End-to-end benchmark of {@code tufa analyze} on a large fleet: a Brick model of N four-pipe fan coil units of an
@@ -221,56 +216,14 @@ public final class FleetBenchmark {
      * temperatures; the outdoor air sensor on the building. Units of measure in SI.
      */
     static Model fleetModel(int units) {
-        Model m = ModelFactory.createDefaultModel();
-        m.setNsPrefix("brick", Namespaces.BRICK);
-        m.setNsPrefix("ref", Namespaces.REF);
-        m.setNsPrefix("unit", Namespaces.UNIT);
-        m.setNsPrefix("rdfs", RDFS.getURI());
-        m.setNsPrefix("qx", BASE);
-        Resource building = m.createResource(BASE + "building").addProperty(RDF.type, brick(m, "Building"))
-                .addProperty(RDFS.label, "Quillmere Exchange");
-        Resource chw = m.createResource(BASE + "CHW").addProperty(RDF.type, brick(m, "Chilled_Water_Loop"));
-        Resource hw = m.createResource(BASE + "HW").addProperty(RDF.type, brick(m, "Hot_Water_Loop"));
-        point(m, chw, "QX.PLANT.CHWS-T", "Leaving_Chilled_Water_Temperature_Sensor", "DEG_C");
-        point(m, hw, "QX.PLANT.HWS-T", "Leaving_Hot_Water_Temperature_Sensor", "DEG_C");
-        point(m, building, "QX.PLANT.OA-T", "Outside_Air_Temperature_Sensor", "DEG_C");
+        List<FanCoilFleetModel.Unit> list = new java.util.ArrayList<>();
         for (int u = 1; u <= units; u++) {
             String id = String.format(Locale.ROOT, "FCU-%02d-%03d", 1 + (u - 1) / 40, u);
-            String prefix = "QX." + id;
-            Resource fcu = m.createResource(BASE + id).addProperty(RDF.type, brick(m, "Fan_Coil_Unit"))
-                    .addProperty(RDFS.label, id);
-            fcu.addProperty(m.createProperty(Namespaces.BRICK, "isFedBy"), chw);
-            fcu.addProperty(m.createProperty(Namespaces.BRICK, "isFedBy"), hw);
-            point(m, fcu, prefix + ".ZN-T", "Zone_Air_Temperature_Sensor", "DEG_C");
-            point(m, fcu, prefix + ".DA-T", "Discharge_Air_Temperature_Sensor", "DEG_C");
-            point(m, fcu, prefix + ".ZN-SP", "Zone_Air_Temperature_Setpoint", "DEG_C");
-            point(m, fcu, prefix + ".FAN-S", "Fan_Status", null);
-            Resource cv = m.createResource(BASE + id + "-CHWV").addProperty(RDF.type, brick(m, "Chilled_Water_Valve"));
-            Resource hv = m.createResource(BASE + id + "-HWV").addProperty(RDF.type, brick(m, "Hot_Water_Valve"));
-            fcu.addProperty(m.createProperty(Namespaces.BRICK, "hasPart"), cv);
-            fcu.addProperty(m.createProperty(Namespaces.BRICK, "hasPart"), hv);
-            point(m, cv, prefix + ".CLG-VLV", "Valve_Position_Command", "PERCENT");
-            point(m, hv, prefix + ".HTG-VLV", "Valve_Position_Command", "PERCENT");
+            list.add(new FanCoilFleetModel.Unit(id, "QX." + id, "DEG_C", true));
         }
+        Model m = FanCoilFleetModel.build(BASE, "Quillmere Exchange", "QX.PLANT.", list);
+        m.setNsPrefix("qx", BASE);
         return m;
-    }
-
-    private static Resource brick(Model m, String local) {
-        return m.createResource(Namespaces.BRICK + local);
-    }
-
-    private static void point(Model m, Resource owner, String id, String cls, String unit) {
-        Resource p = m.createResource(BASE + "point/" + id).addProperty(RDF.type, brick(m, cls))
-                .addProperty(RDFS.label, id);
-        owner.addProperty(m.createProperty(Namespaces.BRICK, "hasPoint"), p);
-        p.addProperty(m.createProperty(Namespaces.BRICK, "isPointOf"), owner);
-        if (unit != null) {
-            p.addProperty(m.createProperty(Namespaces.BRICK, "hasUnit"), m.createResource(Namespaces.UNIT + unit));
-        }
-        Resource ref = m.createResource(BASE + "ref/" + id)
-                .addProperty(RDF.type, m.createResource(Namespaces.REF + "TimeseriesReference"))
-                .addProperty(m.createProperty(Namespaces.REF, "hasTimeseriesId"), id);
-        p.addProperty(m.createProperty(Namespaces.REF, "hasExternalReference"), ref);
     }
 
     /** The coverage {@code tufa analyze} will see: default profile, all terminal units. */
