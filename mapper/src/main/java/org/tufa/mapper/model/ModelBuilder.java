@@ -35,7 +35,7 @@ import org.tufa.vocabulary.Namespaces;
  * the name, tufa:mappedBy = "file:line" of the rule, the export's other columns). Rows no rule classified are
  * written as plain brick:Point with tufa:mappingStatus, so nothing in the export is lost.
  *
- * <p>tufa: terms used here and not yet in ontology-extensions' tufa.ttl: tufa:mappedBy, tufa:mappingStatus,
+ * <p>tufa: terms used here (declared in ontology-extensions' tufa.ttl): tufa:mappedBy, tufa:mappingStatus,
  * tufa:exportDescription, tufa:bacnetObjectType, tufa:device, tufa:exportUnits, tufa:exportField, tufa:fieldName,
  * tufa:fieldValue.
  */
