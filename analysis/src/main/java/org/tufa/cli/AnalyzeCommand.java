@@ -177,6 +177,16 @@ public final class AnalyzeCommand implements Callable<Integer> {
         stderr.printf(java.util.Locale.ROOT, "time: %.1f s wall; per stage (summed over threads): %s; %s%n",
                 (System.nanoTime() - start) / 1e9, result.times().summary(), heap.stop());
         stdout.flush();
+        if (result.ingest().samplesKept() == 0) {
+            // Nothing matched: almost always trend names that are not the model's series ids.
+            List<String> seen = result.ingest().unknownSeries();
+            stderr.println("tufa: no trend sample belongs to a point of the model: the trends' point names (long "
+                    + "files) or column headers (wide files) must be the points' ref:hasTimeseriesId values (or "
+                    + "their labels when the model has none)" + (seen.isEmpty() ? "" : "; the trends hold e.g. "
+                    + String.join(", ", seen.subList(0, Math.min(3, seen.size())))));
+            stderr.flush();
+            return ExitCodes.CHECK_FAILED;
+        }
         stderr.flush();
         return ExitCodes.OK;
     }
