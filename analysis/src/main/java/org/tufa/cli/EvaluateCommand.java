@@ -40,6 +40,11 @@ public final class EvaluateCommand implements Callable<Integer> {
         if (!(minHours >= 0)) {
             throw new InputException("--min-hours: must be a number >= 0, got " + minHours);
         }
+        java.util.Map<String, Path> outputs = new java.util.LinkedHashMap<>();
+        outputs.put("--findings (" + EvaluationReport.SUMMARY_FILE + ")", findings.resolve(EvaluationReport.SUMMARY_FILE));
+        outputs.put("--findings (" + EvaluationReport.EPISODES_FILE + ")",
+                findings.resolve(EvaluationReport.EPISODES_FILE));
+        org.tufa.common.OutputFiles.checkDistinct(java.util.Map.of("--truth", truth), outputs);
         Evaluation.Result result = Evaluation.fit(EvaluationFiles.read(findings, truth), minHours);
         EvaluationReport.table(result).forEach(spec.commandLine().getOut()::println);
         EvaluationReport.writeSummary(findings.resolve(EvaluationReport.SUMMARY_FILE), result);

@@ -23,19 +23,17 @@ import org.tufa.common.InputException;
 public final class CoverageFiles {
     /** The value of a role column when several points qualified. */
     public static final String AMBIGUOUS = "ambiguous";
+    public static final String CSV_FILE = "coverage.csv";
+    public static final String JSON_FILE = "coverage.json";
 
     private CoverageFiles() {
     }
 
     /** Writes both files into the directory (created if needed) and returns their paths. */
     public static List<Path> write(FleetCoverage coverage, Path dir) {
-        try {
-            Files.createDirectories(dir);
-        } catch (IOException e) {
-            throw InputException.in(dir, "cannot create the output directory (" + e.getMessage() + ")");
-        }
-        Path csv = dir.resolve("coverage.csv");
-        Path json = dir.resolve("coverage.json");
+        org.tufa.common.OutputFiles.ensureFolder(dir);
+        Path csv = dir.resolve(CSV_FILE);
+        Path json = dir.resolve(JSON_FILE);
         writeString(csv, csv(coverage));
         writeString(json, json(coverage));
         return List.of(csv, json);
@@ -170,10 +168,6 @@ public final class CoverageFiles {
     }
 
     private static void writeString(Path file, String text) {
-        try {
-            Files.writeString(file, text, StandardCharsets.UTF_8);
-        } catch (IOException e) {
-            throw InputException.in(file, "cannot write (" + e.getMessage() + ")");
-        }
+        org.tufa.common.OutputFiles.writeString(file, text);
     }
 }

@@ -113,10 +113,6 @@ public final class EvaluationReport {
     }
 
     private static void write(Path file, CharSequence text) {
-        try {
-            Files.writeString(file, text, StandardCharsets.UTF_8);
-        } catch (IOException e) {
-            throw new UncheckedIOException(e);
-        }
+        org.tufa.common.OutputFiles.writeString(file, text);
     }
 }

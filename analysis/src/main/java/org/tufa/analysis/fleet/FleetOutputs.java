@@ -19,6 +19,7 @@ import java.util.Map;
 import java.util.stream.Collectors;
 import org.tufa.analysis.findings.Finding;
 import org.tufa.analysis.findings.Shift;
+import org.tufa.common.OutputFiles;
 
 /**
  * The fleet-level files of a run: {@code fleet.csv}, {@code findings.csv}, {@code ranking.csv} and
@@ -39,7 +40,7 @@ public final class FleetOutputs {
     public static List<Path> write(Path dir, FleetAnalysis.Result result, ZoneId zone, Map<String, Object> parameters,
                                    List<Path> inputs) {
         try {
-            Files.createDirectories(dir);
+            OutputFiles.ensureFolder(dir);
             List<Path> out = new ArrayList<>();
             out.add(write(dir.resolve("fleet.csv"), fleet(result.units())));
             out.add(write(dir.resolve("findings.csv"), findings(result.units(), zone)));
@@ -51,8 +52,8 @@ public final class FleetOutputs {
         }
     }
 
-    private static Path write(Path file, String text) throws IOException {
-        Files.writeString(file, text, StandardCharsets.UTF_8);
+    private static Path write(Path file, String text) {
+        OutputFiles.writeString(file, text);
         return file;
     }
 

@@ -11,6 +11,7 @@ import org.tufa.analysis.cluster.OpticsResult;
 import org.tufa.analysis.cluster.PcaResult;
 import org.tufa.analysis.features.FeatureMatrix;
 import org.tufa.analysis.modes.OperatingMode;
+import org.tufa.common.OutputFiles;
 
 /**
  * Writes one unit's files under {@code DIR/units/<folder>/}: {@code modes.csv} (every sample's mode and band
@@ -40,15 +41,14 @@ public final class UnitFiles implements UnitSink {
         if (!dir.normalize().startsWith(unitsDir.normalize())) {
             throw new IllegalStateException("unit folder escapes the output folder: " + o.folder());
         }
-        try {
-            Files.createDirectories(dir);
-            Files.writeString(dir.resolve("summary.json"), Json.unitSummary(o), StandardCharsets.UTF_8);
-            if (o.result() == null) {
-                return;
-            }
-            UnitAnalysis.Result r = o.result();
-            String[] times = times(r);
-            try (BufferedWriter w = Files.newBufferedWriter(dir.resolve("modes.csv"), StandardCharsets.UTF_8)) {
+        OutputFiles.ensureFolder(dir);
+        OutputFiles.writeString(dir.resolve("summary.json"), Json.unitSummary(o));
+        if (o.result() == null) {
+            return;
+        }
+        UnitAnalysis.Result r = o.result();
+        String[] times = times(r);
+        OutputFiles.writeText(dir.resolve("modes.csv"), w -> {
                 w.write("timestamp,mode,in_band\n");
                 byte[] codes = r.modes().codes();
                 for (int i = 0; i < codes.length; i++) {
@@ -60,14 +60,11 @@ public final class UnitFiles implements UnitSink {
                     w.write(b == UnitAnalysis.Result.IN_BAND ? "true" : b == UnitAnalysis.Result.OUT_OF_BAND ? "false" : "");
                     w.write('\n');
                 }
+        });
+        for (ModeResult m : r.modeResults()) {
+            if (m.analyzed()) {
+                writeMode(dir.resolve(m.mode()), m, times);
             }
-            for (ModeResult m : r.modeResults()) {
-                if (m.analyzed()) {
-                    writeMode(dir.resolve(m.mode()), m, times);
-                }
-            }
-        } catch (IOException e) {
-            throw new UncheckedIOException("cannot write " + dir + ": " + e.getMessage(), e);
         }
     }
 
@@ -91,10 +88,10 @@ public final class UnitFiles implements UnitSink {
         return g.text();
     }
 
-    private void writeMode(Path dir, ModeResult m, String[] times) throws IOException {
-        Files.createDirectories(dir);
+    private void writeMode(Path dir, ModeResult m, String[] times) {
+        OutputFiles.ensureFolder(dir);
         FeatureMatrix f = m.features();
-        try (BufferedWriter w = Files.newBufferedWriter(dir.resolve("features.csv"), StandardCharsets.UTF_8)) {
+        OutputFiles.writeText(dir.resolve("features.csv"), w -> {
             w.write("timestamp," + String.join(",", f.names()) + "\n");
             for (int i = 0; i < f.size(); i++) {
                 w.write(times[f.sampleIndex()[i]]);
@@ -104,9 +101,9 @@ public final class UnitFiles implements UnitSink {
                 }
                 w.write('\n');
             }
-        }
+        });
         PcaResult pca = m.pca();
-        try (BufferedWriter w = Files.newBufferedWriter(dir.resolve("scores.csv"), StandardCharsets.UTF_8)) {
+        OutputFiles.writeText(dir.resolve("scores.csv"), w -> {
             w.write("timestamp");
             for (int k = 1; k <= pca.componentCount(); k++) {
                 w.write(",pc" + k);
@@ -121,16 +118,16 @@ public final class UnitFiles implements UnitSink {
                 }
                 w.write('\n');
             }
-        }
+        });
         OpticsResult o = m.optics();
         int[] order = o.ordering();
-        try (BufferedWriter w = Files.newBufferedWriter(dir.resolve("reachability.csv"), StandardCharsets.UTF_8)) {
+        OutputFiles.writeText(dir.resolve("reachability.csv"), w -> {
             w.write("order,timestamp,reachability,core_distance,cluster\n");
             for (int k = 0; k < order.length; k++) {
                 int i = order[k];
                 w.write(k + "," + times[f.sampleIndex()[i]] + "," + Csv.number(o.reachabilityOf(i))
                         + "," + Csv.number(o.coreDistanceOf(i)) + "," + m.labels()[i] + "\n");
             }
-        }
+        });
     }
 }

@@ -38,14 +38,10 @@ public final class FleetPage {
      * @param reportDir {@link #reportDir}
      */
     public static Path write(Path reportDir, FleetAnalysis.Result result, FleetCoverage coverage, ZoneId zone) {
-        try {
-            Files.createDirectories(reportDir);
-            Path index = reportDir.resolve("index.html");
-            Files.writeString(index, page(result, coverage, zone), StandardCharsets.UTF_8);
-            return index;
-        } catch (IOException e) {
-            throw new UncheckedIOException("cannot write " + reportDir + ": " + e.getMessage(), e);
-        }
+        org.tufa.common.OutputFiles.ensureFolder(reportDir);
+        Path index = reportDir.resolve("index.html");
+        org.tufa.common.OutputFiles.writeString(index, page(result, coverage, zone));
+        return index;
     }
 
     static String page(FleetAnalysis.Result result, FleetCoverage coverage, ZoneId zone) {

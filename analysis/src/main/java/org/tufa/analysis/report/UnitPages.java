@@ -55,12 +55,8 @@ public final class UnitPages implements UnitSink {
         if (!dir.normalize().startsWith(unitsDir.normalize())) {
             throw new IllegalStateException("unit folder escapes the report folder: " + o.folder());
         }
-        try {
-            Files.createDirectories(dir);
-            Files.writeString(dir.resolve("index.html"), page(o, signals, dir), StandardCharsets.UTF_8);
-        } catch (IOException e) {
-            throw new UncheckedIOException("cannot write " + dir + ": " + e.getMessage(), e);
-        }
+        org.tufa.common.OutputFiles.ensureFolder(dir);
+        org.tufa.common.OutputFiles.writeString(dir.resolve("index.html"), page(o, signals, dir));
     }
 
     private String page(UnitOutcome o, UnitSignals signals, Path dir) {

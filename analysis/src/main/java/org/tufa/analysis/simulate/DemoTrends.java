@@ -1,5 +1,6 @@
 package org.tufa.analysis.simulate;
 
+import org.tufa.common.OutputFiles;
 import java.io.BufferedWriter;
 import java.io.IOException;
 import java.io.UncheckedIOException;
@@ -59,7 +60,7 @@ public final class DemoTrends {
     public static void writeLong(Path file, SimulationResult result) {
         List<Column> columns = columns(result);
         String[] stamps = timestamps(result);
-        try (BufferedWriter w = Files.newBufferedWriter(file, StandardCharsets.UTF_8)) {
+        OutputFiles.writeText(file, w -> {
             w.write("timestamp,point,value\n");
             StringBuilder line = new StringBuilder(BUFFER);
             for (Column c : columns) {
@@ -75,16 +76,14 @@ public final class DemoTrends {
                 }
             }
             w.append(line);
-        } catch (IOException e) {
-            throw new UncheckedIOException(e);
-        }
+        });
     }
 
     /** Wide layout: {@code timestamp,<series id>,...}. */
     public static void writeWide(Path file, SimulationResult result) {
         List<Column> columns = columns(result);
         String[] stamps = timestamps(result);
-        try (BufferedWriter w = Files.newBufferedWriter(file, StandardCharsets.UTF_8)) {
+        OutputFiles.writeText(file, w -> {
             StringBuilder line = new StringBuilder(BUFFER);
             line.append("timestamp");
             for (Column c : columns) {
@@ -104,9 +103,7 @@ public final class DemoTrends {
                 }
             }
             w.append(line);
-        } catch (IOException e) {
-            throw new UncheckedIOException(e);
-        }
+        });
     }
 
     /** Ground truth: {@code unit,fault,start,end,severity}, one row per episode, sorted by unit then start. */
@@ -122,11 +119,7 @@ public final class DemoTrends {
             ValueWriter.appendFixed(out, f.severity(), 3);
             out.append('\n');
         }
-        try {
-            Files.writeString(file, out, StandardCharsets.UTF_8);
-        } catch (IOException e) {
-            throw new UncheckedIOException(e);
-        }
+        OutputFiles.writeString(file, out);
     }
 
     /** The ISO 8601 timestamp, with offset, of each sample. */

@@ -4,7 +4,10 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.Optional;
 import java.util.concurrent.Callable;
+import java.util.LinkedHashMap;
+import java.util.Map;
 import org.tufa.common.InputException;
+import org.tufa.common.OutputFiles;
 import org.tufa.mapper.match.Mapper;
 import org.tufa.mapper.match.MappingResult;
 import org.tufa.mapper.model.BuiltModel;
@@ -84,6 +87,14 @@ public final class MapCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
+        Map<String, Path> inputs = new LinkedHashMap<>();
+        inputs.put("--points", points);
+        inputs.put("--rules", rules);
+        inputs.put("--vocabulary", vocabulary);
+        Map<String, Path> outputs = new LinkedHashMap<>();
+        outputs.put("--out", out);
+        outputs.put("--report", report);
+        OutputFiles.checkDistinct(inputs, outputs);
         BrickVocabulary vocab = vocabulary == null ? BrickVocabulary.bundled() : BrickVocabulary.load(vocabulary);
         RuleSet ruleSet = RuleFileParser.parse(rules, vocab);
         ReadOptions options = new ReadOptions(parseDelimiter(delimiter), Optional.ofNullable(nameColumn),

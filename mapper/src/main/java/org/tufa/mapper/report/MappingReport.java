@@ -1,15 +1,12 @@
 package org.tufa.mapper.report;
 
-import java.io.BufferedWriter;
 import java.io.IOException;
 import java.io.Writer;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVPrinter;
-import org.tufa.common.InputException;
+import org.tufa.common.OutputFiles;
 import org.tufa.mapper.match.Assignment;
 import org.tufa.mapper.match.MappingResult;
 import org.tufa.mapper.match.PointMapping;
@@ -29,18 +26,7 @@ public final class MappingReport {
 
     /** Writes the report to a file (UTF-8, RFC 4180 quoting, LF line ends). */
     public static void write(MappingResult result, Path file) {
-        try {
-            Path parent = file.toAbsolutePath().getParent();
-            if (parent != null) {
-                Files.createDirectories(parent);
-            }
-            try (BufferedWriter w = Files.newBufferedWriter(file, StandardCharsets.UTF_8)) {
-                write(result, w);
-            }
-        } catch (IOException e) {
-            throw InputException.in(file, "cannot write the report (" + e.getClass().getSimpleName() + ": "
-                    + e.getMessage() + "); check the --report path");
-        }
+        OutputFiles.writeText(file, w -> write(result, w));
     }
 
     /** Writes the report to a writer. */
