@@ -189,14 +189,11 @@ public final class AnalyzeCommand implements Callable<Integer> {
                 (System.nanoTime() - start) / 1e9, result.times().summary(), heap.stop());
         stdout.flush();
         if (result.ingest().samplesKept() == 0) {
-            // Nothing matched: almost always trend names that are not the model's series ids.
-            List<String> seen = result.ingest().unknownSeries();
-            stderr.println("tufa: no trend sample belongs to a point of the model: the trends' point names (long "
-                    + "files) or column headers (wide files) must be the points' ref:hasTimeseriesId values (or "
-                    + "their labels when the model has none)" + (seen.isEmpty() ? "" : "; the trends hold e.g. "
-                    + String.join(", ", seen.subList(0, Math.min(3, seen.size())))));
+            stderr.println("tufa: " + nothingKept(result.ingest(), time));
             stderr.flush();
-            return ExitCodes.CHECK_FAILED;
+            return result.ingest().unknownSeriesSamples() >= Math.max(result.ingest().unparsableTimestamps(),
+                    result.ingest().samplesOutsideWindow()) && result.ingest().unknownSeriesSamples() > 0
+                    ? ExitCodes.CHECK_FAILED : ExitCodes.INPUT_ERROR;
         }
         stderr.flush();
         return ExitCodes.OK;
@@ -242,6 +239,40 @@ public final class AnalyzeCommand implements Callable<Integer> {
                 }
             });
         }
+    }
+
+    /**
+     * Why not a single sample was kept, by the largest reason: unreadable time stamps, a window outside the data,
+     * or series ids that are not the model's (the only one that is not an input error: exit code 3).
+     */
+    static String nothingKept(org.tufa.analysis.trends.IngestReport ingest, TimeOptions time) {
+        if (ingest.rows() == 0) {
+            return "the trend files hold no data rows, only headers; pass the files with the data";
+        }
+        long stamps = ingest.unparsableTimestamps();
+        long outside = ingest.samplesOutsideWindow();
+        long unknown = ingest.unknownSeriesSamples();
+        if (unknown > 0 && unknown >= stamps && unknown >= outside) {
+            List<String> seen = ingest.unknownSeries();
+            return "no trend sample belongs to a point of the model: the trends' point names (long files) or "
+                    + "column headers (wide files) must be the points' ref:hasTimeseriesId values (or their labels "
+                    + "when the model has none)" + (seen.isEmpty() ? "" : "; the trends hold e.g. " + String.join(
+                            ", ", seen.subList(0, Math.min(3, seen.size())).stream()
+                                    .map(org.tufa.common.Printable::excerpt).toList()));
+        }
+        if (stamps > 0 && stamps >= outside) {
+            List<String> examples = ingest.problemExamples(1);
+            return "no time stamp of the trends could be read (" + stamps + " rows)" + (examples.isEmpty() ? ""
+                    : ", e.g. " + examples.get(0)) + "; write ISO 8601 stamps (2031-07-01T08:15:00-04:00, or local "
+                    + "2031-07-01 08:15 with --timezone)";
+        }
+        if (outside > 0) {
+            return "all " + outside + " samples of the model's series lie outside the window"
+                    + (time.from() == null ? "" : " --from " + time.from()) + (time.to() == null ? "" : " --to "
+                    + time.to()) + (ingest.firstStamp() == null ? "" : "; the trends run from " + ingest.firstStamp()
+                    + " to " + ingest.lastStamp()) + ": choose --from/--to within that span";
+        }
+        return "no trend sample was kept: " + org.tufa.analysis.fleet.FleetReport.ingestLines(ingest).get(0);
     }
 
     private ZoneId zone() {

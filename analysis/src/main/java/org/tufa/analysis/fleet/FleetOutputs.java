@@ -19,6 +19,7 @@ import java.util.Map;
 import java.util.stream.Collectors;
 import org.tufa.analysis.findings.Finding;
 import org.tufa.analysis.findings.Shift;
+import org.tufa.analysis.trends.IngestReport;
 import org.tufa.common.OutputFiles;
 
 /**
@@ -45,7 +46,7 @@ public final class FleetOutputs {
             out.add(write(dir.resolve("fleet.csv"), fleet(result.units())));
             out.add(write(dir.resolve("findings.csv"), findings(result.units(), zone)));
             out.add(write(dir.resolve("ranking.csv"), ranking(result.units())));
-            out.add(write(dir.resolve("run.json"), runJson(parameters, inputs)));
+            out.add(write(dir.resolve("run.json"), runJson(parameters, inputs, result.ingest())));
             return out;
         } catch (IOException e) {
             throw new UncheckedIOException("cannot write to " + dir + ": " + e.getMessage(), e);
@@ -106,7 +107,7 @@ public final class FleetOutputs {
         return b.toString();
     }
 
-    static String runJson(Map<String, Object> parameters, List<Path> inputs) throws IOException {
+    static String runJson(Map<String, Object> parameters, List<Path> inputs, IngestReport ingest) throws IOException {
         JsonObject run = new JsonObject();
         run.addProperty("tool", "tufa");
         String version = FleetOutputs.class.getPackage().getImplementationVersion();
@@ -129,7 +130,62 @@ public final class FleetOutputs {
             files.add(f);
         }
         run.add("inputs", files);
+        run.add("ingest", ingestJson(ingest));
         return Json.write(run);
+    }
+
+    /** Every count of the ingest, per file and in total, with every unknown series id: nothing dropped unsaid. */
+    static JsonObject ingestJson(IngestReport ingest) {
+        JsonObject o = new JsonObject();
+        if (ingest == null) {
+            return o;
+        }
+        o.addProperty("rows", ingest.rows());
+        o.addProperty("samples_kept", ingest.samplesKept());
+        o.addProperty("outside_window", ingest.samplesOutsideWindow());
+        o.addProperty("unknown_series_values", ingest.unknownSeriesSamples());
+        o.addProperty("empty_values", ingest.emptyValues());
+        o.addProperty("unparsable_values", ingest.unparsableValues());
+        o.addProperty("non_finite_values", ingest.nonFiniteValues());
+        o.addProperty("implausible_values", ingest.implausibleValues());
+        o.addProperty("exact_duplicates", ingest.duplicateSamples());
+        o.addProperty("conflicting_duplicates", ingest.conflictingDuplicates());
+        o.addProperty("unreadable_time_stamps", ingest.unparsableTimestamps());
+        o.addProperty("malformed_rows", ingest.malformedRows());
+        o.addProperty("dst_repeated", ingest.dstRepeatedFirstPass() + ingest.dstRepeatedSecondPass());
+        o.addProperty("dst_skipped", ingest.dstSkipped());
+        JsonArray unknown = new JsonArray();
+        ingest.unknownSeries().forEach(unknown::add);
+        o.add("unknown_series", unknown);
+        JsonArray never = new JsonArray();
+        ingest.seriesNeverSeen().forEach(never::add);
+        o.add("series_without_data", never);
+        JsonArray files = new JsonArray();
+        for (var f : ingest.files()) {
+            JsonObject fo = new JsonObject();
+            fo.addProperty("path", f.file().toString());
+            fo.addProperty("format", f.format().toString().toLowerCase(java.util.Locale.ROOT));
+            fo.addProperty("rows", f.rows());
+            fo.addProperty("samples_stored", f.samplesKept());
+            fo.addProperty("outside_window", f.samplesOutsideWindow());
+            fo.addProperty("unknown_series_values", f.unknownSeriesSamples());
+            fo.addProperty("empty_values", f.emptyValues());
+            fo.addProperty("unparsable_values", f.unparsableValues());
+            fo.addProperty("non_finite_values", f.nonFiniteValues());
+            fo.addProperty("implausible_values", f.implausibleValues());
+            fo.addProperty("exact_duplicates", f.duplicateSamples());
+            fo.addProperty("conflicting_duplicates", f.conflictingDuplicates());
+            fo.addProperty("unreadable_time_stamps", f.unparsableTimestamps());
+            fo.addProperty("malformed_rows", f.malformedRows());
+            JsonArray examples = new JsonArray();
+            f.problemExamples().forEach(examples::add);
+            fo.add("problem_examples", examples);
+            files.add(fo);
+        }
+        o.add("files", files);
+        o.addProperty("duplicates_found_after_reading", ingest.laterDuplicates());
+        o.addProperty("conflicts_found_after_reading", ingest.laterConflicts());
+        return o;
     }
 
     private static List<Path> expand(List<Path> inputs) throws IOException {

@@ -88,9 +88,8 @@ public final class FleetPage {
                     .toList()))).append(".</p>\n");
         }
         var ingest = result.ingest();
-        b.append("<p class=\"small\">Trends: ").append(ingest.rows()).append(" rows read, ")
-                .append(ingest.samplesKept()).append(" samples kept, ").append(ingest.unparsableValues())
-                .append(" unparsable values, ").append(ingest.seriesNeverSeen().size())
+        String line = org.tufa.analysis.fleet.FleetReport.ingestLines(ingest).get(0);
+        b.append("<p class=\"small\">").append(Html.esc(line)).append("; ").append(ingest.seriesNeverSeen().size())
                 .append(" wanted series without data.</p>\n");
     }
 
