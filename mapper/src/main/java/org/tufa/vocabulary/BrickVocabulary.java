@@ -313,12 +313,12 @@ public final class BrickVocabulary {
 
     /** Up to 3 existing class names nearest to an unknown one (see {@link NameSuggester}). */
     public List<String> nearestClasses(String unknown) {
-        return NameSuggester.nearest(className(unknown), classes.keySet(), 3);
+        return NameSuggester.nearestAlways(className(unknown), classes.keySet(), 3);
     }
 
     /** Up to 3 existing tag names nearest to an unknown one. */
     public List<String> nearestTags(String unknown) {
-        return NameSuggester.nearest(tagName(unknown), tags, 3);
+        return NameSuggester.nearestAlways(tagName(unknown), tags, 3);
     }
 
     /** "unknown Brick class X; nearest: A, B, C" style hint, for error messages. */

@@ -56,7 +56,8 @@ public final class CoverageFiles {
         try (CSVPrinter printer = new CSVPrinter(out, format)) {
             printer.printRecord(header);
             for (UnitCoverage u : coverage.units()) {
-                List<String> row = new ArrayList<>(List.of(u.unit(), u.label(), u.unitClass()));
+                List<String> row = new ArrayList<>(List.of(u.unit(), org.tufa.common.CsvCells.neutral(u.label()),
+                        u.unitClass()));
                 for (RoleMatch m : u.roles().values()) {
                     row.add(switch (m.status()) {
                         case FOUND -> m.point().orElseThrow().iri();

@@ -15,6 +15,7 @@ import java.util.TreeMap;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
 import org.apache.commons.csv.CSVRecord;
+import org.tufa.common.CsvCells;
 import org.tufa.common.InputException;
 
 /**
@@ -43,7 +44,8 @@ public final class EvaluationFiles {
                 throw InputException.at(fleetFile, line, "column status: '" + status
                         + "' is not one of analyzed, skipped, failed");
             }
-            FleetUnit u = new FleetUnit(r.get("unit"), r.get("label"), r.get("folder"), status);
+            FleetUnit u = new FleetUnit(CsvCells.restore(r.get("unit")), CsvCells.restore(r.get("label")),
+                    CsvCells.restore(r.get("folder")), status);
             if (byUnit.put(u.unit(), u) != null) {
                 throw InputException.at(fleetFile, line, "unit " + u.unit() + " is listed twice");
             }
@@ -53,7 +55,7 @@ public final class EvaluationFiles {
         Path findingsFile = findingsDir.resolve("findings.csv");
         Map<String, List<FlaggedInterval>> findings = new TreeMap<>();
         forEachRecord(findingsFile, FINDINGS_HEADER, (r, line) -> {
-            String unit = r.get("unit");
+            String unit = CsvCells.restore(r.get("unit"));
             if (!byUnit.containsKey(unit)) {
                 throw InputException.at(findingsFile, line, "unit " + unit + " is not in " + fleetFile);
             }

@@ -108,7 +108,8 @@ public final class EvaluationReport {
         write(file, out);
     }
 
-    private static String csv(String s) {
+    private static String csv(String text) {
+        String s = org.tufa.common.CsvCells.neutral(text);
         return s.contains(",") || s.contains("\"") ? '"' + s.replace("\"", "\"\"") + '"' : s;
     }
 

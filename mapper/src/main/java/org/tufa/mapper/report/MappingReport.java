@@ -6,6 +6,7 @@ import java.nio.file.Path;
 import java.util.List;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVPrinter;
+import org.tufa.common.CsvCells;
 import org.tufa.common.OutputFiles;
 import org.tufa.mapper.match.Assignment;
 import org.tufa.mapper.match.MappingResult;
@@ -13,7 +14,8 @@ import org.tufa.mapper.match.PointMapping;
 
 /**
  * The mapping report: a CSV with exactly one row per input row, in input order. Columns: line, point, status
- * (mapped, unmapped, conflict, duplicate, rejected), reason, rule ("file:line"), class, equipment, part.
+ * (mapped, unmapped, conflict, duplicate, rejected), reason, rule ("file:line"), class, equipment, part. Text cells
+ * that a spreadsheet would run as a formula get a leading apostrophe ({@link CsvCells}).
  */
 public final class MappingReport {
 
@@ -36,10 +38,12 @@ public final class MappingReport {
         p.printRecord(HEADER);
         for (PointMapping m : result.mappings()) {
             var a = m.assignment();
-            p.printRecord(m.point().line(), m.point().name(), m.status().label(), m.reason(),
-                    a.map(Assignment::ruleLabel).orElse(""), a.map(Assignment::className).orElse(""),
-                    a.map(Assignment::equipmentId).orElse(""),
-                    a.flatMap(Assignment::part).map(Assignment.Part::localId).orElse(""));
+            // Point names, reasons and ids come from the export: neutralised against formula injection.
+            p.printRecord(m.point().line(), CsvCells.neutral(m.point().name()), m.status().label(),
+                    CsvCells.neutral(m.reason()), CsvCells.neutral(a.map(Assignment::ruleLabel).orElse("")),
+                    a.map(Assignment::className).orElse(""),
+                    CsvCells.neutral(a.map(Assignment::equipmentId).orElse("")),
+                    CsvCells.neutral(a.flatMap(Assignment::part).map(Assignment.Part::localId).orElse("")));
         }
         p.flush();
     }

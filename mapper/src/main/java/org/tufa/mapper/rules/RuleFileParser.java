@@ -320,7 +320,12 @@ public final class RuleFileParser {
                             + "L-PER-SEC, M3-PER-HR or M3-PER-SEC");
                 }
                 Template v = template(ln, w[0]);
-                if (v.slots().isEmpty() && !w[0].matches("\\d+(\\.\\d+)?")) {
+                if (v.slots().isEmpty() && w[0].matches("[-+]?\\d+(\\.\\d+)?")
+                        && !(Double.parseDouble(w[0]) > 0)) {
+                    throw error(ln, "airflow value '" + w[0] + "' is " + (w[0].startsWith("-") ? "negative" : "zero")
+                            + "; a nominal airflow is a positive volume flow: write e.g. 400 or 188.8");
+                }
+                if (v.slots().isEmpty() && !w[0].matches("\\+?\\d+(\\.\\d+)?")) {
                     throw error(ln, "airflow value '" + w[0] + "' is not a number; write e.g. 400 or 188.8");
                 }
                 r.templates.add(Map.entry(v, ln));
@@ -412,7 +417,9 @@ public final class RuleFileParser {
         if (!UNIT_NAME.matcher(w).matches()) {
             throw error(ln, "'" + word + "' is not a QUDT unit name; write e.g. DEG_F, DEG_C, PERCENT, FT3-PER-MIN");
         }
-        return w;
+        return org.tufa.vocabulary.QudtUnits.canonical(w).orElseThrow(() -> error(ln, "unknown QUDT unit '" + w
+                + "' (QUDT 3.1.0 has no such unit); nearest: " + String.join(", ",
+                org.tufa.vocabulary.QudtUnits.nearest(w)) + "; or write an export spelling such as degF, %, cfm"));
     }
 
     private Rule.PartSpec part(int ln, String rest) {
