@@ -45,8 +45,13 @@ public final class EvaluateCommand implements Callable<Integer> {
         outputs.put("--findings (" + EvaluationReport.EPISODES_FILE + ")",
                 findings.resolve(EvaluationReport.EPISODES_FILE));
         org.tufa.common.OutputFiles.checkDistinct(java.util.Map.of("--truth", truth), outputs);
-        Evaluation.Result result = Evaluation.fit(EvaluationFiles.read(findings, truth), minHours);
+        org.tufa.analysis.evaluate.EvaluationInput input = EvaluationFiles.read(findings, truth);
+        Evaluation.Result result = Evaluation.fit(input, minHours);
         EvaluationReport.table(result).forEach(spec.commandLine().getOut()::println);
+        if (input.repeatedEpisodes() > 0) {
+            spec.commandLine().getOut().println("note: " + input.repeatedEpisodes() + " row(s) of " + truth
+                    + " repeat an earlier episode (same unit, fault, start and end); each episode is counted once");
+        }
         EvaluationReport.writeSummary(findings.resolve(EvaluationReport.SUMMARY_FILE), result);
         EvaluationReport.writeEpisodes(findings.resolve(EvaluationReport.EPISODES_FILE), result);
         spec.commandLine().getOut().flush();
