@@ -47,7 +47,7 @@ import org.tufa.mapper.rules.RuleSet;
  * a generated rule file reads back as what was generated.</li>
  * </ul>
  */
-class ReaderProperties {
+class ReaderPropertiesTest {
 
     private static Path dir;
     private static Path findings;
@@ -98,23 +98,23 @@ class ReaderProperties {
         return Mutations.of(Readers.TRUTH);
     }
 
-    @Property(tries = 300)
+    @Property(tries = 200)
     void anyPointListIsReadOrRefused(@ForAll("pointLists") byte[] input) {
         answers(() -> Readers.pointList(input));
     }
 
-    @Property(tries = 300)
+    @Property(tries = 200)
     void anyRuleFileIsReadOrRefused(@ForAll("ruleFiles") byte[] input) {
         answers(() -> Readers.ruleFile(input));
     }
 
-    @Property(tries = 300)
+    @Property(tries = 200)
     void anyTrendFileIsReadOrRefused(@ForAll("trendFiles") byte[] input, @ForAll boolean strict,
             @ForAll boolean naive) {
         answers(() -> Readers.trends(dir, input, strict, naive));
     }
 
-    @Property(tries = 300)
+    @Property(tries = 200)
     void anyTruthFileIsReadOrRefused(@ForAll("truthFiles") byte[] input) {
         answers(() -> Readers.truth(findings, input));
     }

@@ -31,7 +31,7 @@ import org.tufa.common.InputException;
  * Tagged "fuzz": not part of the default test run (see the parent pom).
  */
 @Tag("fuzz")
-class ReaderFuzzCampaign {
+class ReaderFuzzTest {
 
     static final int TRIES = 100_000;
     private static final String[] READERS = {"point list", "rule file", "trends (long and wide)", "truth file"};
