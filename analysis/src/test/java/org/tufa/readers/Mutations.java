@@ -30,6 +30,22 @@ final class Mutations {
     private Mutations() {
     }
 
+    static Arbitrary<byte[]> pointLists() {
+        return of(Readers.POINT_LIST);
+    }
+
+    static Arbitrary<byte[]> ruleFiles() {
+        return of(Readers.RULE_FILE);
+    }
+
+    static Arbitrary<byte[]> trendFiles() {
+        return of(Readers.TRENDS_LONG, Readers.TRENDS_WIDE);
+    }
+
+    static Arbitrary<byte[]> truthFiles() {
+        return of(Readers.TRUTH);
+    }
+
     /** Mostly mutated seeds, some random bytes and random syntax-heavy text. */
     static Arbitrary<byte[]> of(byte[]... seeds) {
         Arbitrary<byte[]> mutated = Arbitraries.randomValue(r -> mutate(r, seeds[r.nextInt(seeds.length)]));

@@ -100,22 +100,22 @@ class ReaderFuzzTest {
 
     @Provide
     Arbitrary<byte[]> pointLists() {
-        return Mutations.of(Readers.POINT_LIST);
+        return Mutations.pointLists();
     }
 
     @Provide
     Arbitrary<byte[]> ruleFiles() {
-        return Mutations.of(Readers.RULE_FILE);
+        return Mutations.ruleFiles();
     }
 
     @Provide
     Arbitrary<byte[]> trendFiles() {
-        return Mutations.of(Readers.TRENDS_LONG, Readers.TRENDS_WIDE);
+        return Mutations.trendFiles();
     }
 
     @Provide
     Arbitrary<byte[]> truthFiles() {
-        return Mutations.of(Readers.TRUTH);
+        return Mutations.truthFiles();
     }
 
     @Property(tries = TRIES, shrinking = ShrinkingMode.OFF, edgeCases = EdgeCasesMode.NONE)

@@ -80,22 +80,22 @@ class ReaderPropertiesTest {
 
     @Provide
     Arbitrary<byte[]> pointLists() {
-        return Mutations.of(Readers.POINT_LIST);
+        return Mutations.pointLists();
     }
 
     @Provide
     Arbitrary<byte[]> ruleFiles() {
-        return Mutations.of(Readers.RULE_FILE);
+        return Mutations.ruleFiles();
     }
 
     @Provide
     Arbitrary<byte[]> trendFiles() {
-        return Mutations.of(Readers.TRENDS_LONG, Readers.TRENDS_WIDE);
+        return Mutations.trendFiles();
     }
 
     @Provide
     Arbitrary<byte[]> truthFiles() {
-        return Mutations.of(Readers.TRUTH);
+        return Mutations.truthFiles();
     }
 
     @Property(tries = 200)
@@ -139,9 +139,14 @@ class ReaderPropertiesTest {
             "Trend ID", "Room");
 
     private static byte[] pointCsv(List<List<String>> rows) {
+        return csv(POINT_HEADER, rows);
+    }
+
+    /** RFC 4180 CSV (Commons CSV's printer, LF line ends) of a header and rows. */
+    static byte[] csv(List<String> header, List<List<String>> rows) {
         StringWriter w = new StringWriter();
         try (CSVPrinter p = new CSVPrinter(w, CSVFormat.RFC4180.builder().setRecordSeparator('\n').get())) {
-            p.printRecord(POINT_HEADER);
+            p.printRecord(header);
             for (List<String> r : rows) {
                 p.printRecord(r);
             }
@@ -253,16 +258,7 @@ class ReaderPropertiesTest {
     }
 
     private static byte[] truthCsv(List<List<String>> rows) {
-        StringWriter w = new StringWriter();
-        try (CSVPrinter p = new CSVPrinter(w, CSVFormat.RFC4180.builder().setRecordSeparator('\n').get())) {
-            p.printRecord(List.of("unit", "fault", "start", "end", "severity"));
-            for (List<String> r : rows) {
-                p.printRecord(r);
-            }
-        } catch (IOException e) {
-            throw new UncheckedIOException(e);
-        }
-        return w.toString().getBytes(StandardCharsets.UTF_8);
+        return csv(List.of("unit", "fault", "start", "end", "severity"), rows);
     }
 
     @Property(tries = 200)

@@ -76,7 +76,7 @@ public final class BrickVocabulary {
         }
         Graph g = GraphFactory.createDefaultGraph();
         try {
-            RDFParser.source(file).parse(g);
+            org.tufa.common.OfflineRdf.offline(RDFParser.source(file)).parse(g);
         } catch (RiotException e) {
             String msg = String.valueOf(e.getMessage()).lines().findFirst().orElse("");
             throw InputException.in(file, "not a readable RDF file (" + msg + "); give a Brick .ttl file");

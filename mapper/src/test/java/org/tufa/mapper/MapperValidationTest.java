@@ -175,4 +175,16 @@ class MapperValidationTest {
         assertTrue(e.getMessage().contains("binary data"), e.getMessage());
         assertTrue(e.getMessage().chars().noneMatch(c -> c < 0x20), e.getMessage());
     }
+
+    @Test
+    void ruleFilesInUtf16OrBinaryAreNamedAsSuch(@org.junit.jupiter.api.io.TempDir Path dir) throws Exception {
+        Path utf16 = dir.resolve("r.tufa");
+        java.nio.file.Files.write(utf16, "building B\n".getBytes(StandardCharsets.UTF_16LE));
+        InputException e = assertThrows(InputException.class, () -> RuleFileParser.parse(utf16, vocab));
+        assertTrue(e.getMessage().contains("UTF-16LE"), e.getMessage());
+        Path bin = dir.resolve("b.tufa");
+        java.nio.file.Files.write(bin, new byte[] {0x7f, 'E', 'L', 'F', 2, 1, 1, 0, 0, 0});
+        e = assertThrows(InputException.class, () -> RuleFileParser.parse(bin, vocab));
+        assertTrue(e.getMessage().contains("binary data"), e.getMessage());
+    }
 }

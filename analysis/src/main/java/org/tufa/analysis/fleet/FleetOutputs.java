@@ -173,8 +173,6 @@ public final class FleetOutputs {
             fo.addProperty("unparsable_values", f.unparsableValues());
             fo.addProperty("non_finite_values", f.nonFiniteValues());
             fo.addProperty("implausible_values", f.implausibleValues());
-            fo.addProperty("exact_duplicates", f.duplicateSamples());
-            fo.addProperty("conflicting_duplicates", f.conflictingDuplicates());
             fo.addProperty("unreadable_time_stamps", f.unparsableTimestamps());
             fo.addProperty("malformed_rows", f.malformedRows());
             JsonArray examples = new JsonArray();
@@ -183,8 +181,6 @@ public final class FleetOutputs {
             files.add(fo);
         }
         o.add("files", files);
-        o.addProperty("duplicates_found_after_reading", ingest.laterDuplicates());
-        o.addProperty("conflicts_found_after_reading", ingest.laterConflicts());
         return o;
     }
 

@@ -12,9 +12,10 @@ import java.util.function.ToLongFunction;
  * @param unknownSeries ids of series found in the files but not asked for, sorted
  * @param seriesSpans per wanted series that had samples: first/last time and sample count, sorted by id
  * @param seriesNeverSeen wanted series without a single sample, sorted
- * @param laterDuplicates exact duplicates found only after reading, in series whose samples came out of time order
- *     (two files covering the same days, say); kept, like the others
- * @param laterConflicts conflicting duplicates found that way; kept and averaged, like the others
+ * @param laterDuplicates correction to the files' exact-duplicate counts from the check after reading, for series
+ *     whose samples came out of time order (two files covering the same days, say): their repeats are recounted
+ *     on the sorted samples, so this may be negative; the sums ({@link #duplicateSamples()}) are exact
+ * @param laterConflicts the same correction for conflicting duplicates
  */
 public record IngestReport(
         List<FileReport> files, List<String> unknownSeries, List<SeriesSpan> seriesSpans, List<String> seriesNeverSeen,

@@ -44,6 +44,9 @@ final class TrendReader {
     private final double[] previousValue;
     /** Series whose samples did not come in time order: duplicates are looked for after reading. */
     private final boolean[] outOfOrder;
+    /** Per series, the duplicates and conflicts counted while reading (the after-reading check recounts them). */
+    private final long[] seriesDuplicates;
+    private final long[] seriesConflicts;
     private final SpillStore spill;
     private final java.time.ZoneId zone;
     private final boolean strict;
@@ -85,6 +88,8 @@ final class TrendReader {
         this.previousTime = new long[seriesIds.length];
         this.previousValue = new double[seriesIds.length];
         this.outOfOrder = new boolean[seriesIds.length];
+        this.seriesDuplicates = new long[seriesIds.length];
+        this.seriesConflicts = new long[seriesIds.length];
         Arrays.fill(previousTime, Long.MIN_VALUE);
         this.spill = spill;
         this.zone = options.zone();
@@ -109,6 +114,16 @@ final class TrendReader {
     /** Whether the series' samples came out of time order (so duplicates may remain in the spill). */
     boolean outOfOrder(int series) {
         return outOfOrder[series];
+    }
+
+    /** Exact duplicates of the series counted while reading. */
+    long duplicatesCounted(int series) {
+        return seriesDuplicates[series];
+    }
+
+    /** Conflicting duplicates of the series counted while reading. */
+    long conflictsCounted(int series) {
+        return seriesConflicts[series];
     }
 
     /** Earliest stored sample time of each series, Long.MAX_VALUE when none. */
@@ -417,8 +432,10 @@ final class TrendReader {
             // Both are kept (averaged in their grid cell, as any two samples in one cell are), and counted.
             if (Double.compare(value, previousValue[series]) == 0) {
                 duplicateSamples++;
+                seriesDuplicates[series]++;
             } else {
                 conflictingDuplicates++;
+                seriesConflicts[series]++;
                 problem(lineNumber, column, "series " + seriesIds[series] + " has a second value (" + text(line, s, e)
                         + ", the first was " + previousValue[series] + ") at " + java.time.Instant.ofEpochSecond(time)
                         + "; both are kept and averaged", "remove one of the two rows");

@@ -115,6 +115,9 @@ public final class TrendStore implements AutoCloseable {
                 SpillStore.Samples samples = Resampler.sortedByTime(spill.read(i));
                 long[] t = samples.epochSeconds();
                 double[] v = samples.values();
+                // Every repeat of the series is found here; its counts replace those made while reading.
+                laterDuplicates -= reader.duplicatesCounted(i);
+                laterConflicts -= reader.conflictsCounted(i);
                 int runStart = 0;
                 for (int k = 1; k < t.length; k++) {
                     if (t[k] != t[runStart]) {

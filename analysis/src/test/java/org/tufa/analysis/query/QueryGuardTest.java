@@ -138,4 +138,20 @@ class QueryGuardTest {
         // Quillmoor Hall holds five fan coil units and one VAV box (see SparqlQueriesTest).
         assertEquals("n\r\n6\r\n", csv);
     }
+
+    @Test
+    void aJsonLdModelWithARemoteContextIsRefusedWithoutAConnection(@org.junit.jupiter.api.io.TempDir Path dir)
+            throws Exception {
+        // JSON-LD 1.1 (W3C 2020): a string @context is a remote context the processor would dereference.
+        Path model = dir.resolve("remote.jsonld");
+        java.nio.file.Files.writeString(model, "{\"@context\": \"" + endpoint + "/context.jsonld\", "
+                + "\"@id\": \"urn:x#fcu\", \"@type\": \"Fan_Coil_Unit\"}");
+        InputException e = assertThrows(InputException.class, () -> ModelLoader.load(model));
+        assertTrue(e.getMessage().contains("would be fetched from the network"), e.getMessage());
+        assertEquals(0, CONNECTIONS.get(), "connections to the listener");
+        Path inline = dir.resolve("inline.jsonld");
+        java.nio.file.Files.writeString(inline, "{\"@context\": {\"brick\": \"https://brickschema.org/schema/Brick#\"},"
+                + " \"@id\": \"urn:x#fcu\", \"@type\": \"brick:Fan_Coil_Unit\"}");
+        assertEquals(1, ModelLoader.load(inline).size());
+    }
 }

@@ -116,10 +116,13 @@ class RowAccountingTest {
 
     @Test
     void duplicatesAcrossFilesAreCountedAfterReading() throws IOException {
-        Path a = write("a.csv", "timestamp,ZNT\n2031-07-01T10:00:00Z,70\n2031-07-01T10:15:00Z,71\n");
+        // 10:00 appears three times with 70 (one repeat within a.csv, seen while reading, one across the files):
+        // two exact duplicates, counted once each; 10:15 holds 71 and 75: one conflict.
+        Path a = write("a.csv", "timestamp,ZNT\n2031-07-01T10:00:00Z,70\n2031-07-01T10:00:00Z,70\n"
+                + "2031-07-01T10:15:00Z,71\n");
         Path b = write("b.csv", "timestamp,ZNT\n2031-07-01T10:00:00Z,70\n2031-07-01T10:15:00Z,75\n");
         try (TrendStore store = TrendStore.ingest(List.of(a, b), WANTED, RANGES, TimeOptions.defaults(null), dir)) {
-            assertEquals(1, store.report().duplicateSamples());
+            assertEquals(2, store.report().duplicateSamples());
             assertEquals(1, store.report().conflictingDuplicates());
             // Both kept: the 10:15 cell averages 71 and 75 (and 10:00 averages 70 and 70).
             assertEquals(73, store.series("ZNT").values()[1], 1e-12);

@@ -130,7 +130,7 @@ public final class ModelFiles {
         Lang lang = RDFLanguages.filenameToLang(file.toString(), Lang.TURTLE);
         Model m = ModelFactory.createDefaultModel();
         try {
-            RDFParser.source(file).lang(lang).parse(m);
+            org.tufa.common.OfflineRdf.offline(RDFParser.source(file).lang(lang)).parse(m);
         } catch (RiotException e) {
             String msg = String.valueOf(e.getMessage()).lines().findFirst().orElse("");
             throw InputException.in(file, "not a readable " + lang.getLabel() + " file (" + msg + ")");

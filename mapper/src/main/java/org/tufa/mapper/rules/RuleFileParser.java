@@ -81,6 +81,16 @@ public final class RuleFileParser {
         } catch (IOException e) {
             throw InputException.in(file, "rule file cannot be read (" + e.getClass().getSimpleName() + ")");
         }
+        String utf16 = org.tufa.common.Printable.utf16WithoutBom(bytes, 0, bytes.length);
+        if (utf16 != null || bytes.length >= 2 && ((bytes[0] & 0xff) == 0xFF && (bytes[1] & 0xff) == 0xFE
+                || (bytes[0] & 0xff) == 0xFE && (bytes[1] & 0xff) == 0xFF)) {
+            throw InputException.in(file, "rule file is " + (utf16 == null ? "UTF-16" : utf16) + " encoded; save it "
+                    + "as UTF-8");
+        }
+        if (org.tufa.common.Printable.looksBinary(bytes, 0, Math.min(bytes.length, 4096))) {
+            throw InputException.in(file, "is not a text file (it holds binary data); give the rule file "
+                    + "(format: mapper/RULES-FORMAT.md)");
+        }
         String text;
         try {
             text = StandardCharsets.UTF_8.newDecoder().onMalformedInput(CodingErrorAction.REPORT)
