@@ -29,7 +29,6 @@ import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVPrinter;
 import org.tufa.analysis.evaluate.EvaluationFiles;
 import org.tufa.analysis.evaluate.TruthEpisode;
-import org.tufa.analysis.trends.SeriesKind;
 import org.tufa.analysis.trends.TimeOptions;
 import org.tufa.analysis.trends.TrendStore;
 import org.tufa.common.InputException;

@@ -9,15 +9,12 @@ import com.google.gson.JsonPrimitive;
 import java.io.IOException;
 import java.io.StringWriter;
 import java.io.UncheckedIOException;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVPrinter;
-import org.tufa.common.InputException;
 
 /** Writes {@code coverage.csv} and {@code coverage.json}: same content, JSON adds candidates and hints. */
 public final class CoverageFiles {

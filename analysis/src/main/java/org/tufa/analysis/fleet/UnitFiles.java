@@ -1,10 +1,5 @@
 package org.tufa.analysis.fleet;
 
-import java.io.BufferedWriter;
-import java.io.IOException;
-import java.io.UncheckedIOException;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.ZoneId;
 import org.tufa.analysis.cluster.OpticsResult;
@@ -49,17 +44,17 @@ public final class UnitFiles implements UnitSink {
         UnitAnalysis.Result r = o.result();
         String[] times = times(r);
         OutputFiles.writeText(dir.resolve("modes.csv"), w -> {
-                w.write("timestamp,mode,in_band\n");
-                byte[] codes = r.modes().codes();
-                for (int i = 0; i < codes.length; i++) {
-                    w.write(times[i]);
-                    w.write(',');
-                    w.write(OperatingMode.ofCode(codes[i]).label());
-                    w.write(',');
-                    byte b = r.bandState()[i];
-                    w.write(b == UnitAnalysis.Result.IN_BAND ? "true" : b == UnitAnalysis.Result.OUT_OF_BAND ? "false" : "");
-                    w.write('\n');
-                }
+            w.write("timestamp,mode,in_band\n");
+            byte[] codes = r.modes().codes();
+            for (int i = 0; i < codes.length; i++) {
+                w.write(times[i]);
+                w.write(',');
+                w.write(OperatingMode.ofCode(codes[i]).label());
+                w.write(',');
+                byte b = r.bandState()[i];
+                w.write(b == UnitAnalysis.Result.IN_BAND ? "true" : b == UnitAnalysis.Result.OUT_OF_BAND ? "false" : "");
+                w.write('\n');
+            }
         });
         for (ModeResult m : r.modeResults()) {
             if (m.analyzed()) {

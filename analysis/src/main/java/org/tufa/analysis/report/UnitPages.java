@@ -1,10 +1,6 @@
 package org.tufa.analysis.report;
 
 import java.awt.Color;
-import java.io.IOException;
-import java.io.UncheckedIOException;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Duration;
 import java.time.ZoneId;

@@ -1,10 +1,8 @@
 package org.tufa.analysis.simulate;
 
 import org.tufa.common.OutputFiles;
-import java.io.BufferedWriter;
 import java.io.IOException;
 import java.io.UncheckedIOException;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.ZoneId;
