@@ -129,7 +129,7 @@ class HardeningCatalogueTest {
         Run r = run("analyze", "--model", model().toString(), "--trends", t.toString(), "--out", out.toString(),
                 "--interval", "15min", "--no-report", "--threads", "1");
         assertEquals(0, r.code(), r.err());
-        assertTrue(r.out().contains("1 of 1 series not in the model (SPARE-9)"), r.out());
+        assertTrue(r.out().contains("1 of 1 series no analysed unit reads (SPARE-9)"), r.out());
         assertTrue(r.out().contains("1 empty values") && r.out().contains("1 values implausible for their unit"),
                 r.out());
         String json = Files.readString(out.resolve("run.json"));

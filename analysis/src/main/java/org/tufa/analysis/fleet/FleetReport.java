@@ -34,7 +34,7 @@ public final class FleetReport {
         add(dropped, ingest.samplesOutsideWindow(), "outside the time window");
         if (ingest.unknownSeriesSamples() > 0) {
             List<String> ids = ingest.unknownSeries();
-            dropped.add(ingest.unknownSeriesSamples() + " of " + ids.size() + " series not in the model ("
+            dropped.add(ingest.unknownSeriesSamples() + " of " + ids.size() + " series no analysed unit reads ("
                     + String.join(", ", ids.subList(0, Math.min(NAMED, ids.size())).stream()
                             .map(org.tufa.common.Printable::excerpt).toList())
                     + (ids.size() > NAMED ? ", ..." : "") + ")");

@@ -17,7 +17,8 @@ import java.util.List;
  * @param samplesOutsideWindow samples of wanted series dropped because they lie outside the time window (before
  *     {@code from - maxGap}, or at/after {@code to})
  * @param unknownSeriesSamples values of series not asked for (long: rows; wide: non-empty cells); not an error,
- *     the ids are listed in {@link IngestReport#unknownSeries()}
+ *     not even in strict mode (an export holds many series no analysed unit reads); the ids are listed in
+ *     {@link IngestReport#unknownSeries()}
  * @param unparsableValues values of wanted series that are not numbers (or binary words); not stored
  * @param unparsableTimestamps rows whose time stamp could not be read; their samples are not stored
  * @param malformedRows rows with more fields than the header (skipped) or fewer (missing fields read as empty)

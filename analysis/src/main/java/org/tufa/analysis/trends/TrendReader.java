@@ -270,8 +270,6 @@ final class TrendReader {
             columnSeries[j] = index == null ? -1 : index;
             if (j != timestampColumn && index == null) {
                 unknownSeries.add(header.get(j));
-                strictOnly(1, j + 1, "column '" + abbreviate(header.get(j)) + "' is not a series of the model",
-                        "remove the column, or map the point (its ref:hasTimeseriesId)");
             }
         }
         columnSeries[timestampColumn] = -1;
@@ -369,9 +367,9 @@ final class TrendReader {
                 lastPointSeries = series;
             }
             if (series < 0) {
+                // Counted and named, never refused, even in strict mode: an export holds many series no analysed
+                // unit reads (humidity, alarms), and the reader cannot tell them from series of no model.
                 unknownSamples++;
-                strictOnly(lineNumber, pointColumn + 1, "series '" + text(line, ps, pe) + "' is not a point of "
-                        + "the model", "remove its rows, or map the point (its ref:hasTimeseriesId)");
                 continue;
             }
             if (vs == ve) {
