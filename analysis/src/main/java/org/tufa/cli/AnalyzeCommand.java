@@ -157,7 +157,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
                 .withCauses(causes == null ? defaults.causes() : CauseTable.load(causes))
                 .withDayZone(zone)
                 .withDecision(new AnalysisSettings.DecisionSettings(minConfidence, d.minPeerDeviation(),
-                        d.minPeers(), d.fleetShare(), d.minFleetUnits()));
+                        d.minPeers(), d.fleetWideP(), d.minFleetUnits()));
         HeapWatch heap = HeapWatch.start();
         FleetModelOptions.Assessed assessed = fleet.assess();
         if (assessed.coverage().units().isEmpty()) {
@@ -276,7 +276,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
         p.put("min_confidence", s.decision().minConfidence());
         p.put("min_peer_deviation", s.decision().minPeerDeviation());
         p.put("min_peers", s.decision().minPeers());
-        p.put("fleet_share", s.decision().fleetShare());
+        p.put("fleet_wide_p", s.decision().fleetWideP());
         p.put("min_fleet_units", s.decision().minFleetUnits());
         p.put("causes", causes == null ? "built-in" : causes.toString());
         p.put("strict", strict);

@@ -30,10 +30,11 @@ import smile.math.special.Erf;
  *       stretch (its scan maximum) is pooled and a Gumbel null is fitted to the centre of the pool
  *       ({@link GumbelNull}; Efron, JASA 2004): what the most unusual stretch of a healthy unit of this fleet
  *       looks like. A candidate's p-value is the null's tail probability of its own scan statistic.</li>
- *   <li><b>Fleet-wide effects.</b> A day on which at least half of the units informative in the channel (and at
- *       least {@code minFleetUnits}) are in an episode of that channel is a fleet-wide day: something common to
- *       the units (the plant, the weather, a schedule). Episodes lying mostly on fleet-wide days are reported once,
- *       as one fleet finding, and not on every unit.</li>
+ *   <li><b>Fleet-wide effects.</b> A day on which more units are in an episode of the same channel than
+ *       independent faults would explain (at least {@code minFleetUnits}, and a Poisson tail probability below
+ *       {@code fleetWideP} given the channel's overall rate of episode days) is a fleet-wide day: something common
+ *       to the units (the plant, the weather, a schedule). Episodes lying mostly on fleet-wide days are reported
+ *       once, as one fleet finding, and not on every unit.</li>
  *   <li><b>Peers.</b> A unit's normal level on channels with an absolute meaning (discharge offset with the
  *       valves shut, zone error, the share of samples a rule flags) is compared with the other units': a unit
  *       faulty from its first day has the fault as its normal days, and only its peers show it. The comparison
@@ -242,12 +243,22 @@ public final class FleetDecision {
                 }
             }
         }
+        // Expected units in an episode on a day if episodes were independent of one another: each informative unit
+        // is in one with the channel's overall rate of episode days.
+        long informativeUnitDays = 0;
+        long episodeUnitDays = 0;
+        for (int[] v : perDay.values()) {
+            informativeUnitDays += v[0];
+            episodeUnitDays += v[1];
+        }
+        double rate = informativeUnitDays == 0 ? 0 : episodeUnitDays / (double) informativeUnitDays;
         List<int[]> runs = new ArrayList<>();
         int runStart = Integer.MIN_VALUE;
         int previous = Integer.MIN_VALUE;
         for (Map.Entry<Integer, int[]> e : perDay.entrySet()) {
             int[] v = e.getValue();
-            boolean wide = v[1] >= settings.minFleetUnits() && v[1] >= settings.fleetShare() * v[0];
+            boolean wide = v[1] >= settings.minFleetUnits()
+                    && poissonUpperTail(rate * v[0], v[1]) < settings.fleetWideP();
             if (wide) {
                 if (runStart == Integer.MIN_VALUE || e.getKey() > previous + 1) {
                     if (runStart != Integer.MIN_VALUE) {
@@ -306,6 +317,20 @@ public final class FleetDecision {
             // Evidence that something common is at work: the strongest member, corrected for the members.
             fleetTests.add(new Test(f, Math.min(1, minP * members.size()), fleetFindings.size() - 1));
         }
+    }
+
+    /** P(X >= k) for X Poisson with mean lambda (the complement of the Poisson sum). */
+    static double poissonUpperTail(double lambda, int k) {
+        if (k <= 0) {
+            return 1;
+        }
+        double term = Math.exp(-lambda);
+        double below = term;
+        for (int i = 1; i < k; i++) {
+            term *= lambda / i;
+            below += term;
+        }
+        return Math.max(0, 1 - below);
     }
 
     private static ChannelEvidence.Candidate candidateOf(Test t) {

@@ -57,7 +57,7 @@ public record DayChannel(String channel, int direction, int[] days, int[] sample
      */
     public static DayChannel ofMedians(String channel, int direction, int[] dayOfRow, double[] rowValue,
                                        boolean[] candidate, int minSamples, double floor) {
-        return build(channel, direction, dayOfRow, rowValue, candidate, minSamples, floor, true);
+        return build(channel, direction, dayOfRow, rowValue, candidate, minSamples, floor, true, Double.NaN);
     }
 
     /**
@@ -70,15 +70,32 @@ public record DayChannel(String channel, int direction, int[] days, int[] sample
      */
     public static DayChannel ofShares(String channel, int[] dayOfRow, boolean[] flagged, int minSamples,
                                       double floor) {
+        return build(channel, 1, dayOfRow, flags(flagged), null, minSamples, floor, false, Double.NaN);
+    }
+
+    /**
+     * Day shares of flagged rows against a normal level known from physics rather than learnt from the unit: an
+     * energy-balance rule never fails on a healthy unit in steady state, so its normal share is 0 whatever the unit
+     * did (a fault that creates a mode, such as heating in summer against a cooling valve stuck open, would
+     * otherwise be all the unit's days of that mode and look normal). The spread is then the floor: a spread
+     * learnt from days that may all be faulty would hide the fault.
+     */
+    public static DayChannel ofSharesAgainst(double normalShare, String channel, int[] dayOfRow, boolean[] flagged,
+                                             int minSamples, double floor) {
+        return build(channel, 1, dayOfRow, flags(flagged), null, minSamples, floor, false, normalShare);
+    }
+
+    private static double[] flags(boolean[] flagged) {
         double[] v = new double[flagged.length];
         for (int i = 0; i < v.length; i++) {
             v[i] = flagged[i] ? 1 : 0;
         }
-        return build(channel, 1, dayOfRow, v, null, minSamples, floor, false);
+        return v;
     }
 
     private static DayChannel build(String channel, int direction, int[] dayOfRow, double[] rowValue,
-                                    boolean[] candidate, int minSamples, double floor, boolean median) {
+                                    boolean[] candidate, int minSamples, double floor, boolean median,
+                                    double fixedCenter) {
         int n = dayOfRow.length;
         int[] days = new int[n];
         int[] counts = new int[n];
@@ -128,9 +145,9 @@ public record DayChannel(String channel, int direction, int[] days, int[] sample
             }
         }
         double[] ref = Arrays.copyOf(reference, r);
-        double center = r == 0 ? Double.NaN : Quantiles.median(ref);
+        double center = !Double.isNaN(fixedCenter) ? fixedCenter : r == 0 ? Double.NaN : Quantiles.median(ref);
         double spread = floor;
-        if (r > 0) {
+        if (r > 0 && Double.isNaN(fixedCenter)) {
             double[] dev = new double[r];
             for (int k = 0; k < r; k++) {
                 dev[k] = Math.abs(ref[k] - center);

@@ -55,11 +55,11 @@ public record AnalysisSettings(
      * @param minPeerDeviation  fewest robust standard deviations of the peers a unit's normal level must lie from
      *                          theirs to differ from its peers
      * @param minPeers          fewest peers (units with the same channel) a peer comparison needs
-     * @param fleetShare        share of the units informative on a day that must show the same fault day for it
-     *                          to be a fleet-wide day
+     * @param fleetWideP        a day is fleet-wide when so many units are in an episode of the same channel that
+     *                          independent faults would give that many with less than this probability
      * @param minFleetUnits     fewest units a fleet-wide day needs
      */
-    public record DecisionSettings(double minConfidence, double minPeerDeviation, int minPeers, double fleetShare,
+    public record DecisionSettings(double minConfidence, double minPeerDeviation, int minPeers, double fleetWideP,
                                    int minFleetUnits) {
         public DecisionSettings {
             if (!(minConfidence >= 0 && minConfidence <= 1)) {
@@ -89,7 +89,7 @@ public record AnalysisSettings(
     public static AnalysisSettings defaults() {
         return new AnalysisSettings(ModeThresholds.defaults(), BandKind.TUKEY, new RunOptions(16, 2), 0.90, 20,
                 FLEET_EXTRACTION, 96, 1.1, 2.0, 2.0, 400 * 0.3048 * 0.3048 * 0.3048 / 60.0,
-                CauseTable.standard(), ZoneOffset.UTC, 3.0, 14, new DecisionSettings(0.9, 4.0, 8, 0.5, 5));
+                CauseTable.standard(), ZoneOffset.UTC, 3.0, 14, new DecisionSettings(0.9, 4.0, 8, 0.001, 3));
     }
 
     public AnalysisSettings withModeThresholds(ModeThresholds m) {

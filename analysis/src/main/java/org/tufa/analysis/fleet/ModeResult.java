@@ -23,8 +23,9 @@ import org.tufa.analysis.findings.ClusterSummary;
  * @param clusters    one summary per cluster label, in label order
  * @param referenceShare share of the clustered samples in the normal reference (the largest cluster and every
  *                    cluster whose health features agree with it); NaN when skipped
- * @param dominantRegime whether the reference holds at least half of them: without a dominant regime the mode
- *                    raises no cluster findings
+ * @param dominantRegime whether at least half of the mode's days are days of normal operation (candidate-fault
+ *                    clusters hold less than half of their samples): without a dominant regime the mode raises no
+ *                    cluster findings
  */
 public record ModeResult(String mode, boolean analyzed, String reason, int modeSamples, LoadBand band,
                          FeatureMatrix features, PcaResult pca, OpticsResult optics, int[] labels,

@@ -110,9 +110,12 @@ public final class UnitAnalysis {
         List<ChannelEvidence> evidence = new ArrayList<>();
 
         boolean[] running = running(modes);
+        // Both valves open together and the energy-balance rules are faults by physics whatever the unit's own days
+        // say; how often a unit changes mode depends on its control, so hunting is judged against its own days.
         evidence.add(cx.rule("any", "simultaneous_heating_cooling", running,
-                modes.mask(OperatingMode.SIMULTANEOUS), RULE_MIN_SHARE));
-        evidence.add(cx.rule("any", "mode_hunting", running, hunting(s, fanSignal, settings), RULE_MIN_SHARE));
+                modes.mask(OperatingMode.SIMULTANEOUS), RULE_MIN_SHARE, 0));
+        evidence.add(cx.rule("any", "mode_hunting", running, hunting(s, fanSignal, settings), RULE_MIN_SHARE,
+                Double.NaN));
         evidence.addAll(balanceEvidence(modes, cx));
         for (String mode : ModeFeatures.CLUSTERED_MODES) {
             OperatingMode m = OperatingMode.valueOf(mode.toUpperCase(Locale.ROOT));
@@ -149,7 +152,7 @@ public final class UnitAnalysis {
     static final double RULE_GATE = 0.2;
     /** Smallest day-to-day spread of a rule's share: one sample in twenty (common practice, no source). */
     static final double SHARE_FLOOR = 0.05;
-    /** Share of a mode's clustered samples the normal reference must hold for the mode to have a dominant regime. */
+    /** Share of a mode's informative days that must be days of normal operation for the mode to have a dominant regime. */
     static final double MIN_REFERENCE_SHARE = 0.5;
 
     /** The inputs every channel of one unit needs. */
@@ -165,8 +168,12 @@ public final class UnitAnalysis {
                     settings.maxEpisodeWindowDays());
         }
 
-        /** A rule channel: the share of the day's eligible samples that the rule flags. */
-        ChannelEvidence rule(String mode, String kind, boolean[] eligible, boolean[] flagged, double minShare) {
+        /**
+         * A rule channel: the share of the day's eligible samples that the rule flags, against the unit's own normal
+         * days, or against a share known from physics ({@code normalShare}, NaN for the unit's own).
+         */
+        ChannelEvidence rule(String mode, String kind, boolean[] eligible, boolean[] flagged, double minShare,
+                             double normalShare) {
             int[] rows = indices(eligible);
             if (rows.length == 0) {
                 return null;
@@ -177,7 +184,9 @@ public final class UnitAnalysis {
                 dayOfRow[k] = day[rows[k]];
                 flags[k] = flagged[rows[k]];
             }
-            DayChannel c = DayChannel.ofShares(kind, dayOfRow, flags, minDaySamples(), SHARE_FLOOR);
+            DayChannel c = Double.isNaN(normalShare)
+                    ? DayChannel.ofShares(kind, dayOfRow, flags, minDaySamples(), SHARE_FLOOR)
+                    : DayChannel.ofSharesAgainst(normalShare, kind, dayOfRow, flags, minDaySamples(), SHARE_FLOOR);
             if (c.size() == 0) {
                 return null;
             }
@@ -261,14 +270,26 @@ public final class UnitAnalysis {
             double[] modeLoad = modes.only(m, cx.load());
             band = LoadBand.fit(modeLoad, settings.band(), settings.bandRuns());
             keep = band.inBand();
+            boolean[] eligible = new boolean[modeLoad.length];
+            boolean[] above = new boolean[modeLoad.length];
+            boolean[] below = new boolean[modeLoad.length];
             for (int i = 0; i < modeLoad.length; i++) {
                 if (inMode[i] && !Double.isNaN(modeLoad[i])) {
                     bandState[i] = keep[i] ? Result.IN_BAND : Result.OUT_OF_BAND;
+                    eligible[i] = true;
+                    above[i] = modeLoad[i] > band.high();
+                    below[i] = modeLoad[i] < band.low();
                 }
+            }
+            // Samples outside the band are not clustered (the published method), but days spent mostly outside it
+            // are evidence of their own: a failed fan pushes every sample of the day above the band.
+            if (settings.band() != org.tufa.analysis.band.BandKind.NONE) {
+                evidence.add(cx.rule(name, "out_of_band_high", eligible, above, 0.5, Double.NaN));
+                evidence.add(cx.rule(name, "out_of_band_low", eligible, below, 0.5, Double.NaN));
             }
         }
         long t0 = System.nanoTime();
-        FeatureMatrix features = ModeFeatures.build(name, s, indices(keep, inMode));
+        FeatureMatrix features = ModeFeatures.build(name, s, indices(keep, inMode), modes.mask(m));
         long t1 = System.nanoTime();
         times.add(StageTimes.Stage.FEATURES, t1 - t0);
         if (features.size() < Math.max(settings.minModeSamples() / 2, settings.minPts() + 1)) {
@@ -287,19 +308,52 @@ public final class UnitAnalysis {
         int[] labels = byDays(clusters.labels(), clusters.clusterCount(), weight);
         List<ClusterSummary> summaries = summarise(name, features, labels, clusters.clusterCount(), settings);
         boolean[] reference = new boolean[labels.length];
-        double referenceWeight = 0;
-        double totalWeight = 0;
         for (int k = 0; k < labels.length; k++) {
             reference[k] = labels[k] >= 0 && !summaries.get(labels[k]).candidateFault();
-            referenceWeight += reference[k] ? weight[k] : 0;
-            totalWeight += weight[k];
         }
-        double referenceShare = referenceWeight / totalWeight;
-        boolean dominant = referenceShare >= MIN_REFERENCE_SHARE;
+        double referenceShare = referenceSamples(reference) / (double) labels.length;
+        boolean dominant = normalDayShare(reference, labels, features.sampleIndex(), cx) >= MIN_REFERENCE_SHARE;
         evidence.addAll(clusterEvidence(name, features, labels, summaries, reference, dominant, cx));
         times.add(StageTimes.Stage.FINDINGS, System.nanoTime() - t3);
         return new ModeResult(name, true, "", modeSamples, band, features, pca, optics, labels, summaries,
                 referenceShare, dominant);
+    }
+
+    private static int referenceSamples(boolean[] reference) {
+        int n = 0;
+        for (boolean r : reference) {
+            n += r ? 1 : 0;
+        }
+        return n;
+    }
+
+    /**
+     * Share of the mode's informative days that candidate-fault clusters do not dominate (they hold less than half of
+     * the day's clustered samples): the days of normal operation. Noise samples count for neither side.
+     */
+    private static double normalDayShare(boolean[] reference, int[] labels, int[] sampleIndex, Context cx) {
+        int days = 0;
+        int normal = 0;
+        int i = 0;
+        int[] day = cx.day();
+        while (i < sampleIndex.length) {
+            int j = i;
+            int clustered = 0;
+            int candidate = 0;
+            while (j < sampleIndex.length && day[sampleIndex[j]] == day[sampleIndex[i]]) {
+                if (labels[j] >= 0) {
+                    clustered++;
+                    candidate += reference[j] ? 0 : 1;
+                }
+                j++;
+            }
+            if (j - i >= cx.minDaySamples()) {
+                days++;
+                normal += 2 * candidate < clustered || clustered == 0 ? 1 : 0;
+            }
+            i = j;
+        }
+        return days == 0 ? 0 : normal / (double) days;
     }
 
     /**
@@ -629,8 +683,9 @@ public final class UnitAnalysis {
      * {@link #HUNTING_ACTIVITY} percent per sample on average: the unit hunts. Changes are counted on the modes
      * before settling, and a fan starting or stopping (to or from off) is not a change, so unoccupied fan cycling
      * never counts; the swing condition keeps a valve that settles near the open threshold (flipping between
-     * fan-only and cooling at low load) from counting, and the window must hold at least two samples with a valve
-     * part-open, so a two-position valve cycling on its thermostat does not count (common practice, no source).
+     * fan-only and cooling at low load) from counting, and only a modulating valve's swing counts
+     * ({@link ValveActivity#twoPosition}): a two-position valve cycling on its thermostat is not hunting (common
+     * practice, no source).
      */
     private static boolean[] hunting(UnitSignals s, FanSignal fanSignal, AnalysisSettings settings) {
         ModeSplit raw = classify(s, fanSignal, settings.modeThresholds().withSettlingSamples(0));
@@ -644,32 +699,15 @@ public final class UnitAnalysis {
         boolean[] flags = ModeHunting.flags(changed, 4, 3);
         double[] cooling = ValveActivity.of(s.coolingValveCommand(), ModeFeatures.ACTIVITY_HALF_WINDOW);
         double[] heating = ValveActivity.of(s.heatingValveCommand(), ModeFeatures.ACTIVITY_HALF_WINDOW);
-        int[] modulating = modulatingPrefix(s);
-        int half = ModeFeatures.ACTIVITY_HALF_WINDOW;
+        // Only a modulating valve can hunt: a two-position valve cycles on its thermostat by design.
+        boolean coolingModulates = !ValveActivity.twoPosition(s.coolingValveCommand());
+        boolean heatingModulates = !ValveActivity.twoPosition(s.heatingValveCommand());
         for (int i = 0; i < flags.length; i++) {
-            double swing = Math.max(Double.isNaN(cooling[i]) ? 0 : cooling[i], Double.isNaN(heating[i]) ? 0 : heating[i]);
-            int lo = Math.max(0, i - half);
-            int hi = Math.min(flags.length, i + half + 1);
-            flags[i] &= swing >= HUNTING_ACTIVITY && modulating[hi] - modulating[lo] >= 2;
+            double swing = Math.max(coolingModulates && !Double.isNaN(cooling[i]) ? cooling[i] : 0,
+                    heatingModulates && !Double.isNaN(heating[i]) ? heating[i] : 0);
+            flags[i] &= swing >= HUNTING_ACTIVITY;
         }
         return flags;
-    }
-
-    /**
-     * Prefix counts of samples in which a valve sits between fully shut and fully open (10-90 %): a modulating
-     * valve that hunts passes through such positions, a two-position valve cycling on its thermostat never does,
-     * and its cycling is its normal control, not hunting.
-     */
-    private static int[] modulatingPrefix(UnitSignals s) {
-        int n = s.size();
-        int[] prefix = new int[n + 1];
-        for (int i = 0; i < n; i++) {
-            double c = s.coolingValveCommand()[i];
-            double h = s.heatingValveCommand()[i];
-            boolean mid = (c > 10 && c < 90) || (h > 10 && h < 90);
-            prefix[i + 1] = prefix[i] + (mid ? 1 : 0);
-        }
-        return prefix;
     }
 
     /**
@@ -712,7 +750,7 @@ public final class UnitAnalysis {
                     default -> BalanceRules.ventilationOffset(0, d, rule.tolerance());
                 };
             }
-            out.add(cx.rule(rule.mode().label(), rule.kind(), eligible, failed, 0.5));
+            out.add(cx.rule(rule.mode().label(), rule.kind(), eligible, failed, 0.5, 0));
         }
         return out;
     }
@@ -751,10 +789,11 @@ public final class UnitAnalysis {
                 || m == OperatingMode.SIMULTANEOUS;
     }
 
+    /** Samples with the fan running: a running mode, or the transition sample after a change of mode. */
     private static boolean[] running(ModeSplit modes) {
         boolean[] out = new boolean[modes.codes().length];
         for (int i = 0; i < out.length; i++) {
-            out[i] = running(modes.at(i));
+            out[i] = running(modes.at(i)) || modes.at(i) == OperatingMode.TRANSITION;
         }
         return out;
     }

@@ -10,6 +10,9 @@ package org.tufa.analysis.significance;
  */
 public final class ScanStatistic {
 
+    /** Largest value a day contributes, in day-to-day spreads (common practice, no source). */
+    public static final double CLIP = 6.0;
+
     private ScanStatistic() {
     }
 
@@ -29,7 +32,7 @@ public final class ScanStatistic {
             double sum = 0;
             for (int len = 1; len <= maxLength && start + len <= to; len++) {
                 double v = z[start + len - 1];
-                sum += Double.isNaN(v) ? 0 : v;
+                sum += Double.isNaN(v) ? 0 : Math.min(v, CLIP);
                 double s = sum / Math.sqrt(len);
                 if (Double.isNaN(best) || s > best) {
                     best = s;

@@ -16,6 +16,7 @@ import org.tufa.analysis.coverage.Profile;
 import org.tufa.analysis.coverage.Role;
 import org.tufa.analysis.coverage.RoleMatch;
 import org.tufa.analysis.coverage.UnitCoverage;
+import org.tufa.analysis.decision.FleetDecision;
 import org.tufa.analysis.features.UnitSignals;
 import org.tufa.analysis.fleet.AnalysisSettings;
 import org.tufa.analysis.fleet.FleetAnalysis;
@@ -49,8 +50,12 @@ final class SyntheticFleet {
     static final List<String> ROLES = List.of("zone_air_temperature", "discharge_air_temperature",
             "zone_temperature_setpoint", "cooling_valve_command", "heating_valve_command", "fan_status");
 
-    /** The fleet: outcomes with the signals each was computed from (null when not analysed). */
-    record Fleet(FleetAnalysis.Result result, FleetCoverage coverage, List<UnitSignals> signals) {
+    /**
+     * The fleet: the decided outcomes, the outcomes straight from the analysis (with their detailed results), the
+     * signals each was computed from (null when not analysed) and each unit's load.
+     */
+    record Fleet(FleetAnalysis.Result result, FleetCoverage coverage, List<UnitOutcome> analysed,
+                 List<UnitSignals> signals, List<double[]> loads) {
     }
 
     private SyntheticFleet() {
@@ -106,22 +111,39 @@ final class SyntheticFleet {
                     : List.of();
             boolean any = r.modeResults().stream().anyMatch(ModeResult::analyzed);
             outcomes.add(new UnitOutcome(u.unitIri(), label, folder, any ? UnitOutcome.ANALYZED : UnitOutcome.SKIPPED,
-                    any ? "" : "no mode could be clustered", notes, r, r.findings()));
+                    any ? "" : "no mode could be clustered", notes, r));
             signals.add(s);
         }
         String skipped = "https://example.org/elm#FCU-99";
         coverage.add(coverage(skipped, "FCU-99", null, true));
         outcomes.add(new UnitOutcome(skipped, "FCU-99", "FCU-99", UnitOutcome.SKIPPED,
-                "missing discharge_air_temperature", List.of(), null, List.of()));
+                "missing discharge_air_temperature", List.of(), null));
         signals.add(null);
+        // The fleet stage, listing every candidate (confidence 0 and up) so the pages show findings of each kind.
+        List<FleetDecision.UnitEvidence> evidence = new ArrayList<>();
+        for (UnitOutcome o : outcomes) {
+            if (o.result() != null && o.status().equals(UnitOutcome.ANALYZED)) {
+                evidence.add(new FleetDecision.UnitEvidence(o.unit(), o.result().evidence()));
+            }
+        }
+        FleetDecision.Decision decision = FleetDecision.fit(evidence, settings.decision(), settings.causes(),
+                settings.dayZone(), settings.maxEpisodeWindowDays());
+        List<UnitOutcome> decided = new ArrayList<>();
+        List<double[]> loads = new ArrayList<>();
+        for (UnitOutcome o : outcomes) {
+            double[] load = o.result() == null ? null : o.result().loadKw();
+            decided.add(o.withoutDetail().decided(decision.findings().getOrDefault(o.unit(), List.of()), 0,
+                    List.of(), load));
+            loads.add(load);
+        }
         Profile profile = new Profile("fcu-modes", "https://tufa.example.org/ns#FcuModes", "", List.of(),
                 ROLES.stream().map(r -> new Role(r, "https://tufa.example.org/ns#" + r, ROLES.indexOf(r), List.of()))
                         .toList());
         FleetCoverage fleet = new FleetCoverage(profile, List.of("https://brickschema.org/schema/Brick#FCU"),
                 coverage, Map.of());
-        FleetAnalysis.Result result = new FleetAnalysis.Result(outcomes,
-                new IngestReport(List.of(), List.of(), List.of(), List.of()), new StageTimes());
-        return new Fleet(result, fleet, signals);
+        FleetAnalysis.Result result = new FleetAnalysis.Result(decided, decision.fleet(), decision.nulls(),
+                decision.tests(), 0, new IngestReport(List.of(), List.of(), List.of(), List.of()), new StageTimes());
+        return new Fleet(result, fleet, outcomes, signals, loads);
     }
 
     private static UnitCoverage coverage(String unit, String label, String ambiguousRole, boolean noDischarge) {
