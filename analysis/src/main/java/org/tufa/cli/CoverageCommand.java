@@ -38,8 +38,8 @@ public final class CoverageCommand implements Callable<Integer> {
         CoverageSummary.lines(coverage, assessed.prefixes(), maxListed).forEach(stdout::println);
         if (coverage.units().isEmpty()) {
             stdout.println("Nothing to analyse in " + fleet.model + ": no instance of the unit classes above. "
-                    + "Check the unit classes, or pass the full Brick file with --vocabulary if the model uses "
-                    + "classes outside tufa's Brick subset.");
+                    + "Check the unit classes, or pass a newer Brick file with --vocabulary if the model uses "
+                    + "classes Brick 1.4.4 does not define.");
             stdout.flush();
             return ExitCodes.CHECK_FAILED;
         }

@@ -39,7 +39,7 @@ public final class Coverage {
     private Coverage() {
     }
 
-    /** Assesses with tufa's shipped vocabulary (Brick subset and tufa.ttl). */
+    /** Assesses with tufa's shipped vocabulary (Brick 1.4.4 and tufa.ttl). */
     public static FleetCoverage assess(Model model, Profile profile, Set<String> unitClasses) {
         return assess(model, Vocabulary.standard(), profile, unitClasses);
     }

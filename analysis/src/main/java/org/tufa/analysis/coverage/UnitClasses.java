@@ -29,7 +29,7 @@ public final class UnitClasses {
             if (iri == null || !known.contains(iri)) {
                 throw new InputException("--unit-class " + name + ": not a terminal-unit class in the loaded vocabulary"
                         + " or model; nearest: " + String.join(", ", nearest(name, known, prefixes))
-                        + " (for classes outside tufa's Brick subset pass the full Brick file with --vocabulary)");
+                        + " (for classes Brick 1.4.4 does not define pass their vocabulary with --vocabulary)");
             }
             out.add(iri);
         }

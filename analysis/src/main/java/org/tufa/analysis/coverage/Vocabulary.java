@@ -4,11 +4,15 @@ import java.nio.file.Path;
 import java.util.List;
 import org.apache.jena.rdf.model.Model;
 import org.apache.jena.rdf.model.ModelFactory;
+import org.apache.jena.graph.GraphUtil;
+import org.tufa.vocabulary.BrickGraph;
+import org.tufa.vocabulary.BrickVocabulary;
 import org.tufa.vocabulary.Namespaces;
 
 /**
- * The class hierarchy and tufa terms the coverage and query stages reason with: tufa's Brick subset, tufa.ttl, and
- * any files the user adds (the full Brick file, their own roles and profiles).
+ * The class hierarchy and tufa terms the coverage and query stages reason with: the Brick vocabulary tufa ships
+ * (Brick 1.4.4, {@link BrickGraph}), tufa.ttl, and any files the user adds (another Brick release, their own roles
+ * and profiles).
  */
 public final class Vocabulary {
     private final Model model;
@@ -19,7 +23,7 @@ public final class Vocabulary {
         this.profiles = ProfileCatalog.from(model);
     }
 
-    /** The shipped vocabulary: Brick subset plus tufa.ttl. */
+    /** The shipped vocabulary: Brick plus tufa.ttl. */
     public static Vocabulary standard() {
         return load(List.of());
     }
@@ -32,7 +36,7 @@ public final class Vocabulary {
      */
     public static Vocabulary load(List<Path> extraFiles) {
         Model model = ModelFactory.createDefaultModel();
-        model.add(ModelLoader.loadResource(Namespaces.BRICK_SUBSET_RESOURCE));
+        GraphUtil.addInto(model.getGraph(), BrickGraph.of(BrickVocabulary.bundled()));
         model.add(ModelLoader.loadResource(Namespaces.TUFA_TERMS_RESOURCE));
         for (Path file : extraFiles) {
             model.add(ModelLoader.load(file));

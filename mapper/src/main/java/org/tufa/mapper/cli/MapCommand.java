@@ -54,8 +54,8 @@ public final class MapCommand implements Callable<Integer> {
             + "rule file's base-iri; default " + IriMinter.DEFAULT_BASE + ")")
     String baseIri;
 
-    @Option(names = "--vocabulary", paramLabel = "TTL", description = "a full Brick file instead of the bundled "
-            + "subset")
+    @Option(names = "--vocabulary", paramLabel = "TTL", description = "a Brick vocabulary file (another release) "
+            + "instead of the bundled Brick 1.4.4")
     Path vocabulary;
 
     @Option(names = "--explain", description = "group unmapped points by name shape, most frequent first")

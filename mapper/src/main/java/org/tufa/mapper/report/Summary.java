@@ -22,9 +22,11 @@ public final class Summary {
         List<String> out = new ArrayList<>();
         Map<Status, Integer> c = r.countByStatus();
         out.add("points read: " + r.mappings().size());
-        out.add(String.format("  mapped %d, unmapped %d, conflict %d, duplicate %d, rejected %d",
-                c.get(Status.MAPPED), c.get(Status.UNMAPPED), c.get(Status.CONFLICT), c.get(Status.DUPLICATE),
-                c.get(Status.REJECTED)));
+        StringBuilder counts = new StringBuilder(" ");
+        for (Status s : Status.values()) {
+            counts.append(counts.length() > 1 ? ", " : " ").append(s.label()).append(' ').append(c.get(s));
+        }
+        out.add(counts.toString());
         if (!r.equipmentByClass().isEmpty()) {
             out.add("equipment by class:");
             r.equipmentByClass().forEach((k, v) -> out.add("  " + k + ": " + v));
