@@ -16,8 +16,8 @@ import java.util.concurrent.ConcurrentHashMap;
  * <p>Score: the Jaccard index |T ∩ A| / |T ∪ A| of the query tags T and a class's tags A (P. Jaccard, Bulletin
  * de la Société Vaudoise des Sciences Naturelles 37, 1901). Candidates are the subclasses of a root (brick:Point
  * for points) that carry tags. A deprecated class takes part under its old name when Brick names a current Brick
- * class as its replacement: its tag set is its own, or, when Brick 1.4 gives it none, the words of its name that
- * are Brick tags ("Chilled_Water_Supply_Temperature_Sensor" -> Chilled, Water, Supply, Temperature, Sensor), and
+ * class as its replacement: its tag set is its own, or, when Brick 1.4 gives it none and every word of its name is a
+ * Brick tag, those words ("Chilled_Water_Supply_Temperature_Sensor" -> Chilled, Water, Supply, Temperature, Sensor), and
  * it answers with the replacement (Leaving_Chilled_Water_Temperature_Sensor): the supply/return to
  * leaving/entering renames of Brick 1.3 are resolved for the user. Ties break, in order, on a current class over
  * a deprecated one, the deeper class (longer rdfs:subClassOf chain: the more specific one), fewer tags, then the
@@ -79,10 +79,13 @@ public final class TagClassResolver {
             }
             SortedSet<String> own = new TreeSet<>(tags);
             if (own.isEmpty()) {
+                // only a name made wholly of tags says what the class is; one word short would match too much
                 for (String w : c.split("_")) {
-                    if (vocabulary.isTag(w)) {
-                        own.add(w);
+                    if (!vocabulary.isTag(w)) {
+                        own.clear();
+                        break;
                     }
+                    own.add(w);
                 }
                 if (!own.isEmpty() && vocabulary.isTag(root)) {
                     own.add(root);
