@@ -19,8 +19,8 @@ import org.tufa.vocabulary.BrickVocabulary;
  * name segment, the tokens nothing knows, and the points whose labels would settle the most of the rest.
  *
  * <p>Shape: the text after the last '/', '\' or ':' (a path's own segment; the whole name otherwise), with every
- * run of letters and digits that holds a digit written '#' (ids, ordinals and room numbers alike: RM_B12, RM_12A,
- * 1st all become RM_#, RM_#, #), except words kept whole such as the tag CO2.
+ * digit run written '#' together with one or two letters glued to it (ids, ordinals and room numbers alike:
+ * RM_B12, RM_12A and RM_1st all become RM_#; VAV07 becomes VAV#), except words kept whole such as the tag CO2.
  *
  * <p>Which to label next: greedy, one representative per shape. Labelling a point is taken to settle its whole
  * shape group and every other open point all of whose unknown tokens the chosen points hold (once the tokens'
@@ -152,6 +152,12 @@ public final class UnmappedExplainer {
         return out;
     }
 
+    private static String collapse(String run) {
+        String s = run.replaceAll("\\d+", "#");
+        s = s.replaceAll("(?<![A-Za-z])[A-Za-z]{1,2}#", "#").replaceAll("#[A-Za-z]{1,2}(?![A-Za-z])", "#");
+        return s.replaceAll("#+", "#");
+    }
+
     /** The shape of a name's own segment (see the class comment). */
     public static String shape(String name) {
         int cut = Math.max(name.lastIndexOf('/'), Math.max(name.lastIndexOf('\\'), name.lastIndexOf(':')));
@@ -170,9 +176,8 @@ public final class UnmappedExplainer {
                 j++;
             }
             String run = own.substring(i, j);
-            boolean digits = run.chars().anyMatch(Character::isDigit);
-            boolean keep = run.equalsIgnoreCase("CO2") || run.matches("(?i)PM(1|10|2)|NO2");
-            b.append(digits && !keep ? "#" : run);
+            boolean keep = run.matches("(?i)CO2|NO2|PM1|PM10|PM2");
+            b.append(keep ? run : collapse(run));
             i = j;
         }
         return b.toString();
