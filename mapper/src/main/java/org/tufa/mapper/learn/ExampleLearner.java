@@ -36,8 +36,9 @@ import org.tufa.vocabulary.BrickVocabulary;
  *   <li><b>Dictionary lines.</b> For every token of the examples a rule gets wrong, the tags all examples holding
  *   that token agree on (the intersection of their classes' Brick tags) are proposed as its meaning in that rule
  *   ({@code abbr TOKEN = Tags}, or {@code = -} when they agree on none), when that differs from what the
- *   dictionary says now. Candidates are tried most-supported first; one is kept only when it makes more examples
- *   come out right.</li>
+ *   dictionary says now. Candidates are tried most-supported first, in two passes; one is kept only when it
+ *   makes more examples come out right or, as many being right, brings their tags nearer their classes' tags
+ *   (summed Jaccard index).</li>
  * </ol>
  * The alignment-and-generalise idea follows the published approach of learning parsing rules from a few labelled
  * examples (Bhattacharya, Ploennigs and Culler, BuildSys 2015); the token-intersection and keep-only-if-better
@@ -93,17 +94,26 @@ public final class ExampleLearner {
 
         // 2. dictionary lines, per rule, kept only when they help
         Map<String, List<String>> added = new LinkedHashMap<>();
-        int best = reproduced(map(lines));
-        for (Candidate c : candidates(lines)) {
-            List<String> trial = insert(lines, c.ruleId(), c.line());
-            if (trial == null) {
-                continue;
-            }
-            int score = reproduced(map(trial));
-            if (score > best) {
-                best = score;
-                lines = trial;
-                added.computeIfAbsent(c.ruleId(), k -> new ArrayList<>()).add(c.line());
+        long best = objective(map(lines));
+        List<Candidate> candidates = candidates(lines);
+        List<Candidate> kept = new ArrayList<>();
+        // two passes: a line may help only once another has cleared a token out of the way
+        for (int pass = 0; pass < 2; pass++) {
+            for (Candidate c : candidates) {
+                if (kept.contains(c)) {
+                    continue;
+                }
+                List<String> trial = insert(lines, c.ruleId(), c.line());
+                if (trial == null) {
+                    continue;
+                }
+                long score = objective(map(trial));
+                if (score > best) {
+                    best = score;
+                    lines = trial;
+                    kept.add(c);
+                    added.computeIfAbsent(c.ruleId(), k -> new ArrayList<>()).add(c.line());
+                }
             }
         }
         MappingResult last = map(lines);
@@ -115,7 +125,7 @@ public final class ExampleLearner {
                         + m.outcome().label() + m.assignment().map(a -> " " + a.className()).orElse(""));
             }
         }
-        return new Learned(newRules, added, examples.size(), before, best, wrong);
+        return new Learned(newRules, added, examples.size(), before, reproduced(last), wrong);
     }
 
     private MappingResult map(List<String> lines) {
@@ -133,6 +143,25 @@ public final class ExampleLearner {
             n += right(examples.get(i), r.mappings().get(i)) ? 1 : 0;
         }
         return n;
+    }
+
+    /**
+     * What a candidate line must raise: examples right first, then (to break ties and let a line count that only
+     * clears the way for another) the summed Jaccard index of each example's tags against its class's tags.
+     */
+    private long objective(MappingResult r) {
+        long right = 0;
+        double near = 0;
+        for (int i = 0; i < examples.size(); i++) {
+            PointMapping m = r.mappings().get(i);
+            right += right(examples.get(i), m) ? 1 : 0;
+            if (m.assignment().isPresent()) {
+                SortedSet<String> want = wanted(examples.get(i).className());
+                want.add("Point");
+                near += org.tufa.vocabulary.TagClassResolver.jaccard(m.assignment().get().tags(), want);
+            }
+        }
+        return right * 1_000_000L + Math.round(near * 100);
     }
 
     private int reproducedOrTaken(MappingResult r) {
