@@ -43,9 +43,4 @@ public record ClassRef(String fixed, String table, Template key, Map<String, Str
     public String keyText(Function<String, String> values) {
         return key.render(values).toUpperCase(Locale.ROOT);
     }
-
-    /** How the rule file wrote it. */
-    public String source() {
-        return isFixed() ? fixed : table + "[" + key.source() + "]";
-    }
 }

@@ -137,11 +137,6 @@ public final class Dictionary {
         return new Lookup(tags, unknown);
     }
 
-    /** Does some level know this token (upper case) as the start of a key? */
-    public boolean knows(String key) {
-        return byFirstToken.containsKey(key) || fallback != null && fallback.knows(key);
-    }
-
     /** The entry that decides at position i: this level's longest key there, else the fallback's. */
     private Entry longestAt(List<String> keys, int i) {
         List<Entry> candidates = byFirstToken.get(keys.get(i));

@@ -106,11 +106,6 @@ public final class RuleFileParser {
         return new RuleFileParser(file, vocabulary, TradeAbbreviations.dictionary(vocabulary)).run(text);
     }
 
-    /** Parses rule-file text with no built-in dictionary under the file's (for the built-in list itself). */
-    static RuleSet parseWithoutBuiltIns(Path file, String text, BrickVocabulary vocabulary) {
-        return new RuleFileParser(file, vocabulary, null).run(text);
-    }
-
     private RuleSet run(String text) {
         if (text.startsWith("\uFEFF")) {
             text = text.substring(1);
