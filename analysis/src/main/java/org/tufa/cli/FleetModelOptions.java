@@ -31,7 +31,7 @@ public final class FleetModelOptions {
     List<String> unitClasses = new ArrayList<>();
 
     @Option(names = "--vocabulary", paramLabel = "FILE",
-            description = "Extra vocabulary: the full Brick file, or your own roles and profiles. Repeatable.")
+            description = "Extra vocabulary: a newer Brick release, or your own roles and profiles (all of Brick 1.4.4 is built in). Repeatable.")
     List<Path> vocabularies = new ArrayList<>();
 
     /** The coverage of the chosen fleet, and the prefixes to print IRIs with. */

@@ -26,8 +26,8 @@ public final class CoverageSummary {
         if (!coverage.undeclaredBrickClasses().isEmpty()) {
             List<String> named = new ArrayList<>();
             coverage.undeclaredBrickClasses().forEach((c, k) -> named.add(prefixes.shortForm(c) + " (" + k + ")"));
-            out.add("Classes the vocabulary does not declare (their instances are not recognised; pass the full Brick "
-                    + "file with --vocabulary): " + String.join(", ", named.subList(0, Math.min(named.size(), maxUnits)))
+            out.add("Classes the vocabulary does not declare (their instances are not recognised: a misspelt name, "
+                    + "or a newer Brick release to pass with --vocabulary): " + String.join(", ", named.subList(0, Math.min(named.size(), maxUnits)))
                     + (named.size() > maxUnits ? " ... and " + (named.size() - maxUnits) + " more" : ""));
         }
         if (n == 0) {

@@ -11,8 +11,8 @@ import java.util.TreeMap;
  * @param unitClasses the terminal-unit classes asked for (IRIs, sorted)
  * @param units one entry per unit, sorted by unit IRI
  * @param undeclaredBrickClasses Brick classes the model uses but the loaded vocabulary does not declare, with
- *     their instance counts (sorted): their instances may be terminal units tufa cannot recognise without the
- *     full Brick file
+ *     their instance counts (sorted): their instances may be terminal units tufa cannot recognise (a misspelt
+ *     class, or one from a Brick release newer than the bundled 1.4.4)
  */
 public record FleetCoverage(Profile profile, List<String> unitClasses, List<UnitCoverage> units,
         Map<String, Integer> undeclaredBrickClasses) {

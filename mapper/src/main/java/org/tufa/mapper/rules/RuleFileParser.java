@@ -497,7 +497,8 @@ public final class RuleFileParser {
         if (ci.isPresent()) {
             return ci.get();
         }
-        throw error(ln, vocabulary.unknownTagMessage(name));
+        throw error(ln, vocabulary.unknownTagMessage(name) + "; pass --vocabulary with a newer Brick file if the "
+                + "tag is real");
     }
 
     /**
