@@ -118,6 +118,13 @@ public final class Mapper {
             }
             out.add(new PointMapping(p, status, reason, o.assignment(), occurrence, o.status()));
         }
+        long roleless = out.stream().filter(m -> m.assignment().isPresent() && m.assignment().get().score() < 1
+                && m.assignment().get().tags().stream().noneMatch(RuleSet.ROLE_TAGS::contains)).count();
+        if (roleless > 0 && rules.defaultRole().isEmpty()) {
+            warnings.add(roleless + " tag-matched point(s) got no role (Sensor, Setpoint, Command, ...) from their name "
+                    + "or object type, so sensor and setpoint classes compete; an export without object types wants "
+                    + "'default-role Sensor' (or type-tags lines)");
+        }
         if (duplicateNames > 0) {
             warnings.add(duplicateNames + " point name(s) occur on more than one row (same device); every row is kept "
                     + "(status 'duplicate' in the report)");
