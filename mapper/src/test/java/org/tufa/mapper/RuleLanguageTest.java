@@ -241,6 +241,31 @@ class RuleLanguageTest {
     }
 
     @Test
+    void theCommandPrintsTheExplanationAndTheLearnedLines(@TempDir Path dir) throws Exception {
+        Path points = dir.resolve("p.csv");
+        Files.writeString(points, "Name\nzn_temp_box_3\nzn_hmd_box_3\nzn_temp_box_4\nzn_hmd_box_4\n",
+                StandardCharsets.UTF_8);
+        Path rules = dir.resolve("r.tufa");
+        Files.writeString(rules, "building B\ndefault-role Sensor\n");
+        Path examples = dir.resolve("ex.csv");
+        Files.writeString(examples, "point_name,brick_class,equipment,equipment_class\n"
+                + "zn_temp_box_3,Zone_Air_Temperature_Sensor,VAV-3,Variable_Air_Volume_Box\n"
+                + "zn_hmd_box_3,Zone_Air_Humidity_Sensor,VAV-3,Variable_Air_Volume_Box\n");
+        StringWriter console = new StringWriter();
+        CommandLine cli = new CommandLine(new MapCommand());
+        cli.setOut(new java.io.PrintWriter(console));
+        int code = cli.execute("--points", points.toString(), "--rules", rules.toString(), "--out",
+                dir.resolve("m.ttl").toString(), "--explain", "--examples", examples.toString());
+        String text = console.toString();
+        assertEquals(0, code, text);
+        assertTrue(text.contains("points that need a person (4)"), text);
+        assertTrue(text.contains("zn_temp_box_#"), text);
+        assertTrue(text.contains("label these next"), text);
+        assertTrue(text.contains("examples: 2; the rules reproduce 0 of them, and 2 with these lines:"), text);
+        assertTrue(text.contains("equipment VAV-{id} Variable_Air_Volume_Box"), text);
+    }
+
+    @Test
     void aFailedRunRemovesTheOutputsItWouldHaveReplacedAndEveryOptionIsDescribed(@TempDir Path dir)
             throws Exception {
         Path points = dir.resolve("p.csv");
