@@ -92,9 +92,9 @@ class RuleLanguageTest {
 
     @Test
     void tablesGiveEquipmentAndPartClassesFromAGroup() {
-        String text = "table KINDS SF=Supply_Fan RF=Return_Fan\ntable KINDS EF=Exhaust_Fan\n"
+        String text = "table KINDS SF=Supply_Fan RF=Return_Fan\n"
                 + "rule fans\n  match name ^(?<k>[A-Za-z]+)(?<n>\\d)_(?<w>.+)$\n  class tags {w}\n"
-                + "  equipment {k}{n} KINDS[{k}]\n";
+                + "  equipment {k}{n} KINDS[{k}]\ntable KINDS EF=Exhaust_Fan\n";
         MappingResult r = map(text, "SF1_STS", "ef2_STS", "XF3_STS");
         assertEquals("Supply_Fan", a(r, 0).equipment().orElseThrow().className());
         assertEquals("Exhaust_Fan", a(r, 1).equipment().orElseThrow().className(), "keys ignore case");

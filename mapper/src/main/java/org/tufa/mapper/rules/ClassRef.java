@@ -22,9 +22,12 @@ public record ClassRef(String fixed, String table, Template key, Map<String, Str
         return new ClassRef(className, null, null, Map.of());
     }
 
-    /** A table look-up. */
+    /**
+     * A table look-up. {@code entries} is the parser's table, seen through a read-only view so that table lines
+     * further down the file count too; the parser never changes it once the file is read.
+     */
     public static ClassRef lookup(String table, Template key, Map<String, String> entries) {
-        return new ClassRef(null, table, key, Map.copyOf(entries));
+        return new ClassRef(null, table, key, java.util.Collections.unmodifiableMap(entries));
     }
 
     public boolean isFixed() {
