@@ -21,6 +21,7 @@ import org.tufa.mapper.rules.Rule;
 import org.tufa.mapper.rules.RuleFileParser;
 import org.tufa.mapper.rules.RuleSet;
 import org.tufa.vocabulary.BrickVocabulary;
+import org.tufa.vocabulary.TagClassResolver;
 
 /**
  * Proposes rule-file lines that make the rules reproduce labelled examples (point name -> class, equipment).
@@ -56,11 +57,13 @@ public final class ExampleLearner {
     private final Path file;
     private final BrickVocabulary vocabulary;
     private final List<Example> examples;
+    private final TagClassResolver resolver;
 
     private ExampleLearner(Path file, BrickVocabulary vocabulary, List<Example> examples) {
         this.file = file;
         this.vocabulary = vocabulary;
         this.examples = examples;
+        this.resolver = TagClassResolver.fit(vocabulary, "Point");
     }
 
     /** Learns from examples against a rule file's text. */
@@ -134,7 +137,7 @@ public final class ExampleLearner {
         for (Example e : examples) {
             points.add(e.point());
         }
-        return Mapper.fit(rs, vocabulary).map(points);
+        return Mapper.fit(rs, vocabulary, resolver).map(points);
     }
 
     private int reproduced(MappingResult r) {
@@ -158,7 +161,7 @@ public final class ExampleLearner {
             if (m.assignment().isPresent()) {
                 SortedSet<String> want = wanted(examples.get(i).className());
                 want.add("Point");
-                near += org.tufa.vocabulary.TagClassResolver.jaccard(m.assignment().get().tags(), want);
+                near += TagClassResolver.jaccard(m.assignment().get().tags(), want);
             }
         }
         return right * 1_000_000L + Math.round(near * 100);
@@ -285,7 +288,7 @@ public final class ExampleLearner {
 
     private List<Candidate> candidates(List<String> lines) {
         RuleSet rs = RuleFileParser.parse(file, String.join("\n", lines), vocabulary);
-        MappingResult r = Mapper.fit(rs, vocabulary).map(examples.stream().map(Example::point).toList());
+        MappingResult r = Mapper.fit(rs, vocabulary, resolver).map(examples.stream().map(Example::point).toList());
         Map<String, Rule> rules = new TreeMap<>();
         for (Rule rule : rs.rules()) {
             rules.put(rule.label(), rule);

@@ -48,10 +48,10 @@ public final class Mapper {
     private final java.util.concurrent.ConcurrentHashMap<String, Set<String>> qualifierCache =
             new java.util.concurrent.ConcurrentHashMap<>();
 
-    private Mapper(RuleSet rules, BrickVocabulary vocabulary) {
+    private Mapper(RuleSet rules, BrickVocabulary vocabulary, TagClassResolver pointResolver) {
         this.rules = rules;
         this.vocabulary = vocabulary;
-        this.pointResolver = TagClassResolver.fit(vocabulary, "Point");
+        this.pointResolver = pointResolver;
         Map<String, List<Integer>> prefixes = new HashMap<>();
         List<Integer> none = new ArrayList<>();
         TreeSet<Integer> lengths = new TreeSet<>();
@@ -72,7 +72,12 @@ public final class Mapper {
 
     /** Prepares a mapper (pre-filter index, class resolver) for a rule set. */
     public static Mapper fit(RuleSet rules, BrickVocabulary vocabulary) {
-        return new Mapper(rules, vocabulary);
+        return new Mapper(rules, vocabulary, TagClassResolver.fit(vocabulary, "Point"));
+    }
+
+    /** The same with a point-class resolver already fitted to {@code vocabulary} (shared across many rule sets). */
+    public static Mapper fit(RuleSet rules, BrickVocabulary vocabulary, TagClassResolver pointResolver) {
+        return new Mapper(rules, vocabulary, pointResolver);
     }
 
     /** Maps every row of a point list and checks the rule file's expectations. */
