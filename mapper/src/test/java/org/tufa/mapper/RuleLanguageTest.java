@@ -176,9 +176,10 @@ class RuleLanguageTest {
         // Brick 1.3.0 deprecated Chilled_Water_Supply_Temperature_Sensor (isReplacedBy
         // Leaving_Chilled_Water_Temperature_Sensor) and the return/entering pair likewise (Brick.ttl, 1.4.4)
         MappingResult r = map("default-role Sensor\nrule p\n  match name ^PLANT_(?<w>.+)$\n  class tags {w}\n",
-                "PLANT_CHW_SUPPLY_TEMP", "PLANT_CHW_RETURN_TEMP");
+                "PLANT_CHW_SUPPLY_TEMP", "PLANT_CHW_RETURN_TEMP", "PLANT_HWS_TEMP");
         assertEquals("Leaving_Chilled_Water_Temperature_Sensor", a(r, 0).className());
         assertEquals("Entering_Chilled_Water_Temperature_Sensor", a(r, 1).className());
+        assertEquals("Leaving_Hot_Water_Temperature_Sensor", a(r, 2).className(), "built-in HWS, then the rename");
         assertTrue(r.mappings().get(0).reason().contains("deprecated; written as"), r.mappings().get(0).reason());
     }
 
