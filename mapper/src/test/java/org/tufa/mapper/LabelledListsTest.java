@@ -11,8 +11,7 @@ import java.util.Optional;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
-import org.tufa.mapper.bench.LabelledLists;
-import org.tufa.mapper.bench.LabelledListsBenchmark;
+import org.tufa.mapper.learn.LabelledLists;
 import org.tufa.mapper.match.MappingResult;
 import org.tufa.vocabulary.BrickVocabulary;
 
@@ -34,14 +33,14 @@ class LabelledListsTest {
     @ParameterizedTest
     @ValueSource(strings = {"soda", "rice", "gtc"})
     void shortRuleFileGivesTerminalUnitPointsTheirModellersClass(String list) throws Exception {
-        Optional<Path> lists = LabelledListsBenchmark.findLists();
+        Optional<Path> lists = LabelledLists.findLists();
         assumeTrue(lists.isPresent(), "../shared/brick-examples absent: labelled-list check skipped");
         Path rules = ruleFile(list);
         List<LabelledLists.Labelled> labelled = LabelledLists.read(
                 lists.get().resolve(list + "-points-labelled.csv"), vocabulary);
-        MappingResult result = LabelledListsBenchmark.map(rules, labelled, vocabulary);
+        MappingResult result = LabelledLists.map(rules, labelled, vocabulary);
         LabelledLists.Score s = LabelledLists.score(labelled, LabelledLists.answers(result), vocabulary);
-        int lines = LabelledListsBenchmark.statementLines(rules);
+        int lines = LabelledLists.statementLines(rules);
         System.out.printf("labelled %-5s terminal-unit points %d (scored %d), rule lines %d, exact %.1f %%, "
                 + "ambiguous %d, unclassified %d, wrong but mapped %d%n", list, s.terminalPoints(), s.scorable(),
                 lines, 100 * s.exactShare(), s.ambiguous(), s.unclassified(), s.wrongButMapped());

@@ -8,7 +8,7 @@ import java.util.List;
 import java.util.Map;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
-import org.tufa.mapper.bench.LabelledLists;
+import org.tufa.mapper.learn.LabelledLists;
 import org.tufa.vocabulary.BrickVocabulary;
 
 /**

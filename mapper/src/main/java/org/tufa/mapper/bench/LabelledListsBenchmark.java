@@ -10,14 +10,11 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
-import java.util.Optional;
 import java.util.TreeMap;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVRecord;
-import org.tufa.mapper.match.Mapper;
+import org.tufa.mapper.learn.LabelledLists;
 import org.tufa.mapper.match.MappingResult;
-import org.tufa.mapper.rules.RuleFileParser;
-import org.tufa.mapper.rules.RuleSet;
 import org.tufa.vocabulary.BrickVocabulary;
 
 /**
@@ -65,7 +62,7 @@ public final class LabelledListsBenchmark {
             }
         }
         if (lists == null) {
-            lists = findLists().orElse(null);
+            lists = LabelledLists.findLists().orElse(null);
         }
         if (lists == null || !Files.isDirectory(lists)) {
             System.err.println("shared/brick-examples not found; give --lists DIR");
@@ -84,11 +81,11 @@ public final class LabelledListsBenchmark {
             } else {
                 Path ruleFile = rules.resolve(name + ".tufa");
                 long t0 = System.nanoTime();
-                MappingResult result = map(ruleFile, labelled, vocabulary);
+                MappingResult result = LabelledLists.map(ruleFile, labelled, vocabulary);
                 System.out.printf(Locale.ROOT, "%s: %d points mapped in %.0f ms (parse, match)%n", name,
                         labelled.size(), (System.nanoTime() - t0) / 1e6);
                 answers = LabelledLists.answers(result);
-                lines = statementLines(ruleFile);
+                lines = LabelledLists.statementLines(ruleFile);
             }
             rows.add(new Row(name, lines, LabelledLists.score(labelled, answers, vocabulary)));
         }
@@ -100,17 +97,7 @@ public final class LabelledListsBenchmark {
         }
     }
 
-    /** Maps a labelled list's names with a rule file. */
-    public static MappingResult map(Path ruleFile, List<LabelledLists.Labelled> labelled, BrickVocabulary vocabulary) {
-        RuleSet rs = RuleFileParser.parse(ruleFile, vocabulary);
-        return Mapper.fit(rs, vocabulary).map(LabelledLists.points(labelled));
-    }
 
-    /** Lines that say something: not blank, not a comment. */
-    public static int statementLines(Path ruleFile) throws IOException {
-        return (int) Files.readAllLines(ruleFile, StandardCharsets.UTF_8).stream().map(String::strip)
-                .filter(l -> !l.isEmpty() && !l.startsWith("#")).count();
-    }
 
     /** The markdown table of the rows. */
     public static List<String> table(List<Row> rows) {
@@ -141,14 +128,4 @@ public final class LabelledListsBenchmark {
         return out;
     }
 
-    /** shared/brick-examples above the working directory. */
-    public static Optional<Path> findLists() {
-        for (Path p = Path.of("").toAbsolutePath(); p != null; p = p.getParent()) {
-            Path f = p.resolve("shared/brick-examples");
-            if (Files.isDirectory(f)) {
-                return Optional.of(f);
-            }
-        }
-        return Optional.empty();
-    }
 }

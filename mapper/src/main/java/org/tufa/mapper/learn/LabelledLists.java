@@ -1,4 +1,4 @@
-package org.tufa.mapper.bench;
+package org.tufa.mapper.learn;
 
 import java.io.IOException;
 import java.io.Reader;
@@ -12,10 +12,13 @@ import java.util.Optional;
 import java.util.TreeMap;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVRecord;
+import org.tufa.mapper.match.Mapper;
 import org.tufa.mapper.match.MappingResult;
 import org.tufa.mapper.match.PointMapping;
 import org.tufa.mapper.match.Status;
 import org.tufa.mapper.points.PointRecord;
+import org.tufa.mapper.rules.RuleFileParser;
+import org.tufa.mapper.rules.RuleSet;
 import org.tufa.vocabulary.BrickVocabulary;
 
 /**
@@ -110,6 +113,29 @@ public final class LabelledLists {
             out.putIfAbsent(m.point().name(), new Answer(s.label(), s == Status.UNCLASSIFIED ? "" : cls));
         }
         return out;
+    }
+
+    /** Maps a labelled list's names with a rule file. */
+    public static MappingResult map(Path ruleFile, List<Labelled> labelled, BrickVocabulary vocabulary) {
+        RuleSet rs = RuleFileParser.parse(ruleFile, vocabulary);
+        return Mapper.fit(rs, vocabulary).map(points(labelled));
+    }
+
+    /** Lines of a rule file that say something: not blank, not a comment. */
+    public static int statementLines(Path ruleFile) throws IOException {
+        return (int) Files.readAllLines(ruleFile, StandardCharsets.UTF_8).stream().map(String::strip)
+                .filter(l -> !l.isEmpty() && !l.startsWith("#")).count();
+    }
+
+    /** shared/brick-examples above the working directory, where the published lists are. */
+    public static Optional<Path> findLists() {
+        for (Path p = Path.of("").toAbsolutePath(); p != null; p = p.getParent()) {
+            Path f = p.resolve("shared/brick-examples");
+            if (Files.isDirectory(f)) {
+                return Optional.of(f);
+            }
+        }
+        return Optional.empty();
     }
 
     /** Scores the answers on the list's terminal-unit points. */
