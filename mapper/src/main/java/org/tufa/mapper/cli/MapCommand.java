@@ -1,7 +1,11 @@
 package org.tufa.mapper.cli;
 
+import java.io.IOException;
 import java.io.PrintWriter;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.Arrays;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
@@ -110,26 +114,26 @@ public final class MapCommand implements Callable<Integer> {
 
     /** After a failed run: the outputs a successful run would have replaced are removed (never an input file). */
     private void removeStaleOutputs() {
-        for (Path o : java.util.Arrays.asList(out, report)) {
+        for (Path o : Arrays.asList(out, report)) {
             if (o == null || isInput(o)) {
                 continue;
             }
             try {
-                java.nio.file.Files.deleteIfExists(o);
-            } catch (java.io.IOException ignored) {
+                Files.deleteIfExists(o);
+            } catch (IOException ignored) {
                 // best effort: the error being reported matters more
             }
         }
     }
 
     private boolean isInput(Path o) {
-        for (Path in : java.util.Arrays.asList(points, rules, examples, vocabulary)) {
+        for (Path in : Arrays.asList(points, rules, examples, vocabulary)) {
             try {
-                if (in != null && java.nio.file.Files.exists(o) && java.nio.file.Files.exists(in)
-                        && java.nio.file.Files.isSameFile(o, in)) {
+                if (in != null && Files.exists(o) && Files.exists(in)
+                        && Files.isSameFile(o, in)) {
                     return true;
                 }
-            } catch (java.io.IOException e) {
+            } catch (IOException e) {
                 return true;
             }
         }
@@ -176,8 +180,8 @@ public final class MapCommand implements Callable<Integer> {
 
     private static String readText(Path file) {
         try {
-            return java.nio.file.Files.readString(file, java.nio.charset.StandardCharsets.UTF_8);
-        } catch (java.io.IOException e) {
+            return Files.readString(file, StandardCharsets.UTF_8);
+        } catch (IOException e) {
             throw InputException.in(file, "rule file cannot be read (" + e.getClass().getSimpleName() + ")");
         }
     }
