@@ -235,7 +235,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
 
     private Map<String, Object> parameters(AnalysisSettings s, TimeOptions time, ZoneId zone) {
         Map<String, Object> p = new LinkedHashMap<>();
-        p.put("profile", fleet.profile);
+        p.put("profile", fleet.profiles.isEmpty() ? "automatic" : String.join(",", new java.util.TreeSet<>(fleet.profiles)));
         p.put("unit_classes", String.join(",", assessedClasses()));
         p.put("timezone", zone.getId());
         p.put("from", time.from() == null ? "" : time.from().toString());

@@ -100,7 +100,7 @@ public final class DemoCommand implements Callable<Integer> {
             stdout.println("Reusing the trends already simulated in " + dir);
             return;
         }
-        FleetModelOptions.Assessed assessed = FleetModelOptions.assess(model, "fcu-modes", List.of(), List.of());
+        FleetModelOptions.Assessed assessed = FleetModelOptions.assess(model, List.of(), List.of(), List.of());
         DemoTargets targets = DemoTargets.from(assessed.coverage());
         SimulationPlan plan = DemoSimulation.plan(targets.units(), targets.building(), season, DemoSimulation.DEMO_SEED);
         SimulationResult result = Simulator.run(plan);
