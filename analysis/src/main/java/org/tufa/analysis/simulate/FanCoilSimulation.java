@@ -296,8 +296,13 @@ final class FanCoilSimulation {
 
     /** Share of peak internal gains in occupied hours: ramp-up in the first 90 min, lunch dip, wind-down. */
     private static double occupiedProfile(int minuteOfDay, UnitParameters p) {
-        double sinceStart = minuteOfDay - p.occupiedStartMinute();
-        double untilEnd = p.occupiedEndMinute() - minuteOfDay;
+        return occupiedProfile(minuteOfDay, p.occupiedStartMinute(), p.occupiedEndMinute());
+    }
+
+    /** As above, for an occupied period from {@code startMinute} to {@code endMinute} (local minutes of day). */
+    static double occupiedProfile(int minuteOfDay, int startMinute, int endMinute) {
+        double sinceStart = minuteOfDay - startMinute;
+        double untilEnd = endMinute - minuteOfDay;
         double f = sinceStart < 90 ? 0.6 + 0.4 * sinceStart / 90.0 : 1.0;
         if (minuteOfDay >= 720 && minuteOfDay < 780) {
             f = Math.min(f, 0.85);
@@ -308,7 +313,7 @@ final class FanCoilSimulation {
         return f;
     }
 
-    private static double spike(SeededRandom rng) {
+    static double spike(SeededRandom rng) {
         if (rng.nextDouble() >= SPIKE_PROBABILITY) {
             return 0.0;
         }
@@ -316,11 +321,11 @@ final class FanCoilSimulation {
         return rng.nextDouble() < 0.5 ? -size : size;
     }
 
-    private static double towards(double from, double to, double maxStep) {
+    static double towards(double from, double to, double maxStep) {
         return from + clamp(to - from, -maxStep, maxStep);
     }
 
-    private static double clamp(double v, double lo, double hi) {
+    static double clamp(double v, double lo, double hi) {
         return Math.max(lo, Math.min(hi, v));
     }
 }
