@@ -6,8 +6,8 @@ package org.tufa.analysis.simulate;
  *
  * <p>Supply air temperature setpoint reset (ASHRAE Guideline 36 resets it between a minimum and a maximum by trim
  * and respond on the zones' cooling requests, with the maximum limited by the outdoor temperature; from memory):
- * here the outdoor-temperature limit alone stands in, 12.8 C (55 F) at or above 21 C outdoors, 16 C at or below
- * 15.5 C, linear between. The supply temperature follows the setpoint with a slow +/- 0.3 K wander and drifts up
+ * here the outdoor-temperature limit alone stands in, 12.8 C (55 F) at or above 21 C outdoors, 14.5 C at or below
+ * 15.5 C, linear between (a narrow range, as the interior zones' cooling requests would keep it). The supply temperature follows the setpoint with a slow +/- 0.3 K wander and drifts up
  * 0.08 K per K of outdoor temperature above 30 C (the cooling coil's capacity limit on hot afternoons; chosen, no
  * source). The static pressure holds its 250 Pa (1 in. of water) setpoint within a +/- 4 Pa wander. The air handler
  * is taken to run around the clock (in unoccupied hours it would run in setback whenever a zone calls; the boxes
@@ -17,7 +17,7 @@ public record AirHandlerConditions(double[] supplyAirC, double[] supplyStaticPa)
     /** Supply air temperature setpoint at or above 21 C outdoors, C. */
     public static final double SAT_MIN_C = 12.8;
     /** Supply air temperature setpoint at or below 15.5 C outdoors, C. */
-    public static final double SAT_MAX_C = 16.0;
+    public static final double SAT_MAX_C = 14.5;
     /** Supply duct static pressure setpoint, Pa. */
     public static final double STATIC_SETPOINT_PA = 250.0;
 

@@ -75,9 +75,10 @@ public enum FaultType {
      */
     INSUFFICIENT_SUPPLY_AIR(Kind.VAV, "insufficient_supply_air", 0.5, 1.0),
     /**
-     * VAV: the box's maximum airflow setpoint is set to {@code 1.4 + 0.8 * severity} times its design value (a
-     * mis-set maximum after rebalancing), beyond what the inlet delivers with the damper fully open: at high load
-     * the flow loop asks for airflow it cannot get, the damper stays at 100 % and the airflow short of setpoint.
+     * VAV: the box's airflow setpoint is held (an operator override, or a mis-set flow factor) at
+     * {@code 1.4 + 0.8 * severity} times its design maximum whenever the box is on, beyond what the inlet delivers
+     * with the damper fully open: the damper stays at 100 %, the airflow short of its setpoint, the zone overcooled
+     * (and, on a reheat box, the reheat fighting it).
      */
     UNREACHABLE_AIRFLOW_SETPOINT(Kind.VAV, "unreachable_airflow_setpoint", 0.5, 1.0);
 

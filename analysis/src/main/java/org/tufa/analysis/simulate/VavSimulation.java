@@ -174,17 +174,16 @@ final class VavSimulation {
 
             // Airflow setpoint: minimum in deadband, up to the cooling maximum with the cooling loop, up to the
             // heating maximum with the second half of the heating loop.
-            double maxSetpoint = p.maxAirflowLps();
-            if (faulty && type == FaultType.UNREACHABLE_AIRFLOW_SETPOINT) {
-                maxSetpoint *= 1.4 + 0.8 * severity;
-            }
             double flowSp = 0;
             if (on) {
                 flowSp = p.minAirflowLps();
                 if (coolLoop > 0) {
-                    flowSp += (maxSetpoint - p.minAirflowLps()) * coolLoop / 100.0;
+                    flowSp += (p.maxAirflowLps() - p.minAirflowLps()) * coolLoop / 100.0;
                 } else if (heatLoop > 50) {
                     flowSp += (p.heatingMaxAirflowLps() - p.minAirflowLps()) * (heatLoop - 50) / 50.0;
+                }
+                if (faulty && type == FaultType.UNREACHABLE_AIRFLOW_SETPOINT) {
+                    flowSp = p.maxAirflowLps() * (1.4 + 0.8 * severity);
                 }
             }
 
