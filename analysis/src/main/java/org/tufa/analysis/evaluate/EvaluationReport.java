@@ -21,7 +21,7 @@ public final class EvaluationReport {
     /** The table printed by {@code tufa evaluate}, goals beside the numbers. */
     public static List<String> table(Evaluation.Result r) {
         List<String> lines = new ArrayList<>();
-        lines.add(String.format(Locale.ROOT, "%-24s %6s %9s %11s %10s %8s", "fault", "units", "detected*",
+        lines.add(String.format(Locale.ROOT, "%-28s %6s %9s %11s %10s %8s", "fault", "units", "detected*",
                 "analysable_h", "flagged_h", "flagged"));
         for (Evaluation.GroupScore g : r.byFault()) {
             lines.add(row(g));
@@ -29,7 +29,7 @@ public final class EvaluationReport {
         lines.add(row(r.allFaults()));
         r.byKind().forEach(g -> lines.add(row(g)));
         Evaluation.GroupScore h = r.healthy();
-        lines.add(String.format(Locale.ROOT, "%-24s %6d %9s %11.1f %10.1f %8s", h.scope(), h.units(), "-",
+        lines.add(String.format(Locale.ROOT, "%-28s %6d %9s %11.1f %10.1f %8s", h.scope(), h.units(), "-",
                 h.analysableHours(), h.flaggedHours(), percent(h.flaggedShare())));
         lines.add("* detected / episodes on analysed units (+ episodes on units that could not be analysed)");
         lines.add(String.format(Locale.ROOT, "goal: every injected episode detected (>= %s h flagged): %d/%d %s%s",
@@ -45,7 +45,7 @@ public final class EvaluationReport {
     }
 
     private static String row(Evaluation.GroupScore g) {
-        return String.format(Locale.ROOT, "%-24s %6d %9s %11.1f %10.1f %8s", g.scope(), g.units(),
+        return String.format(Locale.ROOT, "%-28s %6d %9s %11.1f %10.1f %8s", g.scope(), g.units(),
                 g.detected() + "/" + (g.episodes() - g.notAnalysed()) + (g.notAnalysed() == 0 ? "" : " +" + g.notAnalysed()),
                 g.analysableHours(), g.flaggedHours(), percent(g.flaggedShare()));
     }

@@ -6,9 +6,8 @@ import java.util.Optional;
  * One VAV box (cooling-only, or with hot-water reheat) and its zone, simulated at one-minute steps and sampled every
  * 15 minutes, fed by the wing's air handler ({@link AirHandlerConditions}).
  *
- * <p>Zone: the same two-node resistance-capacitance model as {@link FanCoilSimulation} (zone air with furnishings,
- * building mass; envelope, internal and solar gains split the same way), with the box's supply air as the HVAC
- * term: Q = rho cp V (T_discharge - T_zone), the air-side sensible heat of ASHRAE Handbook Fundamentals.
+ * <p>Zone: {@link TwoNodeZone}, as for the fan coil units, with the box's supply air as the HVAC term:
+ * Q = rho cp V (T_discharge - T_zone), the air-side sensible heat of ASHRAE Handbook Fundamentals.
  *
  * <p>Control, as ASHRAE Guideline 36 sequences a VAV box (from memory; simplified): two PI loops on the zone
  * sensor, cooling (24 C occupied) and heating (21 C), 3 K apart. In cooling the cooling loop raises the airflow
@@ -114,8 +113,8 @@ final class VavSimulation {
         double datAlphaFlow = 1 - Math.exp(-1.0);
         double datAlphaStill = 1 - Math.exp(-1.0 / 10.0);
 
-        double tAir = 24.0;
-        double tMass = 24.0;
+        TwoNodeZone zoneModel = new TwoNodeZone(24.0);
+        double tAir = zoneModel.air();
         double zoneSensor = tAir;
         double datSensor = tAir;
         double damperPos = 0;
@@ -237,18 +236,12 @@ final class VavSimulation {
             double datTarget = airflowSeen ? leaving : tAir;
             datSensor += (datTarget - datSensor) * (airflowSeen ? datAlphaFlow : datAlphaStill);
 
-            // Zone heat balance.
-            double internalW = occupied
-                    ? peakInternalW * FanCoilSimulation.occupiedProfile(minuteOfDay, p.occupiedStartMinute(),
-                    p.occupiedEndMinute()) * dayFactor[site.localDay()[m]]
-                    : 0.15 * peakInternalW;
-            double solarW = solarAperture * facade[m];
-            double toMassW = p.massConductanceWPerK() * (tAir - tMass);
-            double airNet = p.envelopeUaWPerK() * (outdoor[m] - tAir) - toMassW + cAir * (leaving - tAir)
-                    + 0.5 * internalW + 0.4 * solarW;
-            double massNet = toMassW + 0.5 * internalW + 0.6 * solarW;
-            tAir += DT * airNet / p.airCapacitanceJPerK();
-            tMass += DT * massNet / p.massCapacitanceJPerK();
+            // Zone heat balance: the supply air brings rho cp V (T_discharge - T_zone).
+            double internalW = TwoNodeZone.internalGainsW(occupied, peakInternalW, minuteOfDay,
+                    p.occupiedStartMinute(), p.occupiedEndMinute(), dayFactor[site.localDay()[m]]);
+            zoneModel.step(DT, p.envelopeUaWPerK(), p.massConductanceWPerK(), p.airCapacitanceJPerK(),
+                    p.massCapacitanceJPerK(), outdoor[m], cAir * (leaving - tAir), internalW, solarAperture * facade[m]);
+            tAir = zoneModel.air();
 
             int k = m - warmUp;
             if (k >= 0 && k % 15 == 0) {
