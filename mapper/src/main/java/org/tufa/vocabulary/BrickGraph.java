@@ -13,7 +13,8 @@ import org.apache.jena.vocabulary.RDF;
 import org.apache.jena.vocabulary.RDFS;
 
 /**
- * The RDF statements a {@link BrickVocabulary} stands for, as Brick writes them: for every class rdf:type
+ * The RDF statements a {@link BrickVocabulary} stands for, as Brick writes them: the ontology's declaration and
+ * owl:versionInfo; for every class rdf:type
  * owl:Class, rdfs:subClassOf, owl:equivalentClass, brick:hasAssociatedTag, the deprecation (owl:deprecated,
  * brick:deprecatedInVersion, brick:deprecationMitigationMessage, brick:isReplacedBy), rdfs:label and
  * skos:definition; every tag as a brick:Tag; properties with their types, owl:inverseOf, label and definition;
@@ -30,6 +31,13 @@ public final class BrickGraph {
         Node type = RDF.type.asNode();
         Node hasTag = uri(Namespaces.BRICK + "hasAssociatedTag");
         Node definition = uri(Namespaces.SKOS + "definition");
+        if (!v.ontologyIri().isEmpty()) {
+            Node o = uri(v.ontologyIri());
+            g.add(Triple.create(o, type, OWL2.Ontology.asNode()));
+            if (!v.version().isEmpty()) {
+                g.add(Triple.create(o, OWL2.versionInfo.asNode(), NodeFactory.createLiteralString(v.version())));
+            }
+        }
         for (BrickVocabulary.ClassInfo c : v.classes().values()) {
             Node s = uri(Namespaces.BRICK + c.name());
             g.add(Triple.create(s, type, OWL2.Class.asNode()));

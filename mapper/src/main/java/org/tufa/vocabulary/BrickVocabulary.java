@@ -66,6 +66,7 @@ public final class BrickVocabulary {
 
     private final String source;
     private final String version;
+    private final String ontologyIri;
     private final SortedMap<String, ClassInfo> classes;
     private final SortedSet<String> tags;
     private final Map<String, String> tagsByLowerCase;
@@ -73,10 +74,11 @@ public final class BrickVocabulary {
     private final SortedMap<String, SortedSet<String>> unitQuantities;
     private final SortedSet<String> replacementClasses;
 
-    BrickVocabulary(String source, String version, List<RawClass> raw, SortedSet<String> tags,
+    BrickVocabulary(String source, String version, String ontologyIri, List<RawClass> raw, SortedSet<String> tags,
             SortedMap<String, Term> terms, SortedMap<String, SortedSet<String>> unitQuantities) {
         this.source = source;
         this.version = version;
+        this.ontologyIri = ontologyIri;
         Map<String, SortedSet<String>> parents = new HashMap<>();
         for (RawClass r : raw) {
             parents.put(r.name(), r.parents());
@@ -219,7 +221,10 @@ public final class BrickVocabulary {
                 .filter(t -> t.getSubject().isURI() && t.getSubject().getURI().startsWith("https://brickschema.org/"))
                 .map(t -> t.getObject().isLiteral() ? t.getObject().getLiteralLexicalForm() : "")
                 .sorted().findFirst().orElse("");
-        return new BrickVocabulary(source, version, raw, tagNames, terms, units);
+        String ontology = g.find(Node.ANY, RDF.type.asNode(), OWL2.Ontology.asNode()).toList().stream()
+                .map(Triple::getSubject).filter(s -> s.isURI() && s.getURI().startsWith("https://brickschema.org/"))
+                .map(Node::getURI).sorted().findFirst().orElse("");
+        return new BrickVocabulary(source, version, ontology, raw, tagNames, terms, units);
     }
 
     private static SortedSet<String> ancestors(String n, Map<String, SortedSet<String>> parents) {
@@ -300,6 +305,11 @@ public final class BrickVocabulary {
     /** Where this vocabulary was read from (a file path, or "bundled Brick"), with the version when known. */
     public String source() {
         return version.isEmpty() ? source : source + " " + version;
+    }
+
+    /** The owl:Ontology the Brick file declares (https://brickschema.org/schema/1.4/Brick), or "". */
+    public String ontologyIri() {
+        return ontologyIri;
     }
 
     /** The Brick release (owl:versionInfo), or "" when the file does not say. */

@@ -22,6 +22,7 @@ import java.util.TreeSet;
  * <pre>
  * # comment lines
  * version  1.4.4
+ * ontology IRI     (the owl:Ontology the Brick file declares)
  * class    NAME  PARENTS  EQUIVALENTS  TAGS  DEPRECATION  LABEL  DEFINITION
  * tag      NAME
  * term     IRI   TYPES    INVERSE      LABEL  DEFINITION
@@ -43,6 +44,9 @@ public final class VocabularyIndex {
             out.write("# " + h + "\n");
         }
         out.write("version\t" + escape(v.version()) + "\n");
+        if (!v.ontologyIri().isEmpty()) {
+            out.write("ontology\t" + v.ontologyIri() + "\n");
+        }
         for (BrickVocabulary.ClassInfo c : v.classes().values()) {
             String dep = c.deprecation().map(d -> d.version() + "|" + d.replacementIri() + "|" + d.message())
                     .orElse("");
@@ -66,6 +70,7 @@ public final class VocabularyIndex {
     public static BrickVocabulary read(InputStream in, String source) throws IOException {
         BufferedReader r = new BufferedReader(new InputStreamReader(in, StandardCharsets.UTF_8), 1 << 16);
         String version = "";
+        String ontology = "";
         List<BrickVocabulary.RawClass> classes = new ArrayList<>(2048);
         SortedSet<String> tags = new TreeSet<>();
         SortedMap<String, BrickVocabulary.Term> terms = new TreeMap<>();
@@ -80,6 +85,7 @@ public final class VocabularyIndex {
             String[] f = line.split("\t", -1);
             switch (f[0]) {
                 case "version" -> version = unescape(field(f, 1, n));
+                case "ontology" -> ontology = field(f, 1, n);
                 case "class" -> {
                     String dep = unescape(field(f, 5, n));
                     Optional<Deprecation> d = Optional.empty();
@@ -100,7 +106,7 @@ public final class VocabularyIndex {
                 default -> throw new IOException("vocabulary index line " + n + ": unknown record '" + f[0] + "'");
             }
         }
-        return new BrickVocabulary(source, version, classes, tags, terms, units);
+        return new BrickVocabulary(source, version, ontology, classes, tags, terms, units);
     }
 
     private static String field(String[] f, int i, int line) throws IOException {

@@ -17,10 +17,22 @@ import org.tufa.vocabulary.Namespaces;
 public final class Vocabulary {
     private final Model model;
     private final ProfileCatalog profiles;
+    private final boolean fullBrick;
 
     private Vocabulary(Model model) {
         this.model = model;
         this.profiles = ProfileCatalog.from(model);
+        // The published Brick file declares its ontology (https://brickschema.org/schema/1.4/Brick a owl:Ontology),
+        // and so does the RDF view of the Brick tufa bundles (BrickGraph): the whole ontology is there.
+        this.fullBrick = model.listSubjectsWithProperty(org.apache.jena.vocabulary.RDF.type,
+                org.apache.jena.vocabulary.OWL.Ontology).toList().stream()
+                .anyMatch(o -> o.isURIResource() && o.getURI().startsWith("https://brickschema.org/schema/1.")
+                        && o.getURI().endsWith("/Brick"));
+    }
+
+    /** True when the vocabulary holds the whole Brick ontology (always, with the bundled Brick 1.4.4). */
+    public boolean hasFullBrick() {
+        return fullBrick;
     }
 
     /** The shipped vocabulary: Brick plus tufa.ttl. */

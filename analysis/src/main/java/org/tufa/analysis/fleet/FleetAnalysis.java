@@ -53,7 +53,7 @@ public final class FleetAnalysis {
         for (UnitCoverage u : units) {
             UnitInputs in = UnitInputs.of(u, settings.defaultAirflow());
             inputs.put(u.unit(), in);
-            if (u.analyzable()) {
+            if (u.analyzable() && detects(u)) {
                 wanted.putAll(in.seriesKinds());
             }
         }
@@ -108,6 +108,11 @@ public final class FleetAnalysis {
         }
     }
 
+    /** Whether this version has a detection for the unit's kind: fan coil units only (VAV boxes come next). */
+    private static boolean detects(UnitCoverage u) {
+        return u.unitKind().equals(org.tufa.analysis.coverage.Profile.FAN_COIL);
+    }
+
     /** An outcome with the signals it was computed from (null when the unit was not analysed). */
     private record Analysed(UnitOutcome outcome, UnitSignals signals) {
     }
@@ -117,6 +122,12 @@ public final class FleetAnalysis {
         if (!u.analyzable()) {
             return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED,
                     CoverageSummary.reason(coverage, u), List.of(), null, List.of()), null);
+        }
+        if (!detects(u)) {
+            return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED,
+                    "no detection for " + (u.unitKind().equals(org.tufa.analysis.coverage.Profile.VAV) ? "VAV boxes"
+                            : "units of kind " + u.unitKind()) + " in this version (coverage: analysable with profile "
+                            + u.profileName() + ")", List.of(), null, List.of()), null);
         }
         try {
             long t0 = System.nanoTime();
