@@ -188,7 +188,9 @@ public final class AnalyzeCommand implements Callable<Integer> {
         stderr.printf(java.util.Locale.ROOT, "time: %.1f s wall; per stage (summed over threads): %s; %s%n",
                 (System.nanoTime() - start) / 1e9, result.times().summary(), heap.stop());
         stdout.flush();
-        if (result.ingest().samplesKept() == 0) {
+        boolean anyDetection = assessed.coverage().units().stream().anyMatch(u -> u.analyzable()
+                && u.unitKind().equals(org.tufa.analysis.coverage.Profile.FAN_COIL));
+        if (result.ingest().samplesKept() == 0 && anyDetection) {
             // Nothing matched: almost always trend names that are not the model's series ids.
             List<String> seen = result.ingest().unknownSeries();
             stderr.println("tufa: no trend sample belongs to a point of the model: the trends' point names (long "
@@ -246,7 +248,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
 
     private Map<String, Object> parameters(AnalysisSettings s, TimeOptions time, ZoneId zone) {
         Map<String, Object> p = new LinkedHashMap<>();
-        p.put("profile", fleet.profile);
+        p.put("profile", fleet.profiles.isEmpty() ? "automatic" : String.join(",", new java.util.TreeSet<>(fleet.profiles)));
         p.put("unit_classes", String.join(",", assessedClasses()));
         p.put("timezone", zone.getId());
         p.put("from", time.from() == null ? "" : time.from().toString());

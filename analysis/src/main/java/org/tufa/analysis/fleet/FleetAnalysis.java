@@ -71,7 +71,7 @@ public final class FleetAnalysis {
         for (UnitCoverage u : units) {
             UnitInputs in = UnitInputs.of(u, settings.defaultAirflow());
             inputs.put(u.unit(), in);
-            if (u.analyzable()) {
+            if (u.analyzable() && detects(u)) {
                 wanted.putAll(in.seriesKinds());
             }
         }
@@ -195,6 +195,11 @@ public final class FleetAnalysis {
                 store.gridStart(), store.interval(), store.gridLength());
     }
 
+    /** Whether this version has a detection for the unit's kind: fan coil units only (VAV boxes come next). */
+    private static boolean detects(UnitCoverage u) {
+        return u.unitKind().equals(org.tufa.analysis.coverage.Profile.FAN_COIL);
+    }
+
     /** An outcome with the signals it was computed from (null when the unit was not analysed). */
     private record Analysed(UnitOutcome outcome, UnitSignals signals) {
     }
@@ -204,6 +209,12 @@ public final class FleetAnalysis {
         if (!u.analyzable()) {
             return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED,
                     CoverageSummary.reason(coverage, u), List.of(), null), null);
+        }
+        if (!detects(u)) {
+            return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED,
+                    "no detection for " + (u.unitKind().equals(org.tufa.analysis.coverage.Profile.VAV) ? "VAV boxes"
+                            : "units of kind " + u.unitKind()) + " in this version (coverage: analysable with profile "
+                            + u.profileName() + ")", List.of(), null), null);
         }
         try {
             long t0 = System.nanoTime();

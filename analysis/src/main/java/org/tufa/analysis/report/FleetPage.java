@@ -78,7 +78,8 @@ public final class FleetPage {
             byStatus.merge(u.status(), 1, Integer::sum);
             u.findings().forEach(f -> byKind.merge(f.kind(), 1, Integer::sum));
         }
-        b.append("<p>Profile <code>").append(Html.esc(coverage.profile().name())).append("</code>. ");
+        b.append("<p>Profiles <code>").append(Html.esc(String.join(", ", coverage.profilesUsed().stream()
+                .map(p -> p.name()).toList()))).append("</code>. ");
         b.append("Times are local to ").append(Html.esc(zone.getId())).append(".</p>\n");
         b.append("<table>\n<thead><tr><th class=\"num\">units found</th><th class=\"num\">analysed</th>"
                 + "<th class=\"num\">skipped</th><th class=\"num\">failed</th><th class=\"num\">findings</th>"
@@ -229,21 +230,21 @@ public final class FleetPage {
     }
 
     private static void coverageMatrix(StringBuilder b, FleetCoverage coverage, Map<String, UnitOutcome> byUnit) {
-        List<String> roles = coverage.profile().roleNames();
+        List<String> roles = coverage.roleNames();
         b.append("<h2>Coverage: points found per unit and role</h2>\n<p>&quot;found&quot;: exactly one point "
                 + "qualifies (hover for its name); <strong>missing</strong>: none does; <em>ambiguous</em>: "
                 + "several do and the model must say which is meant (the role is then not used).</p>\n"
-                + "<table>\n<thead><tr><th>unit</th>");
+                + "<table>\n<thead><tr><th>unit</th><th>profile</th>");
         roles.forEach(r -> b.append("<th>").append(Html.esc(r.replace('_', ' '))).append("</th>"));
         b.append("</tr></thead>\n<tbody>\n");
         for (UnitCoverage u : coverage.units()) {
             UnitOutcome o = byUnit.get(u.unit());
             b.append("<tr><td>").append(o == null ? Html.esc(u.label().isEmpty() ? u.unit() : u.label()) : link(o))
-                    .append("</td>");
+                    .append("</td><td>").append(Html.esc(u.profileName())).append("</td>");
             for (String role : roles) {
                 RoleMatch m = u.roles().get(role);
                 if (m == null) {
-                    b.append("<td class=\"missing\">missing</td>");
+                    b.append("<td></td>"); // not a role of this unit's profile
                     continue;
                 }
                 switch (m.status()) {

@@ -136,15 +136,17 @@ final class SyntheticFleet {
                     List.of(), load));
             loads.add(load);
         }
-        Profile profile = new Profile("fcu-modes", "https://tufa.example.org/ns#FcuModes", "", List.of(),
-                ROLES.stream().map(r -> new Role(r, "https://tufa.example.org/ns#" + r, ROLES.indexOf(r), List.of()))
-                        .toList());
-        FleetCoverage fleet = new FleetCoverage(profile, List.of("https://brickschema.org/schema/Brick#FCU"),
-                coverage, Map.of());
+        FleetCoverage fleet = new FleetCoverage(List.of(PROFILE), true,
+                List.of("https://brickschema.org/schema/Brick#FCU"), coverage, Map.of(), false);
         FleetAnalysis.Result result = new FleetAnalysis.Result(decided, decision.fleet(), decision.nulls(),
                 decision.tests(), 0, new IngestReport(List.of(), List.of(), List.of(), List.of()), new StageTimes());
         return new Fleet(result, fleet, outcomes, signals, loads);
     }
+
+    private static final Profile PROFILE = new Profile("fcu-modes", "https://tufa.example.org/ns#FcuModes", "",
+            Profile.FAN_COIL, List.of("https://brickschema.org/schema/Brick#FCU"), false, 0, List.of(), List.of(),
+            List.of(), ROLES.stream().map(r -> new Role(r, "https://tufa.example.org/ns#" + r, ROLES.indexOf(r),
+                    List.of())).toList());
 
     private static UnitCoverage coverage(String unit, String label, String ambiguousRole, boolean noDischarge) {
         Map<String, RoleMatch> roles = new LinkedHashMap<>();
@@ -162,8 +164,8 @@ final class SyntheticFleet {
                 roles.put(role, new RoleMatch(role, MatchStatus.FOUND, Optional.of(p), List.of(p), null, List.of()));
             }
         }
-        return new UnitCoverage(unit, label, "https://brickschema.org/schema/Brick#FCU", roles, Optional.empty(),
-                Map.of("cooling", !noDischarge), List.of());
+        return new UnitCoverage(unit, label, "https://brickschema.org/schema/Brick#FCU", Optional.of(PROFILE), roles,
+                Optional.empty(), Map.of("cooling", !noDischarge), List.of());
     }
 
     private static double[] d(float[] f) {
