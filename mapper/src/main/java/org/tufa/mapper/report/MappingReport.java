@@ -14,14 +14,16 @@ import org.tufa.mapper.match.PointMapping;
 
 /**
  * The mapping report: a CSV with exactly one row per input row, in input order. Columns: line, point, status
- * (mapped, unmapped, conflict, duplicate, rejected), reason, rule ("file:line"), class, equipment, part. Text cells
- * that a spreadsheet would run as a formula get a leading apostrophe ({@link CsvCells}).
+ * (mapped, ambiguous, unclassified, unmapped, skipped, conflict, duplicate, rejected), reason, rule ("file:line"),
+ * class, equipment, part, score (the tag-match score, 1 for a class the rule names), runner_up and
+ * runner_up_score (the best rival class of a tag-matched point, when there is one).
+ * Text cells that a spreadsheet would run as a formula get a leading apostrophe ({@link CsvCells}).
  */
 public final class MappingReport {
 
     /** The header row. */
     public static final List<String> HEADER = List.of("line", "point", "status", "reason", "rule", "class",
-            "equipment", "part");
+            "equipment", "part", "score", "runner_up", "runner_up_score");
 
     private MappingReport() {
     }
@@ -29,6 +31,11 @@ public final class MappingReport {
     /** Writes the report to a file (UTF-8, RFC 4180 quoting, LF line ends). */
     public static void write(MappingResult result, Path file) {
         OutputFiles.writeText(file, w -> write(result, w));
+    }
+
+    /** A score with three decimals, the same on every machine. */
+    static String score(double s) {
+        return String.format(java.util.Locale.ROOT, "%.3f", s);
     }
 
     /** Writes the report to a writer. */
@@ -43,7 +50,9 @@ public final class MappingReport {
                     CsvCells.neutral(m.reason()), CsvCells.neutral(a.map(Assignment::ruleLabel).orElse("")),
                     a.map(Assignment::className).orElse(""),
                     CsvCells.neutral(a.map(Assignment::equipmentId).orElse("")),
-                    CsvCells.neutral(a.flatMap(Assignment::part).map(Assignment.Part::localId).orElse("")));
+                    CsvCells.neutral(a.flatMap(Assignment::part).map(Assignment.Part::localId).orElse("")),
+                    a.map(x -> score(x.score())).orElse(""), a.flatMap(Assignment::runnerUp).orElse(""),
+                    a.filter(x -> x.runnerUp().isPresent()).map(x -> score(x.runnerUpScore())).orElse(""));
         }
         p.flush();
     }
