@@ -302,7 +302,7 @@ class ReaderPropertiesTest {
             Rule r = rs.rules().get(i);
             assertEquals("r" + i, r.id());
             assertEquals(specs.get(i)[0], r.unit().orElseThrow());
-            assertEquals(specs.get(i)[2], r.equipment().orElseThrow().className());
+            assertEquals(specs.get(i)[2], r.equipment().orElseThrow().className().fixed());
             assertEquals(String.valueOf(specs.get(i)[1]), r.airflow().orElseThrow().value().source());
         }
     }
