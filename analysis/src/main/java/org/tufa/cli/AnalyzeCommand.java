@@ -359,6 +359,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
         p.put("day_zone", s.dayZone().getId());
         p.put("min_day_deviation", s.minDayDeviation());
         p.put("max_episode_window_days", s.maxEpisodeWindowDays());
+        p.put("min_episode_days", s.minEpisodeDays());
         p.put("min_confidence", s.decision().minConfidence());
         p.put("min_peer_deviation", s.decision().minPeerDeviation());
         p.put("min_peers", s.decision().minPeers());

@@ -17,7 +17,8 @@ import org.tufa.analysis.significance.ScanStatistic;
  *
  * <p>Consecutive fault days form an episode; one informative day without a fault between fault days is bridged
  * (a mild day in a week-long fault), and so are days without data, unless the calendar gap exceeds
- * {@code maxGapDays}.
+ * {@code maxGapDays}. An episode needs {@code minDays} fault days: one odd day (a holiday, a storm, a test by the
+ * commissioning engineer) is part of any unit's record, a fault lasts.
  */
 public final class EpisodeFinder {
 
@@ -29,26 +30,54 @@ public final class EpisodeFinder {
      * @param bridgeDays  informative non-fault days bridged inside an episode
      * @param maxGapDays  longest calendar gap between consecutive days of an episode
      * @param maxWindow   longest window of the scan statistic, in informative days
+     * @param minDays     fewest fault days an episode needs
      */
     public record Parameters(double minZ, double gate, double minShare, int bridgeDays, int maxGapDays,
-                             int maxWindow) {
+                             int maxWindow, int minDays) {
     }
 
     private EpisodeFinder() {
     }
 
     /** Per informative day: is it a fault day. */
-    public static boolean[] faultDays(DayChannel c, Parameters p) {
+    public static boolean[] faultDays(DayChannel c, Parameters p, double[] magnitude, double magnitudeGate) {
         boolean[] out = new boolean[c.size()];
         for (int k = 0; k < out.length; k++) {
             boolean dominant = Double.isNaN(p.minShare()) ? c.dominated()[k] : c.value()[k] >= p.minShare();
-            out[k] = dominant && c.shift(k) >= p.gate() && c.z()[k] >= p.minZ();
+            boolean large = magnitude == null || magnitude[k] >= magnitudeGate;
+            out[k] = dominant && large && c.shift(k) >= p.gate() && c.z()[k] >= p.minZ();
         }
         return out;
     }
 
+    /**
+     * The statistic a healthy unit contributes to the fleet's null: the largest scan statistic of any run of days
+     * that stray from normal by {@code minZ} spreads, formed the way episodes are (bridging, {@code minDays}), but
+     * without the gate and the dominance conditions. So the null compares like with like: the most unusual run of
+     * unusual days of each channel, 0 for a channel whose days never stray that far.
+     */
+    public static double nullStatistic(DayChannel c, Parameters p) {
+        Parameters zOnly = new Parameters(p.minZ(), Double.NEGATIVE_INFINITY, Double.NEGATIVE_INFINITY,
+                p.bridgeDays(), p.maxGapDays(), p.maxWindow(), p.minDays());
+        double best = 0;
+        for (Episode e : find(c, zOnly)) {
+            best = Math.max(best, e.statistic());
+        }
+        return best;
+    }
+
+    /** The episodes of a channel whose own values carry the engineering size (feature medians, rule shares). */
     public static List<Episode> find(DayChannel c, Parameters p) {
-        boolean[] fault = faultDays(c, p);
+        return find(c, p, null, Double.NaN);
+    }
+
+    /**
+     * The episodes of a share channel whose engineering size is carried apart: {@code magnitude} per informative
+     * day (e.g. how far the day's candidate samples lie from normal, in kelvin, fault side positive), which a fault
+     * day must bring to {@code magnitudeGate}; the episode's mean shift is then the mean magnitude.
+     */
+    public static List<Episode> find(DayChannel c, Parameters p, double[] magnitude, double magnitudeGate) {
+        boolean[] fault = faultDays(c, p, magnitude, magnitudeGate);
         List<Episode> out = new ArrayList<>();
         int k = 0;
         while (k < fault.length) {
@@ -75,14 +104,17 @@ public final class EpisodeFinder {
             for (int i = start; i <= last; i++) {
                 if (fault[i]) {
                     count++;
-                    shift += c.shift(i);
+                    shift += magnitude == null ? c.shift(i) : magnitude[i];
                     z += c.z()[i];
                 }
             }
             double stat = ScanStatistic.max(c.z(), start, last + 1, p.maxWindow());
+            k = last + 1;
+            if (count < p.minDays()) {
+                continue;
+            }
             out.add(new Episode(start, last + 1, c.days()[start], c.days()[last], count, stat, shift / count,
                     z / count));
-            k = last + 1;
         }
         return out;
     }
