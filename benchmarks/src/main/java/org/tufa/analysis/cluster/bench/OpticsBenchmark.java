@@ -17,7 +17,7 @@ import org.tufa.analysis.cluster.OpticsResult;
  * Benchmark of {@link Optics} (MinPts 20, unbounded maxEps) against scikit-learn's OPTICS on the same data.
  *
  * <pre>
- * java -cp analysis/target/tufa.jar org.tufa.analysis.cluster.bench.OpticsBenchmark [--sizes 2000,10000,35040]
+ * java -cp benchmarks/target/tufa-benchmarks.jar org.tufa.analysis.cluster.bench.OpticsBenchmark [--sizes 2000,10000,35040]
  * </pre>
  *
  * For each size it generates seeded 3-D operating-like data (a dense normal blob, two small fault blobs, 4 %
