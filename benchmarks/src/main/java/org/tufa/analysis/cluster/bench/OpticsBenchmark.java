@@ -2,29 +2,45 @@ package org.tufa.analysis.cluster.bench;
 
 import java.io.BufferedWriter;
 import java.io.IOException;
+import java.lang.management.ManagementFactory;
+import java.lang.management.ThreadMXBean;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
 import java.util.SplittableRandom;
 import java.util.concurrent.TimeUnit;
 import org.tufa.analysis.cluster.Optics;
 import org.tufa.analysis.cluster.OpticsResult;
+import org.tufa.analysis.cluster.ReferenceOptics;
 
 /**
- * Benchmark of {@link Optics} (MinPts 20, unbounded maxEps) against scikit-learn's OPTICS on the same data.
+ * Benchmark of {@link Optics} (MinPts 20, unbounded maxEps) against the previous pass ({@link ReferenceOptics},
+ * O(n^2)) and scikit-learn's OPTICS on the same data.
  *
  * <pre>
- * java -cp benchmarks/target/tufa-benchmarks.jar org.tufa.analysis.cluster.bench.OpticsBenchmark [--sizes 2000,10000,35040]
+ * java -cp benchmarks/target/tufa-benchmarks.jar org.tufa.analysis.cluster.bench.OpticsBenchmark \
+ *     [--sizes 2000,10000,35040] [--shapes operating,ties] [--dims 3] [--old-max 35040] [--sklearn-max 35040]
+ *     [--repeat 3]
  * </pre>
  *
- * For each size it generates seeded 3-D operating-like data (a dense normal blob, two small fault blobs, 4 %
- * uniform noise), writes it as CSV to a temporary folder, times our fit (after one warm-up fit), times
- * scikit-learn's fit through {@code /usr/bin/python3} (only the fit is timed, inside Python), and prints both
- * times, their ratio and whether the core distances agree to 1e-12. Without python3/scikit-learn it prints ours
- * only. A benchmark, not a test: timings depend on the machine and its load.
+ * Shapes (seeded):
+ * <ul>
+ *   <li>{@code operating}: a dense correlated normal blob (90 %), two small fault blobs (4 %, 2 %), 4 % uniform noise;
+ *   <li>{@code ties}: like PCA scores of smoothed, BAS-rounded health features: a slow walk between operating points
+ *       that holds still a third of the time, rounded to a 0.05 grid, and 30 % of the samples parked exactly on four
+ *       operating points (long runs of duplicates, clumps, exact distance ties).
+ * </ul>
+ * For each size and shape: the new pass, timed as the best of {@code --repeat} runs after a warm-up; the old pass
+ * once (up to {@code --old-max} samples: it is quadratic) and whether its result is identical (ordering,
+ * reachability, core distances, predecessors; the old pass is the one the scikit-learn fixtures and the replay check,
+ * so identity means a valid ordering); scikit-learn 1.2.1 through {@code /usr/bin/python3} (fit only, timed inside
+ * Python; up to {@code --sklearn-max}) and whether the core distances agree to 1e-12. Times are per-thread CPU
+ * seconds of the benchmark thread (so other load on a shared machine inflates them less), and Python's
+ * process_time for scikit-learn. A benchmark, not a test: the figures depend on the machine and its load.
  */
 public final class OpticsBenchmark {
 
@@ -33,81 +49,195 @@ public final class OpticsBenchmark {
     private static final String SKLEARN_SCRIPT = String.join("\n",
             "import sys, time, numpy as np",
             "from sklearn.cluster import OPTICS",
-            "X = np.loadtxt(sys.argv[1], delimiter=',')",
+            "X = np.loadtxt(sys.argv[1], delimiter=',', ndmin=2)",
             "m = OPTICS(min_samples=int(sys.argv[2]), max_eps=np.inf, cluster_method='dbscan', eps=1.0)",
-            "t = time.perf_counter(); m.fit(X); t = time.perf_counter() - t",
+            "t = time.process_time(); m.fit(X); t = time.process_time() - t",
             "np.savetxt(sys.argv[3], m.core_distances_, fmt='%.17g')",
             "print(t)");
+    private static final ThreadMXBean THREADS = ManagementFactory.getThreadMXBean();
 
     private OpticsBenchmark() {}
 
+    /** Command-line settings. */
+    record Settings(int[] sizes, List<String> shapes, int[] dims, int oldMax, int sklearnMax, int repeat) {
+    }
+
     public static void main(String[] args) throws IOException, InterruptedException {
-        int[] sizes = {2000, 10000, 35040};
-        for (int i = 0; i < args.length; i++) {
-            if (args[i].equals("--sizes") && i + 1 < args.length) {
-                String[] parts = args[++i].split(",");
-                sizes = new int[parts.length];
-                for (int j = 0; j < parts.length; j++) {
-                    sizes[j] = Integer.parseInt(parts[j].trim());
-                }
-            } else {
-                System.err.println("usage: OpticsBenchmark [--sizes 2000,10000,35040]");
-                System.exit(2);
-            }
-        }
+        Settings s = parse(args);
         Path dir = Files.createTempDirectory("tufa-optics-bench");
-        System.out.printf(Locale.ROOT, "%8s %12s %14s %8s %s%n", "n", "tufa [s]", "sklearn [s]", "ratio",
-                "core distances within 1e-12");
-        for (int n : sizes) {
-            double[][] x = operatingLike(n, 20240601L + n);
-            Path csv = dir.resolve("optics-" + n + ".csv");
+        System.out.printf(Locale.ROOT, "| %8s | %4s | %-9s | %9s | %9s | %11s | %9s | %11s | %s |%n", "n", "dims",
+                "data", "old [s]", "new [s]", "sklearn [s]", "old/new", "sklearn/new", "checks");
+        System.out.println("|---:|---:|---|---:|---:|---:|---:|---:|---|");
+        try {
+            for (String shape : s.shapes()) {
+                for (int dim : s.dims()) {
+                    for (int n : s.sizes()) {
+                        row(s, dir, shape, dim, n);
+                    }
+                }
+            }
+        } finally {
+            try (var files = Files.list(dir)) {
+                for (Path f : (Iterable<Path>) files::iterator) {
+                    Files.delete(f);
+                }
+            }
+            Files.delete(dir);
+        }
+    }
+
+    private static void row(Settings s, Path dir, String shape, int dim, int n)
+            throws IOException, InterruptedException {
+        double[][] x = shape.equals("ties") ? heavyTies(n, dim, 20260601L + n) : operatingLike(n, dim, 20240601L + n);
+        Optics.fit(operatingLike(Math.min(n, 5000), dim, 7), MIN_PTS); // warm-up
+        double best = Double.POSITIVE_INFINITY;
+        OpticsResult ours = null;
+        for (int r = 0; r < s.repeat(); r++) {
+            long t0 = THREADS.getCurrentThreadCpuTime();
+            ours = Optics.fit(x, MIN_PTS);
+            best = Math.min(best, (THREADS.getCurrentThreadCpuTime() - t0) / 1e9);
+        }
+        List<String> checks = new ArrayList<>();
+        double old = Double.NaN;
+        if (n <= s.oldMax()) {
+            ReferenceOptics.fit(operatingLike(Math.min(n, 2000), dim, 7), MIN_PTS); // warm-up
+            long t0 = THREADS.getCurrentThreadCpuTime();
+            OpticsResult theirs = ReferenceOptics.fit(x, MIN_PTS);
+            old = (THREADS.getCurrentThreadCpuTime() - t0) / 1e9;
+            boolean same = Arrays.equals(theirs.ordering(), ours.ordering())
+                    && Arrays.equals(theirs.reachability(), ours.reachability())
+                    && Arrays.equals(theirs.coreDistance(), ours.coreDistance())
+                    && Arrays.equals(theirs.predecessor(), ours.predecessor());
+            checks.add(same ? "identical to old pass" : "DIFFERS from old pass");
+        }
+        double sk = Double.NaN;
+        if (n <= s.sklearnMax()) {
+            Path csv = dir.resolve("optics.csv");
+            Path coreOut = dir.resolve("core.txt");
             writeCsv(csv, x);
-            Optics.fit(x, MIN_PTS); // warm-up
-            long t0 = System.nanoTime();
-            OpticsResult ours = Optics.fit(x, MIN_PTS);
-            double oursSeconds = (System.nanoTime() - t0) / 1e9;
-            Path coreOut = dir.resolve("core-" + n + ".txt");
-            Double sk = runScikitLearn(csv, coreOut);
-            if (sk == null) {
-                System.out.printf(Locale.ROOT, "%8d %12.3f %14s %8s %s%n", n, oursSeconds, "n/a", "n/a", "n/a");
-            } else {
+            Double t = runScikitLearn(csv, coreOut);
+            if (t != null) {
+                sk = t;
                 double maxDiff = 0;
                 List<String> lines = Files.readAllLines(coreOut, StandardCharsets.UTF_8);
                 for (int i = 0; i < n; i++) {
                     maxDiff = Math.max(maxDiff, Math.abs(Double.parseDouble(lines.get(i)) - ours.coreDistanceOf(i)));
                 }
-                System.out.printf(Locale.ROOT, "%8d %12.3f %14.3f %7.1fx %s (max diff %.1e)%n", n, oursSeconds, sk,
-                        sk / oursSeconds, maxDiff <= 1e-12 ? "yes" : "NO", maxDiff);
+                checks.add(String.format(Locale.ROOT, "core vs sklearn %s (max diff %.1e)",
+                        maxDiff <= 1e-12 ? "within 1e-12" : "DIFFER", maxDiff));
+            } else {
+                checks.add("sklearn n/a");
             }
         }
-        try (var files = Files.list(dir)) {
-            for (Path f : (Iterable<Path>) files::iterator) {
-                Files.delete(f);
-            }
-        }
-        Files.delete(dir);
+        System.out.printf(Locale.ROOT, "| %8d | %4d | %-9s | %9s | %9.3f | %11s | %9s | %11s | %s |%n", n, dim, shape,
+                fmt(old, "%.3f"), best, fmt(sk, "%.3f"), fmt(old / best, "%.0fx"), fmt(sk / best, "%.0fx"),
+                String.join("; ", checks));
     }
 
-    /** Operating-like 3-D data: 90 % normal blob (correlated), 4 % and 2 % fault blobs, 4 % uniform noise. */
-    static double[][] operatingLike(int n, long seed) {
+    private static String fmt(double v, String format) {
+        return Double.isNaN(v) ? "-" : String.format(Locale.ROOT, format, v);
+    }
+
+    private static Settings parse(String[] args) {
+        int[] sizes = {2000, 10000, 35040};
+        List<String> shapes = List.of("operating", "ties");
+        int[] dims = {3};
+        int oldMax = 35040;
+        int sklearnMax = 35040;
+        int repeat = 3;
+        for (int i = 0; i < args.length; i++) {
+            String value = i + 1 < args.length ? args[i + 1] : null;
+            if (value == null) {
+                usage();
+            }
+            switch (args[i]) {
+                case "--sizes" -> sizes = ints(value);
+                case "--shapes" -> shapes = List.of(value.split(","));
+                case "--dims" -> dims = ints(value);
+                case "--old-max" -> oldMax = Integer.parseInt(value);
+                case "--sklearn-max" -> sklearnMax = Integer.parseInt(value);
+                case "--repeat" -> repeat = Integer.parseInt(value);
+                default -> usage();
+            }
+            i++;
+        }
+        for (String shape : shapes) {
+            if (!shape.equals("operating") && !shape.equals("ties")) {
+                usage();
+            }
+        }
+        return new Settings(sizes, shapes, dims, oldMax, sklearnMax, Math.max(1, repeat));
+    }
+
+    private static void usage() {
+        System.err.println("usage: OpticsBenchmark [--sizes 2000,10000,35040] [--shapes operating,ties] [--dims 3]"
+                + " [--old-max 35040] [--sklearn-max 35040] [--repeat 3]");
+        System.exit(2);
+    }
+
+    private static int[] ints(String list) {
+        return Arrays.stream(list.split(",")).mapToInt(v -> Integer.parseInt(v.trim())).toArray();
+    }
+
+    /**
+     * Operating-like data: 90 % normal blob (correlated in the first three dimensions), 4 % and 2 % fault blobs,
+     * 4 % uniform noise. Dimensions past the third are independent normal; fewer than three keep the first ones.
+     */
+    static double[][] operatingLike(int n, int dim, long seed) {
         SplittableRandom random = new SplittableRandom(seed);
         double[][] x = new double[n][];
         for (int i = 0; i < n; i++) {
             double u = random.nextDouble();
+            double[] p;
             if (u < 0.90) {
                 double a = gaussian(random);
                 double b = gaussian(random);
                 double c = gaussian(random);
-                x[i] = new double[] {a, 0.6 * a + 0.8 * b, 0.2 * a + 0.66 * c};
+                p = new double[] {a, 0.6 * a + 0.8 * b, 0.2 * a + 0.66 * c};
             } else if (u < 0.94) {
-                x[i] = new double[] {
+                p = new double[] {
                     4 + 0.25 * gaussian(random), -3 + 0.25 * gaussian(random), 1 + 0.25 * gaussian(random)};
             } else if (u < 0.96) {
-                x[i] = new double[] {
+                p = new double[] {
                     -3.5 + 0.2 * gaussian(random), 3.5 + 0.2 * gaussian(random), -2 + 0.2 * gaussian(random)};
             } else {
-                x[i] = new double[] {
-                    random.nextDouble(-7, 7), random.nextDouble(-7, 7), random.nextDouble(-7, 7)};
+                p = new double[] {random.nextDouble(-7, 7), random.nextDouble(-7, 7), random.nextDouble(-7, 7)};
+            }
+            x[i] = new double[dim];
+            for (int d = 0; d < dim; d++) {
+                x[i][d] = d < 3 ? p[d] : gaussian(random);
+            }
+        }
+        return x;
+    }
+
+    /**
+     * Heavy ties: a walk between operating points that holds still a third of the time, rounded to a 0.05 grid, and
+     * 30 % of the samples exactly on one of four operating points.
+     */
+    static double[][] heavyTies(int n, int dim, long seed) {
+        SplittableRandom random = new SplittableRandom(seed);
+        double[][] parked = new double[4][dim];
+        for (double[] p : parked) {
+            for (int d = 0; d < dim; d++) {
+                p[d] = Math.round(random.nextDouble(-3, 3) * 20) / 20.0;
+            }
+        }
+        double[][] x = new double[n][dim];
+        double[] position = new double[dim];
+        double[] velocity = new double[dim];
+        for (double[] row : x) {
+            if (random.nextDouble() < 0.3) {
+                System.arraycopy(parked[random.nextInt(parked.length)], 0, row, 0, dim);
+                continue;
+            }
+            boolean hold = random.nextDouble() < 0.33;
+            for (int d = 0; d < dim; d++) {
+                if (!hold) {
+                    velocity[d] = 0.95 * velocity[d] + 0.05 * gaussian(random);
+                    position[d] = 0.999 * position[d] + 0.05 * velocity[d];
+                }
+                row[d] = Math.round(position[d] * 20) / 20.0;
             }
         }
         return x;
