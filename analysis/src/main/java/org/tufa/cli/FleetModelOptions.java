@@ -9,7 +9,6 @@ import org.apache.jena.shared.PrefixMapping;
 import org.tufa.analysis.coverage.Coverage;
 import org.tufa.analysis.coverage.FleetCoverage;
 import org.tufa.analysis.coverage.ModelLoader;
-import org.tufa.analysis.coverage.ProfileCatalog;
 import org.tufa.analysis.coverage.UnitClasses;
 import org.tufa.analysis.coverage.Vocabulary;
 import picocli.CommandLine.Option;
@@ -21,9 +20,11 @@ public final class FleetModelOptions {
             description = "Brick model (.ttl, .nt, .jsonld or .rdf).")
     Path model;
 
-    @Option(names = "--profile", paramLabel = "NAME", defaultValue = ProfileCatalog.DEFAULT_PROFILE,
-            description = "Requirement profile (default: ${DEFAULT-VALUE}).")
-    String profile;
+    @Option(names = "--profile", paramLabel = "NAME", split = ",",
+            description = "Requirement profiles to use (repeat or separate with commas); units no named profile "
+                    + "applies to are listed without one. Default: each unit gets the best fitting of the automatic "
+                    + "profiles (fan coil units fcu-modes, VAV boxes the vav-* variant their class and points show).")
+    List<String> profiles = new ArrayList<>();
 
     @Option(names = "--unit-class", paramLabel = "CLASS", split = ",",
             description = "Only units of these classes (e.g. brick:Fan_Coil_Unit or a full IRI); "
@@ -31,7 +32,7 @@ public final class FleetModelOptions {
     List<String> unitClasses = new ArrayList<>();
 
     @Option(names = "--vocabulary", paramLabel = "FILE",
-            description = "Extra vocabulary: the full Brick file, or your own roles and profiles. Repeatable.")
+            description = "Extra vocabulary: a newer Brick release, or your own roles and profiles (all of Brick 1.4.4 is built in). Repeatable.")
     List<Path> vocabularies = new ArrayList<>();
 
     /** The coverage of the chosen fleet, and the prefixes to print IRIs with. */
@@ -39,16 +40,19 @@ public final class FleetModelOptions {
     }
 
     public Assessed assess() {
-        return assess(model, profile, unitClasses, vocabularies);
+        return assess(model, profiles, unitClasses, vocabularies);
     }
 
-    static Assessed assess(Path model, String profile, List<String> unitClasses, List<Path> vocabularies) {
+    /** The coverage with the named profiles, or the automatic choice per unit when none is named. */
+    static Assessed assess(Path model, List<String> profiles, List<String> unitClasses, List<Path> vocabularies) {
         Vocabulary vocabulary = Vocabulary.load(vocabularies);
-        var chosen = vocabulary.profiles().profile(profile);
+        var chosen = vocabulary.profiles().profiles(profiles);
         Model data = ModelLoader.load(model);
         Model all = vocabulary.unionWith(data);
         PrefixMapping prefixes = Vocabulary.prefixesFor(data);
-        Set<String> classes = UnitClasses.resolve(unitClasses, all, prefixes);
-        return new Assessed(Coverage.assess(data, vocabulary, chosen, classes), prefixes);
+        Set<String> classes = UnitClasses.resolve(unitClasses, all, prefixes, vocabulary.hasFullBrick());
+        FleetCoverage coverage = profiles.isEmpty() ? Coverage.assess(data, vocabulary, classes)
+                : Coverage.assess(data, vocabulary, chosen, false, classes);
+        return new Assessed(coverage, prefixes);
     }
 }

@@ -14,7 +14,8 @@ import org.tufa.analysis.modes.OperatingMode;
 
 /**
  * Writes one unit's files under {@code DIR/units/<folder>/}: {@code modes.csv} (every sample's mode and band
- * state), {@code summary.json} (notes, clusters, shifts, PCA loadings), and per clustered mode
+ * state), {@code summary.json} (notes, clusters, shifts, PCA loadings, findings; written once
+ * the fleet stage has decided), and per clustered mode
  * {@code features.csv}, {@code scores.csv} and {@code reachability.csv}. Numbers in the per-mode files are
  * written with full double precision (a form that parses back to the same double), so the clustering can be re-run elsewhere
  * and reproduces the ordering exactly.
@@ -34,15 +35,32 @@ public final class UnitFiles implements UnitSink {
         this.zone = zone;
     }
 
-    @Override
-    public void accept(UnitOutcome o, org.tufa.analysis.features.UnitSignals signals) {
+    private Path folder(UnitOutcome o) {
         Path dir = unitsDir.resolve(o.folder());
         if (!dir.normalize().startsWith(unitsDir.normalize())) {
             throw new IllegalStateException("unit folder escapes the output folder: " + o.folder());
         }
+        return dir;
+    }
+
+    /** summary.json, once the unit's findings are decided. */
+    @Override
+    public void decided(UnitOutcome o, org.tufa.analysis.features.UnitSignals signals, double[] loadKw) {
+        Path dir = folder(o);
         try {
             Files.createDirectories(dir);
             Files.writeString(dir.resolve("summary.json"), Json.unitSummary(o), StandardCharsets.UTF_8);
+        } catch (IOException e) {
+            throw new UncheckedIOException("cannot write " + dir + ": " + e.getMessage(), e);
+        }
+    }
+
+    /** The per-sample files, while the detailed result is in memory. */
+    @Override
+    public void analysed(UnitOutcome o, org.tufa.analysis.features.UnitSignals signals) {
+        Path dir = folder(o);
+        try {
+            Files.createDirectories(dir);
             if (o.result() == null) {
                 return;
             }

@@ -55,7 +55,9 @@ public final class FleetPage {
         StringBuilder b = new StringBuilder(65_536);
         Html.open(b, "tufa fleet report", "Fleet report");
         counts(b, result, coverage, zone);
+        confidence(b, result);
         ranking(b, units);
+        fleetFindings(b, result, zone);
         findings(b, units, zone);
         Html.caution(b);
         unitTable(b, units);
@@ -76,7 +78,8 @@ public final class FleetPage {
             byStatus.merge(u.status(), 1, Integer::sum);
             u.findings().forEach(f -> byKind.merge(f.kind(), 1, Integer::sum));
         }
-        b.append("<p>Profile <code>").append(Html.esc(coverage.profile().name())).append("</code>. ");
+        b.append("<p>Profiles <code>").append(Html.esc(String.join(", ", coverage.profilesUsed().stream()
+                .map(p -> p.name()).toList()))).append("</code>. ");
         b.append("Times are local to ").append(Html.esc(zone.getId())).append(".</p>\n");
         b.append("<table>\n<thead><tr><th class=\"num\">units found</th><th class=\"num\">analysed</th>"
                 + "<th class=\"num\">skipped</th><th class=\"num\">failed</th><th class=\"num\">findings</th>"
@@ -98,6 +101,55 @@ public final class FleetPage {
                 .append(" wanted series without data.</p>\n");
     }
 
+    /** How many findings at what confidence: the listed ones by band, and the candidates below the threshold. */
+    private static void confidence(StringBuilder b, FleetAnalysis.Result result) {
+        double[] edges = {0.999, 0.99, 0.95, 0.9};
+        int[] counts = new int[edges.length + 1];
+        for (UnitOutcome u : result.units()) {
+            for (Finding f : u.findings()) {
+                int k = 0;
+                while (k < edges.length && f.confidence() < edges[k]) {
+                    k++;
+                }
+                counts[k]++;
+            }
+        }
+        int below = result.units().stream().mapToInt(UnitOutcome::belowConfidence).sum();
+        b.append("<h2>Confidence</h2>\n<p>A finding's confidence is 1 minus its false-discovery-rate q-value "
+                + "(Benjamini and Hochberg 1995) over all ").append(result.tests()).append(" tests of this run: "
+                + "among the findings at or above a confidence c, at most a share 1 - c is expected to be false. "
+                + "Each test compares the unit with the fleet's healthy units, with its peers, or both.</p>\n"
+                + "<table>\n<thead><tr><th class=\"num\">&ge; 0.999</th><th class=\"num\">0.99-0.999</th>"
+                + "<th class=\"num\">0.95-0.99</th><th class=\"num\">0.90-0.95</th>"
+                + "<th class=\"num\">below 0.90, listed</th><th class=\"num\">below the run's minimum, not listed"
+                + "</th></tr></thead>\n<tbody><tr>");
+        for (int c : counts) {
+            b.append("<td class=\"num\">").append(c).append("</td>");
+        }
+        b.append("<td class=\"num\">").append(below).append("</td></tr></tbody>\n</table>\n");
+    }
+
+    private static void fleetFindings(StringBuilder b, FleetAnalysis.Result result, ZoneId zone) {
+        if (result.fleetFindings().isEmpty()) {
+            return;
+        }
+        b.append("<h2>Fleet-wide findings</h2>\n<p>Many units strayed from their normal days on the same days: "
+                + "something they share (plant, weather, schedule) is the first suspect. Reported once here, not "
+                + "on each unit.</p>\n<table>\n<thead><tr><th class=\"num\">confidence</th><th>mode</th>"
+                + "<th>start</th><th>end</th><th class=\"num\">units</th><th>evidence</th><th>candidate causes"
+                + "</th></tr></thead>\n<tbody>\n");
+        for (var ff : result.fleetFindings()) {
+            Finding f = ff.finding();
+            b.append("<tr><td class=\"num\">").append(Html.fixed(f.confidence(), 3)).append("</td><td>")
+                    .append(Html.esc(f.mode())).append("</td><td class=\"t\">").append(Times.local(f.start(), zone))
+                    .append("</td><td class=\"t\">").append(Times.local(f.end(), zone)).append("</td><td class=\"num\" "
+                            + "title=\"").append(Html.esc(String.join(", ", ff.units()))).append("\">")
+                    .append(ff.units().size()).append("</td><td>").append(Html.esc(f.evidence())).append("</td><td>")
+                    .append(Html.esc(String.join(" | ", f.causes()))).append("</td></tr>\n");
+        }
+        b.append("</tbody>\n</table>\n");
+    }
+
     private static void ranking(StringBuilder b, List<UnitOutcome> units) {
         b.append("<h2>Ranking</h2>\n");
         List<UnitOutcome> ranked = FleetOutputs.ranked(units);
@@ -105,14 +157,16 @@ public final class FleetPage {
             b.append("<p>No unit has findings.</p>\n");
             return;
         }
-        b.append("<p>Units with findings, by fault hours (overlapping findings counted once), then estimated "
-                + "sensible energy moved during the findings.</p>\n<table class=\"sortable\">\n<thead><tr>"
-                + "<th class=\"num\">rank</th><th>unit</th><th class=\"num\">fault hours</th>"
+        b.append("<p>Units with findings, by their most confident finding, then fault hours (overlapping findings "
+                + "counted once), then estimated sensible energy moved during the findings.</p>\n"
+                + "<table class=\"sortable\">\n<thead><tr><th class=\"num\">rank</th><th>unit</th>"
+                + "<th class=\"num\">top confidence</th><th class=\"num\">fault hours</th>"
                 + "<th class=\"num\">energy (kWh)</th><th class=\"num\">findings</th></tr></thead>\n<tbody>\n");
         int rank = 1;
         for (UnitOutcome u : ranked) {
             b.append("<tr><td class=\"num\" data-sort=\"").append(rank).append("\">").append(rank).append("</td><td>")
                     .append(link(u)).append("</td>");
+            num(b, u.topConfidence(), 3);
             num(b, u.faultHours(), 1);
             num(b, u.faultEnergyKwh(), 0);
             b.append("<td class=\"num\" data-sort=\"").append(u.findings().size()).append("\">")
@@ -135,12 +189,15 @@ public final class FleetPage {
         }
         b.append("<p>Click a column header to sort (needs JavaScript; without it the table stays in unit and time "
                 + "order). Details, charts and candidate causes on each unit's page.</p>\n"
-                + "<table class=\"sortable\">\n<thead><tr><th>unit</th><th>mode</th><th>kind</th><th>cluster</th>"
+                + "<table class=\"sortable\">\n<thead><tr><th>unit</th><th class=\"num\">confidence</th>"
+                + "<th>mode</th><th>kind</th><th>cluster</th>"
                 + "<th>start</th><th>end</th><th class=\"num\">hours</th><th class=\"num\">energy (kWh)</th>"
-                + "<th>shift from normal</th><th>candidate causes</th></tr></thead>\n<tbody>\n");
+                + "<th>evidence</th><th>shift from normal</th><th>candidate causes</th></tr></thead>\n<tbody>\n");
         for (UnitOutcome u : units) {
             for (Finding f : u.findings()) {
-                b.append("<tr><td>").append(link(u)).append("</td><td>").append(Html.esc(f.mode()))
+                b.append("<tr><td>").append(link(u)).append("</td>");
+                num(b, f.confidence(), 3);
+                b.append("<td>").append(Html.esc(f.mode()))
                         .append("</td><td>").append(Html.esc(f.kind())).append("</td><td>")
                         .append(f.cluster() < 0 ? "" : "C" + f.cluster()).append("</td><td class=\"t\" data-sort=\"")
                         .append(f.start().getEpochSecond()).append("\">").append(Times.local(f.start(), zone))
@@ -148,7 +205,8 @@ public final class FleetPage {
                         .append(Times.local(f.end(), zone)).append("</td>");
                 num(b, f.hours(), 1);
                 num(b, f.energyKwh(), 1);
-                b.append("<td>").append(Html.shifts(f.shifts())).append("</td><td>").append(Html.esc(String.join(" | ", f.causes())))
+                b.append("<td>").append(Html.esc(f.evidence())).append("</td><td>").append(Html.shifts(f.shifts()))
+                        .append("</td><td>").append(Html.esc(String.join(" | ", f.causes())))
                         .append("</td></tr>\n");
             }
         }
@@ -172,21 +230,21 @@ public final class FleetPage {
     }
 
     private static void coverageMatrix(StringBuilder b, FleetCoverage coverage, Map<String, UnitOutcome> byUnit) {
-        List<String> roles = coverage.profile().roleNames();
+        List<String> roles = coverage.roleNames();
         b.append("<h2>Coverage: points found per unit and role</h2>\n<p>&quot;found&quot;: exactly one point "
                 + "qualifies (hover for its name); <strong>missing</strong>: none does; <em>ambiguous</em>: "
                 + "several do and the model must say which is meant (the role is then not used).</p>\n"
-                + "<table>\n<thead><tr><th>unit</th>");
+                + "<table>\n<thead><tr><th>unit</th><th>profile</th>");
         roles.forEach(r -> b.append("<th>").append(Html.esc(r.replace('_', ' '))).append("</th>"));
         b.append("</tr></thead>\n<tbody>\n");
         for (UnitCoverage u : coverage.units()) {
             UnitOutcome o = byUnit.get(u.unit());
             b.append("<tr><td>").append(o == null ? Html.esc(u.label().isEmpty() ? u.unit() : u.label()) : link(o))
-                    .append("</td>");
+                    .append("</td><td>").append(Html.esc(u.profileName())).append("</td>");
             for (String role : roles) {
                 RoleMatch m = u.roles().get(role);
                 if (m == null) {
-                    b.append("<td class=\"missing\">missing</td>");
+                    b.append("<td></td>"); // not a role of this unit's profile
                     continue;
                 }
                 switch (m.status()) {
