@@ -191,22 +191,7 @@ final class NeighbourLists {
             int dropped = heapPosition[0];
             double droppedSquared = heapSquared[0];
             heapWeight += tree.weight(pos) - tree.weight(dropped);
-            int i = 0;
-            while (true) {
-                int l = 2 * i + 1;
-                if (l >= heapSize) {
-                    break;
-                }
-                int c = l + 1 < heapSize && heapSquared[l + 1] > heapSquared[l] ? l + 1 : l;
-                if (heapSquared[c] <= squared) {
-                    break;
-                }
-                heapSquared[i] = heapSquared[c];
-                heapPosition[i] = heapPosition[c];
-                i = c;
-            }
-            heapSquared[i] = squared;
-            heapPosition[i] = pos;
+            siftDownFromTop(pos, squared);
             keepIfTie(dropped, droppedSquared);
         }
 
@@ -257,8 +242,11 @@ final class NeighbourLists {
 
         private void popTop() {
             heapSize--;
-            double squared = heapSquared[heapSize];
-            int pos = heapPosition[heapSize];
+            siftDownFromTop(heapPosition[heapSize], heapSquared[heapSize]);
+        }
+
+        /** Puts an entry at the top of the max-heap and sifts it down to its place. */
+        private void siftDownFromTop(int pos, double squared) {
             int i = 0;
             while (true) {
                 int l = 2 * i + 1;

@@ -48,68 +48,13 @@ public final class ReferenceOptics {
         return fit(x, minPts, Double.POSITIVE_INFINITY);
     }
 
-    /**
-     * OPTICS of the rows of {@code x}.
-     *
-     * @param x samples as rows; at least minPts rows, all of the same positive length, all values finite
-     * @param minPts MinPts >= 1, the sample itself counting
-     * @param maxEps neighbourhood radius >= 0, or {@link Double#POSITIVE_INFINITY} for unbounded
-     * @throws IllegalArgumentException with a one-line reason fit for a per-unit report
-     */
+    /** OPTICS of the rows of {@code x} (valid input: the tests and the benchmark pass what {@link Optics} accepts). */
     static OpticsResult fit(double[][] x, int minPts, double maxEps) {
-        if (x == null || x.length == 0) {
-            throw new IllegalArgumentException("OPTICS needs samples, got none");
-        }
         int n = x.length;
-        if (x[0] == null || x[0].length == 0) {
-            throw new IllegalArgumentException("OPTICS needs at least one feature per sample, row 0 has none");
-        }
         int dim = x[0].length;
         double[] flat = new double[n * dim];
         for (int i = 0; i < n; i++) {
-            if (x[i] == null || x[i].length != dim) {
-                throw new IllegalArgumentException("OPTICS needs rows of equal length: row " + i + " has "
-                        + (x[i] == null ? 0 : x[i].length) + " values, row 0 has " + dim);
-            }
             System.arraycopy(x[i], 0, flat, i * dim, dim);
-        }
-        return fitFlat(flat, n, dim, minPts, maxEps);
-    }
-
-    /**
-     * OPTICS of n samples stored row-major in {@code data} (sample i at data[i*dim .. i*dim+dim-1]). The array is
-     * copied, not modified.
-     */
-    static OpticsResult fit(double[] data, int n, int dim, int minPts, double maxEps) {
-        if (n <= 0) {
-            throw new IllegalArgumentException("OPTICS needs samples, got none");
-        }
-        if (dim <= 0) {
-            throw new IllegalArgumentException("OPTICS needs at least one feature per sample, got " + dim);
-        }
-        if (data.length != (long) n * dim) {
-            throw new IllegalArgumentException(
-                    "OPTICS data length " + data.length + " is not " + n + " samples x " + dim + " features");
-        }
-        return fitFlat(data.clone(), n, dim, minPts, maxEps);
-    }
-
-    private static OpticsResult fitFlat(double[] flat, int n, int dim, int minPts, double maxEps) {
-        if (minPts < 1) {
-            throw new IllegalArgumentException("OPTICS MinPts must be at least 1, got " + minPts);
-        }
-        if (n < minPts) {
-            throw new IllegalArgumentException(
-                    "OPTICS needs at least MinPts = " + minPts + " samples, got " + n);
-        }
-        if (Double.isNaN(maxEps) || maxEps < 0) {
-            throw new IllegalArgumentException("OPTICS maxEps must be >= 0 or +infinity, got " + maxEps);
-        }
-        for (int i = 0; i < flat.length; i++) {
-            if (!Double.isFinite(flat[i])) {
-                throw new IllegalArgumentException("OPTICS needs finite values: sample " + (i / dim)
-                        + ", feature " + (i % dim) + " is " + flat[i]);
-            }
         }
         KdTree tree = new KdTree(flat, n, dim);
         double[] core = new double[n];
