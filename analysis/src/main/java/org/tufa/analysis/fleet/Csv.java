@@ -84,11 +84,15 @@ final class Csv {
         return String.format(Locale.ROOT, "%." + decimals + "f", v);
     }
 
-    /** One CSV field, quoted when it holds a comma, quote or line break (RFC 4180). */
-    static String field(String s) {
-        if (s == null) {
+    /**
+     * One CSV field of text, quoted when it holds a comma, quote or line break (RFC 4180), with a leading apostrophe
+     * when a spreadsheet would run it as a formula ({@link org.tufa.common.CsvCells}).
+     */
+    static String field(String text) {
+        if (text == null) {
             return "";
         }
+        String s = org.tufa.common.CsvCells.neutral(text);
         if (s.indexOf(',') < 0 && s.indexOf('"') < 0 && s.indexOf('\n') < 0 && s.indexOf('\r') < 0) {
             return s;
         }

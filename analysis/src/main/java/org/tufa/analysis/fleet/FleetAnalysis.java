@@ -19,6 +19,7 @@ import org.tufa.analysis.episodes.ChannelEvidence;
 import org.tufa.analysis.features.UnitSignals;
 import org.tufa.analysis.findings.Finding;
 import org.tufa.analysis.trends.IngestReport;
+import org.tufa.analysis.trends.PlausibleRange;
 import org.tufa.analysis.trends.SeriesKind;
 import org.tufa.analysis.trends.TimeOptions;
 import org.tufa.analysis.trends.TrendStore;
@@ -68,15 +69,19 @@ public final class FleetAnalysis {
         units.sort(java.util.Comparator.comparing(UnitCoverage::unit));
         Map<String, UnitInputs> inputs = new LinkedHashMap<>();
         Map<String, SeriesKind> wanted = new java.util.TreeMap<>();
+        Map<String, PlausibleRange> ranges = new java.util.TreeMap<>();
         for (UnitCoverage u : units) {
             UnitInputs in = UnitInputs.of(u, settings.defaultAirflow());
             inputs.put(u.unit(), in);
             if (u.analyzable() && detects(u)) {
                 wanted.putAll(in.seriesKinds());
+                in.points().values().forEach(p -> PlausibleRange.forUnit(p.unitOfMeasureIri())
+                        .ifPresent(r -> ranges.putIfAbsent(p.timeseriesId(), r)));
             }
         }
         long t0 = System.nanoTime();
-        try (TrendStore store = TrendStore.ingest(trends, wanted, timeOptions)) {
+        try (TrendStore store = TrendStore.ingest(trends, wanted, ranges, timeOptions,
+                Path.of(System.getProperty("java.io.tmpdir")))) {
             times.add(StageTimes.Stage.READ, System.nanoTime() - t0);
             FolderNames names = new FolderNames();
             List<String> folders = new ArrayList<>();

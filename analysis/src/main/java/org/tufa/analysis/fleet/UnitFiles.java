@@ -1,16 +1,12 @@
 package org.tufa.analysis.fleet;
 
-import java.io.BufferedWriter;
-import java.io.IOException;
-import java.io.UncheckedIOException;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.ZoneId;
 import org.tufa.analysis.cluster.OpticsResult;
 import org.tufa.analysis.cluster.PcaResult;
 import org.tufa.analysis.features.FeatureMatrix;
 import org.tufa.analysis.modes.OperatingMode;
+import org.tufa.common.OutputFiles;
 
 /**
  * Writes one unit's files under {@code DIR/units/<folder>/}: {@code modes.csv} (every sample's mode and band
@@ -47,45 +43,37 @@ public final class UnitFiles implements UnitSink {
     @Override
     public void decided(UnitOutcome o, org.tufa.analysis.features.UnitSignals signals, double[] loadKw) {
         Path dir = folder(o);
-        try {
-            Files.createDirectories(dir);
-            Files.writeString(dir.resolve("summary.json"), Json.unitSummary(o), StandardCharsets.UTF_8);
-        } catch (IOException e) {
-            throw new UncheckedIOException("cannot write " + dir + ": " + e.getMessage(), e);
-        }
+        OutputFiles.ensureFolder(dir);
+        OutputFiles.writeString(dir.resolve("summary.json"), Json.unitSummary(o));
     }
 
     /** The per-sample files, while the detailed result is in memory. */
     @Override
     public void analysed(UnitOutcome o, org.tufa.analysis.features.UnitSignals signals) {
         Path dir = folder(o);
-        try {
-            Files.createDirectories(dir);
-            if (o.result() == null) {
-                return;
+        OutputFiles.ensureFolder(dir);
+        if (o.result() == null) {
+            return;
+        }
+        UnitAnalysis.Result r = o.result();
+        String[] times = times(r);
+        OutputFiles.writeText(dir.resolve("modes.csv"), w -> {
+            w.write("timestamp,mode,in_band\n");
+            byte[] codes = r.modes().codes();
+            for (int i = 0; i < codes.length; i++) {
+                w.write(times[i]);
+                w.write(',');
+                w.write(OperatingMode.ofCode(codes[i]).label());
+                w.write(',');
+                byte b = r.bandState()[i];
+                w.write(b == UnitAnalysis.Result.IN_BAND ? "true" : b == UnitAnalysis.Result.OUT_OF_BAND ? "false" : "");
+                w.write('\n');
             }
-            UnitAnalysis.Result r = o.result();
-            String[] times = times(r);
-            try (BufferedWriter w = Files.newBufferedWriter(dir.resolve("modes.csv"), StandardCharsets.UTF_8)) {
-                w.write("timestamp,mode,in_band\n");
-                byte[] codes = r.modes().codes();
-                for (int i = 0; i < codes.length; i++) {
-                    w.write(times[i]);
-                    w.write(',');
-                    w.write(OperatingMode.ofCode(codes[i]).label());
-                    w.write(',');
-                    byte b = r.bandState()[i];
-                    w.write(b == UnitAnalysis.Result.IN_BAND ? "true" : b == UnitAnalysis.Result.OUT_OF_BAND ? "false" : "");
-                    w.write('\n');
-                }
+        });
+        for (ModeResult m : r.modeResults()) {
+            if (m.analyzed()) {
+                writeMode(dir.resolve(m.mode()), m, times);
             }
-            for (ModeResult m : r.modeResults()) {
-                if (m.analyzed()) {
-                    writeMode(dir.resolve(m.mode()), m, times);
-                }
-            }
-        } catch (IOException e) {
-            throw new UncheckedIOException("cannot write " + dir + ": " + e.getMessage(), e);
         }
     }
 
@@ -111,10 +99,10 @@ public final class UnitFiles implements UnitSink {
         return g.text();
     }
 
-    private void writeMode(Path dir, ModeResult m, String[] times) throws IOException {
-        Files.createDirectories(dir);
+    private void writeMode(Path dir, ModeResult m, String[] times) {
+        OutputFiles.ensureFolder(dir);
         FeatureMatrix f = m.features();
-        try (BufferedWriter w = Files.newBufferedWriter(dir.resolve("features.csv"), StandardCharsets.UTF_8)) {
+        OutputFiles.writeText(dir.resolve("features.csv"), w -> {
             w.write("timestamp," + String.join(",", f.names()) + "\n");
             for (int i = 0; i < f.size(); i++) {
                 w.write(times[f.sampleIndex()[i]]);
@@ -124,9 +112,9 @@ public final class UnitFiles implements UnitSink {
                 }
                 w.write('\n');
             }
-        }
+        });
         PcaResult pca = m.pca();
-        try (BufferedWriter w = Files.newBufferedWriter(dir.resolve("scores.csv"), StandardCharsets.UTF_8)) {
+        OutputFiles.writeText(dir.resolve("scores.csv"), w -> {
             w.write("timestamp");
             for (int k = 1; k <= pca.componentCount(); k++) {
                 w.write(",pc" + k);
@@ -141,16 +129,16 @@ public final class UnitFiles implements UnitSink {
                 }
                 w.write('\n');
             }
-        }
+        });
         OpticsResult o = m.optics();
         int[] order = o.ordering();
-        try (BufferedWriter w = Files.newBufferedWriter(dir.resolve("reachability.csv"), StandardCharsets.UTF_8)) {
+        OutputFiles.writeText(dir.resolve("reachability.csv"), w -> {
             w.write("order,timestamp,reachability,core_distance,cluster\n");
             for (int k = 0; k < order.length; k++) {
                 int i = order[k];
                 w.write(k + "," + times[f.sampleIndex()[i]] + "," + Csv.number(o.reachabilityOf(i))
                         + "," + Csv.number(o.coreDistanceOf(i)) + "," + m.labels()[i] + "\n");
             }
-        }
+        });
     }
 }

@@ -1,9 +1,5 @@
 package org.tufa.analysis.report;
 
-import java.io.IOException;
-import java.io.UncheckedIOException;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.ZoneId;
 import java.util.List;
@@ -38,14 +34,10 @@ public final class FleetPage {
      * @param reportDir {@link #reportDir}
      */
     public static Path write(Path reportDir, FleetAnalysis.Result result, FleetCoverage coverage, ZoneId zone) {
-        try {
-            Files.createDirectories(reportDir);
-            Path index = reportDir.resolve("index.html");
-            Files.writeString(index, page(result, coverage, zone), StandardCharsets.UTF_8);
-            return index;
-        } catch (IOException e) {
-            throw new UncheckedIOException("cannot write " + reportDir + ": " + e.getMessage(), e);
-        }
+        org.tufa.common.OutputFiles.ensureFolder(reportDir);
+        Path index = reportDir.resolve("index.html");
+        org.tufa.common.OutputFiles.writeString(index, page(result, coverage, zone));
+        return index;
     }
 
     static String page(FleetAnalysis.Result result, FleetCoverage coverage, ZoneId zone) {
@@ -95,9 +87,8 @@ public final class FleetPage {
                     .toList()))).append(".</p>\n");
         }
         var ingest = result.ingest();
-        b.append("<p class=\"small\">Trends: ").append(ingest.rows()).append(" rows read, ")
-                .append(ingest.samplesKept()).append(" samples kept, ").append(ingest.unparsableValues())
-                .append(" unparsable values, ").append(ingest.seriesNeverSeen().size())
+        String line = org.tufa.analysis.fleet.FleetReport.ingestLines(ingest).get(0);
+        b.append("<p class=\"small\">").append(Html.esc(line)).append("; ").append(ingest.seriesNeverSeen().size())
                 .append(" wanted series without data.</p>\n");
     }
 

@@ -1,9 +1,7 @@
 package org.tufa.analysis.report;
 
+import org.tufa.common.OutputFiles;
 import java.awt.Color;
-import java.io.IOException;
-import java.io.UncheckedIOException;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Duration;
@@ -77,11 +75,7 @@ public final class UnitPages implements UnitSink {
             return;
         }
         Path dir = folder(o);
-        try {
-            Files.createDirectories(dir);
-        } catch (IOException e) {
-            throw new UncheckedIOException("cannot write " + dir + ": " + e.getMessage(), e);
-        }
+        OutputFiles.ensureFolder(dir);
         String name = name(o);
         Map<String, ModeCharts.Drawn> charts = new java.util.TreeMap<>();
         for (ModeResult m : r.modeResults()) {
@@ -100,18 +94,13 @@ public final class UnitPages implements UnitSink {
     @Override
     public void decided(UnitOutcome o, UnitSignals signals, double[] loadKw) {
         Path dir = folder(o);
-        try {
-            Files.createDirectories(dir);
-            if (signals != null && o.summary() != null) {
-                Charts.writePng(strips(name(o), signals, loadKw, o.summary().interval(), o.findings()), STRIP_WIDTH,
-                        STRIP_HEIGHT, dir.resolve("strips.png"));
-            }
-            Map<String, ModeCharts.Drawn> charts = drawn.remove(o.folder());
-            Files.writeString(dir.resolve("index.html"), page(o, charts == null ? Map.of() : charts, dir),
-                    StandardCharsets.UTF_8);
-        } catch (IOException e) {
-            throw new UncheckedIOException("cannot write " + dir + ": " + e.getMessage(), e);
+        OutputFiles.ensureFolder(dir);
+        if (signals != null && o.summary() != null) {
+            Charts.writePng(strips(name(o), signals, loadKw, o.summary().interval(), o.findings()), STRIP_WIDTH,
+                    STRIP_HEIGHT, dir.resolve("strips.png"));
         }
+        Map<String, ModeCharts.Drawn> charts = drawn.remove(o.folder());
+        OutputFiles.writeString(dir.resolve("index.html"), page(o, charts == null ? Map.of() : charts, dir));
     }
 
     private static String name(UnitOutcome o) {

@@ -86,6 +86,29 @@ final class ValueParser {
         return Double.isFinite(v) ? v : Double.NaN;
     }
 
+    /**
+     * Whether a value that {@link #number} refused is a non-finite number rather than text: NaN, Inf or Infinity
+     * (any case, optional sign), or a decimal number too large for a double (1e400).
+     */
+    static boolean isNonFinite(byte[] b, int start, int end) {
+        String t = new String(b, start, end - start, java.nio.charset.StandardCharsets.ISO_8859_1)
+                .toLowerCase(java.util.Locale.ROOT);
+        if (t.startsWith("+") || t.startsWith("-")) {
+            t = t.substring(1);
+        }
+        if (t.equals("nan") || t.equals("inf") || t.equals("infinity")) {
+            return true;
+        }
+        if (!t.matches("[0-9]*\\.?[0-9]*(e[+-]?[0-9]+)?") || t.isEmpty() || t.equals(".")) {
+            return false;
+        }
+        try {
+            return Double.isInfinite(Double.parseDouble(t));
+        } catch (NumberFormatException e) {
+            return false;
+        }
+    }
+
     /** A binary value: a number, or one of the binary words; NaN when neither. */
     static double binary(byte[] b, int start, int end) {
         byte first = b[start];
