@@ -86,8 +86,10 @@ public final class UnitFiles implements UnitSink {
                 if (g == null || !g.start().equals(r.gridStart()) || !g.interval().equals(r.interval())
                         || g.text().length != n) {
                     String[] text = new String[n];
+                    java.time.Instant start = r.gridStart();
+                    long step = r.interval().toNanos();
                     for (int i = 0; i < n; i++) {
-                        text[i] = Csv.time(r.time(i), zone);
+                        text[i] = Csv.time(start.plusNanos(step * i), zone);
                     }
                     g = new GridTimes(r.gridStart(), r.interval(), text);
                     gridTimes = g;

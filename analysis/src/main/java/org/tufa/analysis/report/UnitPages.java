@@ -36,6 +36,8 @@ public final class UnitPages implements UnitSink {
     static final int STRIP_HEIGHT = 520;
     static final int REACH_WIDTH = 720;
     static final int REACH_HEIGHT = 300;
+    /** Most columns of a reachability plot: two per pixel of its width (display only; every sample is clustered). */
+    static final int REACH_COLUMNS = 2 * REACH_WIDTH;
     static final int BIPLOT_SIZE = 600;
     /** Most points a biplot shows (display only; every sample is clustered). */
     static final int BIPLOT_POINTS = 2000;
@@ -242,8 +244,12 @@ public final class UnitPages implements UnitSink {
         b.append("<figure><img src=\"").append(drawn.reachabilityFile()).append("\" width=\"").append(REACH_WIDTH)
                 .append("\" height=\"").append(REACH_HEIGHT).append("\" alt=\"Reachability plot, ")
                 .append(Html.esc(m.mode())).append("\">\n<figcaption>OPTICS reachability plot (Ankerst, Breunig, "
-                        + "Kriegel and Sander, SIGMOD 1999): one bar per clustered sample in processing order; "
-                        + "valleys are dense regions. Bars coloured by cluster, noise grey; the brackets under the "
+                        + "Kriegel and Sander, SIGMOD 1999): ")
+                .append(drawn.reachabilityColumnWidth() == 1 ? "one bar per clustered sample in processing order"
+                        : "clustered samples in processing order, " + drawn.reachabilityColumnWidth()
+                        + " per column, each column showing the largest reachability of each cluster in it (display"
+                        + " only: the outline of peaks and valleys is exact)")
+                .append("; valleys are dense regions. Bars coloured by cluster, noise grey; the brackets under the "
                         + "axis mark each extracted xi cluster's span of the ordering (C0 = normal, the largest). "
                         + "Distances are in standardised PCA-score units (features scaled to unit variance). "
                         + "Undefined reachability (first sample of a region) is drawn at the top.</figcaption>"

@@ -22,7 +22,7 @@ import org.tufa.analysis.coverage.Vocabulary;
  *
  * <pre>
  * mvn -q -B -o -pl analysis -am package -DskipTests
- * java -cp analysis/target/tufa.jar org.tufa.analysis.coverage.bench.CoverageBenchmark [units] [seed] [runs] [keep.ttl]
+ * java -cp benchmarks/target/tufa-benchmarks.jar org.tufa.analysis.coverage.bench.CoverageBenchmark [units] [seed] [runs] [keep.ttl]
  * </pre>
  */
 public final class CoverageBenchmark {

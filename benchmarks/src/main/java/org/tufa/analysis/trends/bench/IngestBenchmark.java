@@ -35,7 +35,7 @@ import org.tufa.analysis.trends.TrendStore;
  * series, checks a few cells against the generator and prints MB/s and peak heap.
  *
  * <pre>
- * java -Xmx1500m -cp analysis/target/tufa.jar org.tufa.analysis.trends.bench.IngestBenchmark \
+ * java -Xmx1500m -cp benchmarks/target/tufa-benchmarks.jar org.tufa.analysis.trends.bench.IngestBenchmark \
  *     [--units 500] [--rows 35040] [--dir bench-out] [--spill-dir DIR] [--threads 2] [--keep]
  * </pre>
  *

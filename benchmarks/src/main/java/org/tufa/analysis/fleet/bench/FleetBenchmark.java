@@ -43,7 +43,7 @@ import org.tufa.analysis.simulate.UnitTrace;
  * for 500 units). The measured part runs in a child JVM with its own heap limit, so generation costs nothing:
  *
  * <pre>
- * java -Xmx4g -cp analysis/target/tufa.jar org.tufa.analysis.fleet.bench.FleetBenchmark \
+ * java -Xmx4g -cp benchmarks/target/tufa-benchmarks.jar org.tufa.analysis.fleet.bench.FleetBenchmark \
  *     [--units 500] [--dir DIR] [--keep] [--heap 1500m] [--threads 2] [--seed 2031] [--numbers fixed|trimmed]
  * </pre>
  *

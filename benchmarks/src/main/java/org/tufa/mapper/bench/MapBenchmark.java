@@ -26,11 +26,10 @@ import org.tufa.vocabulary.BrickVocabulary;
  * Stages timed separately: rule parse, CSV read, match, model build, Turtle write; each run repeated, the first
  * (cold) and the best (warm) reported. Run:
  * <pre>
- * mvn -q -o -pl mapper -am package -DskipTests
- * java -cp "mapper/target/classes:$(cat cp.txt)" org.tufa.mapper.bench.MapBenchmark [points] [rules] [seed] [runs]
+ * mvn -q -B -pl benchmarks -am package -DskipTests
+ * java -cp benchmarks/target/tufa-benchmarks.jar org.tufa.mapper.bench.MapBenchmark [points] [rules] [seed] [runs]
  * </pre>
- * (cp.txt from {@code mvn -q -o -pl mapper dependency:build-classpath -Dmdep.outputFile=cp.txt}); add
- * {@code -XX:ActiveProcessorCount=2} to mimic a 2-core machine. The model build allocates ~1.3 million triples;
+ * Add {@code -XX:ActiveProcessorCount=2} to mimic a 2-core machine. The model build allocates ~1.3 million triples;
  * {@code -XX:+UseParallelGC -Xms2g} cuts its garbage-collection share markedly (measured: best build 2.1 s vs
  * 3.3 s with the default G1 on the same loaded machine).
  */

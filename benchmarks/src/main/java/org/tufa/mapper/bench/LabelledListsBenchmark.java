@@ -21,7 +21,7 @@ import org.tufa.vocabulary.BrickVocabulary;
  * Maps the labelled point lists of shared/brick-examples ({@code soda}, {@code rice}, {@code gtc}) with our rule
  * files and prints one table row per list (scoring rules in {@link LabelledLists}). Run from the repository root:
  * <pre>
- * java -cp analysis/target/tufa.jar org.tufa.mapper.bench.LabelledListsBenchmark \
+ * java -cp benchmarks/target/tufa-benchmarks.jar org.tufa.mapper.bench.LabelledListsBenchmark \
  *     [--lists ../shared/brick-examples] [--rules mapper/src/test/resources/labelled] [--misses] \
  *     [--report NAME=mapping.csv ...]
  * </pre>

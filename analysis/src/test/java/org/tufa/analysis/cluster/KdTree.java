@@ -3,14 +3,14 @@ package org.tufa.analysis.cluster;
 /**
  * A small k-d tree (Bentley, "Multidimensional binary search trees used for associative searching",
  * Communications of the ACM 18(9), 1975) over a flat row-major coordinate array, for the k-nearest-neighbour
- * and fixed-radius queries of {@link Optics}.
+ * and fixed-radius queries of {@link ReferenceOptics}, the pass the new {@link Optics} is tested against.
  *
  * <p>Everything is primitive arrays: a permutation of the sample indices, and per node the index range, split
  * dimension and split value. Leaves hold up to {@link #LEAF_SIZE} points. Distances use exactly the formula of
  * {@link Optics#distance}, sqrt of the sum of squared coordinate differences taken in dimension order, so a value
  * found here is bit-identical to the same distance computed anywhere else in the package.
  *
- * <p>Not thread-safe for queries (it owns a scratch heap); one tree per {@code Optics.fit} call.
+ * <p>Not thread-safe for queries (it owns a scratch heap); one tree per {@code ReferenceOptics.fit} call.
  */
 final class KdTree {
 
