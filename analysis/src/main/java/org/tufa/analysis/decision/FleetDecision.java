@@ -295,14 +295,12 @@ public final class FleetDecision {
             int start = Integer.MAX_VALUE;
             int end = 0;
             double energy = 0;
-            double minP = 1;
             List<String> names = new ArrayList<>();
             for (Test t : members) {
                 t.folded = true;
                 start = Math.min(start, t.finding.range().start());
                 end = Math.max(end, t.finding.range().end());
                 energy += Double.isNaN(t.finding.energyKwh()) ? 0 : t.finding.energyKwh();
-                minP = Math.min(minP, t.p);
                 names.add(units.get(t.unit).unit());
             }
             names = names.stream().distinct().sorted().toList();
@@ -315,8 +313,17 @@ public final class FleetDecision {
                     (en.toEpochMilli() - s.toEpochMilli()) / 3_600_000.0, energy, first.shifts(),
                     causes.causes(FLEET_KIND, List.of(), null)).withEvidence(text);
             fleetFindings.add(new FleetFinding(f, names));
-            // Evidence that something common is at work: the strongest member, corrected for the members.
-            fleetTests.add(new Test(f, Math.min(1, minP * members.size()), fleetFindings.size() - 1));
+            // Evidence that something common is at work: no more units strayed together than independent faults
+            // would give, on the run's most crowded day, corrected for every day tested. (The members' own
+            // p-values say nothing here: a shared effect moves the fleet's null with it.)
+            double tail = 1;
+            for (int d = run[0]; d <= run[1]; d++) {
+                int[] v = perDay.get(d);
+                if (v != null) {
+                    tail = Math.min(tail, poissonUpperTail(rate * v[0], v[1]));
+                }
+            }
+            fleetTests.add(new Test(f, Math.min(1, tail * perDay.size()), fleetFindings.size() - 1));
         }
     }
 

@@ -50,22 +50,6 @@ public final class EpisodeFinder {
         return out;
     }
 
-    /**
-     * The statistic a healthy unit contributes to the fleet's null: the largest scan statistic of any run of days
-     * that stray from normal by {@code minZ} spreads, formed the way episodes are (bridging, {@code minDays}), but
-     * without the gate and the dominance conditions. So the null compares like with like: the most unusual run of
-     * unusual days of each channel, 0 for a channel whose days never stray that far.
-     */
-    public static double nullStatistic(DayChannel c, Parameters p) {
-        Parameters zOnly = new Parameters(p.minZ(), Double.NEGATIVE_INFINITY, Double.NEGATIVE_INFINITY,
-                p.bridgeDays(), p.maxGapDays(), p.maxWindow(), p.minDays());
-        double best = 0;
-        for (Episode e : find(c, zOnly)) {
-            best = Math.max(best, e.statistic());
-        }
-        return best;
-    }
-
     /** The episodes of a channel whose own values carry the engineering size (feature medians, rule shares). */
     public static List<Episode> find(DayChannel c, Parameters p) {
         return find(c, p, null, Double.NaN);
@@ -101,11 +85,15 @@ public final class EpisodeFinder {
             int count = 0;
             double shift = 0;
             double z = 0;
+            double value = 0;
+            double normal = 0;
             for (int i = start; i <= last; i++) {
                 if (fault[i]) {
                     count++;
                     shift += magnitude == null ? c.shift(i) : magnitude[i];
                     z += c.z()[i];
+                    value += c.value()[i];
+                    normal += c.normal()[i];
                 }
             }
             double stat = ScanStatistic.max(c.z(), start, last + 1, p.maxWindow());
@@ -114,7 +102,7 @@ public final class EpisodeFinder {
                 continue;
             }
             out.add(new Episode(start, last + 1, c.days()[start], c.days()[last], count, stat, shift / count,
-                    z / count));
+                    z / count, value / count, normal / count));
         }
         return out;
     }

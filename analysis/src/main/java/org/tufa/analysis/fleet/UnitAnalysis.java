@@ -40,6 +40,7 @@ import org.tufa.analysis.modes.ModeSplit;
 import org.tufa.analysis.modes.ModeThresholds;
 import org.tufa.analysis.modes.OperatingMode;
 import org.tufa.analysis.modes.OperatingModes;
+import org.tufa.analysis.significance.ScanStatistic;
 
 /**
  * The detection for one unit: operating modes, load, load band, and per mode features, PCA, OPTICS, clusters and
@@ -197,8 +198,8 @@ public final class UnitAnalysis {
                     continue;
                 }
                 String text = String.format(Locale.ROOT, "%s on %.0f %% of the samples on %d day(s), against %.0f %%"
-                        + " on the unit's normal days", kind, 100 * (e.meanShift() + c.center()), e.faultDays(),
-                        100 * c.center());
+                        + " on the unit's normal days", kind, 100 * e.meanValue(), e.faultDays(),
+                        100 * e.meanNormal());
                 candidates.add(new ChannelEvidence.Candidate(e, finding(mode, kind, -1, r, List.of(),
                         settings.causes().causes(kind, List.of(), null)).withEvidence(text)));
             }
@@ -213,7 +214,7 @@ public final class UnitAnalysis {
         /** A channel with its normal level in engineering units given apart (share channels of a feature). */
         ChannelEvidence evidence(String mode, DayChannel c, double level, double levelSpread, String unit,
                                  double gate, int[] rows, List<ChannelEvidence.Candidate> candidates) {
-            double scan = EpisodeFinder.nullStatistic(c, parameters(0, 0));
+            double scan = ScanStatistic.max(c.z(), settings.maxEpisodeWindowDays());
             IndexRange span = rows.length == 0 ? null : new IndexRange(rows[0], rows[rows.length - 1] + 1);
             Finding spanFinding = span == null ? null : finding(mode, c.channel(), -1, span, List.of(), List.of());
             return new ChannelEvidence(mode, c.channel(), c.direction(), unit, c.center(), c.spread(), level,
@@ -448,7 +449,7 @@ public final class UnitAnalysis {
                 DayChannel level = dir > 0 ? levels : levels.flipped();
                 out.add(new ChannelEvidence(mode, feature, dir, f.units().get(j), c.center(), c.spread(),
                         normalLevel, level.spread(), dayGate, c.size(),
-                        EpisodeFinder.nullStatistic(c, cx.parameters(0, 0)),
+                        ScanStatistic.max(c.z(), settings.maxEpisodeWindowDays()),
                         cx.finding(mode, feature, -1, new IndexRange(rows[0], rows[n - 1] + 1), List.of(),
                                 List.of()), candidates));
             }
@@ -523,8 +524,8 @@ public final class UnitAnalysis {
         String unit = f.units().get(f.indexOf(feature));
         String text = String.format(Locale.ROOT, "%s %+.1f %s from normal on %.0f %% of the samples, %d day(s) (%.0f %%"
                         + " on the unit's normal days; %.1f day-to-day spreads)", feature, dir * e.meanShift(),
-                unit.equals("degC") ? "K" : unit, 100 * (c.center() + e.meanZ() * c.spread()), e.faultDays(),
-                100 * c.center(), e.meanZ());
+                unit.equals("degC") ? "K" : unit, 100 * e.meanValue(), e.faultDays(), 100 * e.meanNormal(),
+                e.meanZ());
         return new ChannelEvidence.Candidate(e, cx.finding(mode, "fault_cluster", cluster, r, shifts, causes)
                 .withEvidence(text));
     }
