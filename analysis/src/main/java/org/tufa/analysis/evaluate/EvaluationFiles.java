@@ -35,6 +35,14 @@ public final class EvaluationFiles {
 
     /** Reads everything; checks that every truth and findings unit is in the fleet. */
     public static EvaluationInput read(Path findingsDir, Path truthFile) {
+        return read(findingsDir, truthFile, 0);
+    }
+
+    /**
+     * As {@link #read(Path, Path)}, keeping only findings with at least {@code minConfidence} (read from the
+     * confidence column; files without one keep every finding).
+     */
+    public static EvaluationInput read(Path findingsDir, Path truthFile, double minConfidence) {
         Path fleetFile = findingsDir.resolve("fleet.csv");
         List<FleetUnit> fleet = new ArrayList<>();
         Map<String, FleetUnit> byUnit = new TreeMap<>();
@@ -63,6 +71,18 @@ public final class EvaluationFiles {
             Instant end = time(findingsFile, line, "end", r.get("end"));
             if (end.isBefore(start)) {
                 throw InputException.at(findingsFile, line, "end is before start");
+            }
+            if (minConfidence > 0 && r.isMapped("confidence")) {
+                double c;
+                try {
+                    c = Double.parseDouble(r.get("confidence"));
+                } catch (NumberFormatException e) {
+                    throw InputException.at(findingsFile, line, "column confidence: '" + r.get("confidence")
+                            + "' is not a number");
+                }
+                if (c < minConfidence) {
+                    return;
+                }
             }
             findings.computeIfAbsent(unit, k -> new ArrayList<>()).add(new FlaggedInterval(unit, r.get("kind"),
                     start, end));
