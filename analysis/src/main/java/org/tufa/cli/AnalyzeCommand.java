@@ -50,10 +50,22 @@ public final class AnalyzeCommand implements Callable<Integer> {
     @Mixin
     FleetModelOptions fleet;
 
-    @Option(names = "--trends", required = true, paramLabel = "PATH", split = ",",
+    @Option(names = "--trends", required = true, paramLabel = "PATH|URL",
             description = "Trend CSV files (long timestamp,point,value or wide timestamp,<series>...), .csv.gz, "
-                    + "or folders of them. Repeatable.")
-    List<Path> trends = new ArrayList<>();
+                    + "or folders of them (repeatable); or one PostgreSQL database, jdbc:postgresql://host:port/db "
+                    + "(login from TUFA_DB_USER and TUFA_DB_PASSWORD or --db-login; layout from --historian).")
+    List<String> trends = new ArrayList<>();
+
+    @Option(names = "--historian", paramLabel = "FILE",
+            description = "With a database: its layout (long table or one table per series), table and column "
+                    + "names, as key = value lines (README, 'Trends from a database'). Default: a long table "
+                    + "trend_samples(series_id, ts, value).")
+    Path historian;
+
+    @Option(names = "--db-login", paramLabel = "FILE",
+            description = "With a database: a file of 'user = ...' and 'password = ...' lines, instead of the "
+                    + "environment variables TUFA_DB_USER and TUFA_DB_PASSWORD.")
+    Path dbLogin;
 
     @Option(names = "--out", required = true, paramLabel = "DIR", description = "Output directory.")
     Path out;
@@ -147,6 +159,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
                 defaults.bridgeSamples(), defaults.residualGate(), defaults.activityGate(), defaults.zoneErrorGate(),
                 defaults.defaultAirflow(),
                 causes == null ? defaults.causes() : CauseTable.load(causes));
+        TrendInput input = TrendInput.of(trends, historian, dbLogin);
         HeapWatch heap = HeapWatch.start();
         FleetModelOptions.Assessed assessed = fleet.assess();
         if (assessed.coverage().units().isEmpty()) {
@@ -162,13 +175,15 @@ public final class AnalyzeCommand implements Callable<Integer> {
         if (!noReport) {
             sinks.add(new UnitPages(out, zone)); // unit pages and charts render in the worker threads
         }
-        FleetAnalysis.Result result = FleetAnalysis.run(assessed.coverage(), trends, time, settings,
-                Math.max(1, threads), sinks, bar::update);
+        FleetAnalysis.Result result = FleetAnalysis.run(assessed.coverage(), input.opener(assessed.coverage()), time,
+                settings, Math.max(1, threads), sinks, bar::update);
         CoverageFiles.write(assessed.coverage(), out);
         List<Path> inputs = new ArrayList<>();
         inputs.add(fleet.model);
-        inputs.addAll(trends);
-        FleetOutputs.write(out, result, zone, parameters(settings, time, zone), inputs);
+        inputs.addAll(input.files());
+        Map<String, Object> parameters = parameters(settings, time, zone);
+        parameters.putAll(input.parameters());
+        FleetOutputs.write(out, result, zone, parameters, inputs);
         Path report = noReport ? null : FleetPage.write(FleetPage.reportDir(out), result, assessed.coverage(), zone);
         FleetReport.summary(result, assessed.coverage(), out).forEach(stdout::println);
         if (report != null) {

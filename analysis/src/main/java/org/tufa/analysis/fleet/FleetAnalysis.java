@@ -16,8 +16,10 @@ import org.tufa.analysis.coverage.FleetCoverage;
 import org.tufa.analysis.coverage.UnitCoverage;
 import org.tufa.analysis.features.UnitSignals;
 import org.tufa.analysis.trends.IngestReport;
+import org.tufa.analysis.trends.ResampledSeries;
 import org.tufa.analysis.trends.SeriesKind;
 import org.tufa.analysis.trends.TimeOptions;
+import org.tufa.analysis.trends.TrendSource;
 import org.tufa.analysis.trends.TrendStore;
 
 /**
@@ -43,7 +45,17 @@ public final class FleetAnalysis {
     private FleetAnalysis() {
     }
 
+    /** Runs on trend files (CSV, long or wide, plain or gzip, or folders of them). */
     public static Result run(FleetCoverage coverage, List<Path> trends, TimeOptions timeOptions,
+                             AnalysisSettings settings, int threads, List<UnitSink> sinks, Progress progress) {
+        return run(coverage, (wanted, options) -> TrendStore.ingest(trends, wanted, options), timeOptions, settings,
+                threads, sinks, progress);
+    }
+
+    /**
+     * Runs on any trend source: the opener is given the series of every analysable unit and the time options.
+     */
+    public static Result run(FleetCoverage coverage, TrendSource.Opener trends, TimeOptions timeOptions,
                              AnalysisSettings settings, int threads, List<UnitSink> sinks, Progress progress) {
         StageTimes times = new StageTimes();
         List<UnitCoverage> units = new ArrayList<>(coverage.units());
@@ -58,7 +70,7 @@ public final class FleetAnalysis {
             }
         }
         long t0 = System.nanoTime();
-        try (TrendStore store = TrendStore.ingest(trends, wanted, timeOptions)) {
+        try (TrendSource store = trends.open(wanted, timeOptions)) {
             times.add(StageTimes.Stage.READ, System.nanoTime() - t0);
             FolderNames names = new FolderNames();
             List<String> folders = new ArrayList<>();
@@ -113,15 +125,17 @@ public final class FleetAnalysis {
     }
 
     private static Analysed analyse(FleetCoverage coverage, UnitCoverage u, UnitInputs in, String folder,
-                                       TrendStore store, AnalysisSettings settings, StageTimes times) {
+                                       TrendSource store, AnalysisSettings settings, StageTimes times) {
         if (!u.analyzable()) {
             return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED,
                     CoverageSummary.reason(coverage, u), List.of(), null, List.of()), null);
         }
+        // Outside the try: a source that cannot be read (a database gone away, a value that is not a number) stops
+        // the run with its one-line error instead of failing unit after unit.
+        long t0 = System.nanoTime();
+        Map<String, ResampledSeries> series = store.read(in.seriesKinds().keySet());
         try {
-            long t0 = System.nanoTime();
-            SignalPreparation.Prepared p = SignalPreparation.prepare(in,
-                    id -> store.seriesIds().contains(id) ? Optional.of(store.series(id)) : Optional.empty(),
+            SignalPreparation.Prepared p = SignalPreparation.prepare(in, id -> Optional.ofNullable(series.get(id)),
                     store.gridStart(), store.interval(), store.gridLength());
             times.add(StageTimes.Stage.RESAMPLE, System.nanoTime() - t0);
             UnitSignals s = p.signals();
