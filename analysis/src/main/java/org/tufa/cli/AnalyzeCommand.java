@@ -28,6 +28,7 @@ import org.tufa.analysis.modes.ModeThresholds;
 import org.tufa.analysis.fleet.UnitSink;
 import org.tufa.analysis.report.FleetPage;
 import org.tufa.analysis.report.UnitPages;
+import org.tufa.analysis.tables.SampleFormat;
 import org.tufa.analysis.trends.TimeOptions;
 import org.tufa.common.InputException;
 import picocli.CommandLine.Command;
@@ -127,6 +128,11 @@ public final class AnalyzeCommand implements Callable<Integer> {
     @Option(names = "--strict", description = "Stop at the first unparsable trend value instead of counting it.")
     boolean strict;
 
+    @Option(names = "--sample-files", paramLabel = "FORMAT", defaultValue = "parquet",
+            description = "Per-sample tables under DIR/units/ (modes, features, scores, reachability): parquet "
+                    + "(compressed, typed; pandas, DuckDB, Spark read it) or csv, same columns (default: ${DEFAULT-VALUE}).")
+    String sampleFiles;
+
     @Option(names = "--no-report", description = "Skip the HTML report (DIR/report/index.html and one page per unit).")
     boolean noReport;
 
@@ -146,6 +152,12 @@ public final class AnalyzeCommand implements Callable<Integer> {
         if (!(valveOpen >= 0 && valveOpen < 100) || !(fanOn > 0 && fanOn <= 1) || settling < 0) {
             throw new InputException("--valve-open must be 0..100, --fan-on in (0, 1] and --settling >= 0; got "
                     + valveOpen + ", " + fanOn + ", " + settling);
+        }
+        SampleFormat sampleFormat;
+        try {
+            sampleFormat = SampleFormat.fromName(sampleFiles);
+        } catch (IllegalArgumentException e) {
+            throw new InputException("--sample-files: '" + sampleFiles + "' is not a format; use parquet or csv");
         }
         if (minPts < 2 || !(variance > 0 && variance <= 1) || !(xi > 0 && xi < 1)) {
             throw new InputException("--min-pts must be >= 2, --variance in (0, 1] and --xi in (0, 1); got "
@@ -171,7 +183,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
         ProgressBar bar = new ProgressBar(stderr, "units");
         long start = System.nanoTime();
         List<UnitSink> sinks = new ArrayList<>();
-        sinks.add(new UnitFiles(out, zone));
+        sinks.add(new UnitFiles(out, zone, sampleFormat));
         if (!noReport) {
             sinks.add(new UnitPages(out, zone)); // unit pages and charts render in the worker threads
         }
@@ -278,6 +290,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
         p.put("default_airflow_m3s", s.defaultAirflow());
         p.put("causes", causes == null ? "built-in" : causes.toString());
         p.put("strict", strict);
+        p.put("sample_files", sampleFiles.toLowerCase(java.util.Locale.ROOT));
         return p;
     }
 

@@ -1,0 +1,85 @@
+package org.tufa.analysis.tables;
+
+import java.io.BufferedWriter;
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+
+/**
+ * A per-sample table as CSV: a header row of the column names, then one line per row. Text values are written as
+ * they are (tufa's per-sample text columns hold mode names only); numbers read back to the same double.
+ */
+final class CsvSampleTable implements SampleTable {
+
+    private final BufferedWriter out;
+    private boolean rowStarted;
+
+    CsvSampleTable(Path file, List<SampleColumn> columns) throws IOException {
+        this.out = Files.newBufferedWriter(file, StandardCharsets.UTF_8);
+        out.write(String.join(",", columns.stream().map(SampleColumn::name).toList()));
+        out.write('\n');
+    }
+
+    private void next() throws IOException {
+        if (rowStarted) {
+            out.write(',');
+        }
+        rowStarted = true;
+    }
+
+    @Override
+    public void time(long epochSecond, String text) throws IOException {
+        next();
+        out.write(text);
+    }
+
+    @Override
+    public void text(String value) throws IOException {
+        next();
+        out.write(value);
+    }
+
+    @Override
+    public void flag(Boolean value) throws IOException {
+        next();
+        if (value != null) {
+            out.write(value ? "true" : "false");
+        }
+    }
+
+    @Override
+    public void real(double value) throws IOException {
+        next();
+        out.write(number(value));
+    }
+
+    @Override
+    public void integer(int value) throws IOException {
+        next();
+        out.write(Integer.toString(value));
+    }
+
+    @Override
+    public void endRow() throws IOException {
+        out.write('\n');
+        rowStarted = false;
+    }
+
+    @Override
+    public void close() throws IOException {
+        out.close();
+    }
+
+    /** A decimal that parses back to the same double (Double.toString); inf/-inf/nan as numpy and pandas read them. */
+    static String number(double v) {
+        if (Double.isNaN(v)) {
+            return "nan";
+        }
+        if (Double.isInfinite(v)) {
+            return v > 0 ? "inf" : "-inf";
+        }
+        return Double.toString(v);
+    }
+}
