@@ -199,7 +199,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
         Path report = noReport ? null : FleetPage.write(FleetPage.reportDir(out), result, assessed.coverage(), zone);
         FleetReport.summary(result, assessed.coverage(), out).forEach(stdout::println);
         if (report != null) {
-            stdout.println("Report: " + report);
+            stdout.println("Report: " + report + " (" + FleetPage.describeSize(FleetPage.reportDir(out)) + ")");
         }
         stderr.printf(java.util.Locale.ROOT, "time: %.1f s wall; per stage (summed over threads): %s; %s%n",
                 (System.nanoTime() - start) / 1e9, result.times().summary(), heap.stop());
