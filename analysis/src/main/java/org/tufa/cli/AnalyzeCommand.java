@@ -175,7 +175,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
         HeapWatch heap = HeapWatch.start();
         FleetModelOptions.Assessed assessed = fleet.assess();
         if (assessed.coverage().units().isEmpty()) {
-            stdout.println("Nothing to analyse in " + fleet.model + ": no terminal units of the requested classes.");
+            stdout.println("Nothing to analyse in " + fleet.source() + ": no terminal units of the requested classes.");
             stdout.flush();
             heap.stop();
             return ExitCodes.CHECK_FAILED;
@@ -191,10 +191,16 @@ public final class AnalyzeCommand implements Callable<Integer> {
                 settings, Math.max(1, threads), sinks, bar::update);
         CoverageFiles.write(assessed.coverage(), out);
         List<Path> inputs = new ArrayList<>();
-        inputs.add(fleet.model);
+        if (fleet.model != null) {
+            inputs.add(fleet.model);
+        }
         inputs.addAll(input.files());
         Map<String, Object> parameters = parameters(settings, time, zone);
         parameters.putAll(input.parameters());
+        if (fleet.store != null) {
+            parameters.put("model_store", fleet.store.toString());
+            parameters.put("model_graph", fleet.graph == null ? "" : fleet.graph);
+        }
         FleetOutputs.write(out, result, zone, parameters, inputs);
         Path report = noReport ? null : FleetPage.write(FleetPage.reportDir(out), result, assessed.coverage(), zone);
         FleetReport.summary(result, assessed.coverage(), out).forEach(stdout::println);

@@ -37,7 +37,7 @@ public final class CoverageCommand implements Callable<Integer> {
         FleetCoverage coverage = assessed.coverage();
         CoverageSummary.lines(coverage, assessed.prefixes(), maxListed).forEach(stdout::println);
         if (coverage.units().isEmpty()) {
-            stdout.println("Nothing to analyse in " + fleet.model + ": no instance of the unit classes above. "
+            stdout.println("Nothing to analyse in " + fleet.source() + ": no instance of the unit classes above. "
                     + "Check the unit classes, or pass the full Brick file with --vocabulary if the model uses "
                     + "classes outside tufa's Brick subset.");
             stdout.flush();
