@@ -9,8 +9,21 @@ cd "$(dirname "$0")/.."
 
 PG_BIN=${PG_BIN:-/usr/lib/postgresql/15/bin}
 PORT=${TUFA_TEST_PG_PORT:-54329}
-DATA="$PWD/target/postgres/data"
-LOG="$PWD/target/postgres/server.log"
+ROOT="$PWD/target/postgres"
+# As root the server runs as 'postgres', which must be able to reach the folder; a clone under a private home
+# (/root is mode 700) is out of its reach, and then the data go to a folder of their own under /tmp instead.
+if [ "$(id -u)" = 0 ]; then
+  mkdir -p "$ROOT"
+  chown postgres "$ROOT"
+  if ! runuser -u postgres -- test -w "$ROOT"; then
+    ROOT="/tmp/tufa-postgres-$(printf '%s' "$PWD" | md5sum | cut -c1-12)"
+    echo "postgres.sh: $PWD/target is out of the postgres user's reach; data in $ROOT" >&2
+    mkdir -p "$ROOT"
+    chown postgres "$ROOT"
+  fi
+fi
+DATA="$ROOT/data"
+LOG="$ROOT/server.log"
 USER_NAME=tufa_test
 # A password for a server that listens on 127.0.0.1 only and holds nothing but test data.
 PASSWORD=tufa-test-only
@@ -21,14 +34,13 @@ as_server() {
 
 case "${1:-}" in
   start)
-    mkdir -p "$PWD/target/postgres"
-    if [ "$(id -u)" = 0 ]; then chown postgres "$PWD/target/postgres"; fi
+    mkdir -p "$ROOT"
     if [ ! -f "$DATA/PG_VERSION" ]; then
-      pwfile="$PWD/target/postgres/superuser-password"
+      pwfile="$ROOT/superuser-password"
       printf '%s\n' "$PASSWORD" >"$pwfile"
       if [ "$(id -u)" = 0 ]; then chown postgres "$pwfile"; fi
       as_server "$PG_BIN/initdb" -D "$DATA" -U postgres --auth=scram-sha-256 --pwfile="$pwfile" -E UTF8 \
-        --locale=C.UTF-8 >"$PWD/target/postgres/initdb.log"
+        --locale=C.UTF-8 >"$ROOT/initdb.log"
       rm -f "$pwfile"
     fi
     if ! as_server "$PG_BIN/pg_ctl" -D "$DATA" status >/dev/null 2>&1; then
