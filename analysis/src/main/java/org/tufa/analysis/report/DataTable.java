@@ -83,6 +83,16 @@ final class DataTable {
             return this;
         }
 
+        /** A time, kept on one line, sorted by its epoch second. */
+        Row time(String text, long epochSecond) {
+            JsonObject c = new JsonObject();
+            c.addProperty("t", text);
+            c.addProperty("s", epochSecond);
+            c.addProperty("c", "t");
+            cells.add(c);
+            return this;
+        }
+
         /** A figure, rounded for reading, sorted by its value. */
         Row number(double value, int decimals) {
             return sorted(Html.fixed(value, decimals), value);

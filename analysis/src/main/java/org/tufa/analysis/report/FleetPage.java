@@ -153,8 +153,8 @@ public final class FleetPage {
             for (Finding f : u.findings()) {
                 t.row().link(name(u), href(u)).text(f.mode()).text(f.kind())
                         .text(f.cluster() < 0 ? "" : "C" + f.cluster())
-                        .sorted(Times.local(f.start(), zone), f.start().getEpochSecond())
-                        .sorted(Times.local(f.end(), zone), f.end().getEpochSecond())
+                        .time(Times.local(f.start(), zone), f.start().getEpochSecond())
+                        .time(Times.local(f.end(), zone), f.end().getEpochSecond())
                         .number(f.hours(), 1).number(f.energyKwh(), 1)
                         .text(String.join("\n", f.shifts().stream().map(Shift::describe).toList()))
                         .text(String.join(" | ", f.causes()));
