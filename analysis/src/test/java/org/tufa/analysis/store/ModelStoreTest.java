@@ -99,6 +99,34 @@ class ModelStoreTest {
     }
 
     @Test
+    void analyzeFromTheStoreGivesTheFindingsOfTheFile() throws Exception {
+        Model m = org.tufa.analysis.coverage.ModelLoader.load(modelA);
+        var v = org.tufa.analysis.coverage.Vocabulary.standard();
+        var coverage = org.tufa.analysis.coverage.Coverage.assess(m, v, v.profiles().profile("fcu-modes"),
+                Set.of(org.tufa.analysis.coverage.Coverage.TERMINAL_UNIT));
+        var targets = org.tufa.analysis.simulate.DemoTargets.from(coverage);
+        var season = new org.tufa.analysis.simulate.Season(java.time.LocalDate.of(2031, 7, 1),
+                java.time.LocalDate.of(2031, 7, 14), org.tufa.analysis.simulate.Season.DEMO_ZONE);
+        Path trends = dir.resolve("trends-a.csv");
+        org.tufa.analysis.simulate.DemoTrends.writeLong(trends, org.tufa.analysis.simulate.Simulator.run(
+                new org.tufa.analysis.simulate.SimulationPlan(targets.units(), targets.building(), season, 9L,
+                        List.of())));
+        Path a = dir.resolve("an-file");
+        Path b = dir.resolve("an-store");
+        Run file = tufa("analyze", "--model", modelA.toString(), "--trends", trends.toString(), "--out",
+                a.toString(), "--no-report", "--timezone", "America/Toronto");
+        Run fromStore = tufa("analyze", "--store", store.toString(), "--graph", "urn:example:hollins#building",
+                "--trends", trends.toString(), "--out", b.toString(), "--no-report", "--timezone", "America/Toronto");
+        assertEquals(0, file.code(), file.err());
+        assertEquals(0, fromStore.code(), fromStore.err());
+        assertTrue(Files.readString(a.resolve("fleet.csv")).contains(",analyzed,"));
+        for (String f : List.of("fleet.csv", "findings.csv", "ranking.csv", "coverage.csv")) {
+            assertEquals(Files.readString(a.resolve(f)), Files.readString(b.resolve(f)), f);
+        }
+        assertTrue(Files.readString(b.resolve("run.json")).contains("\"model_store\""));
+    }
+
+    @Test
     void withTwoBuildingsTheGraphMustBeNamed() {
         Run r = tufa("coverage", "--store", store.toString(), "--out", dir.resolve("x").toString());
         assertEquals(1, r.code());
