@@ -67,10 +67,15 @@ class ReportTest {
         return out;
     }
 
-    /** Every cell of a table as its JSON (a string, or an object with t, h, s, c, ti). */
+    /**
+     * Every cell of a table as its JSON: a string (a number stands for a string of the table's string list), or an
+     * object with t, h, s, c, ti.
+     */
     static List<com.google.gson.JsonElement> cells(com.google.gson.JsonObject table) {
         List<com.google.gson.JsonElement> out = new java.util.ArrayList<>();
-        table.getAsJsonArray("rows").forEach(r -> r.getAsJsonArray().forEach(out::add));
+        var strings = table.getAsJsonArray("strings");
+        table.getAsJsonArray("rows").forEach(r -> r.getAsJsonArray().forEach(c -> out.add(
+                c.isJsonPrimitive() && c.getAsJsonPrimitive().isNumber() ? strings.get(c.getAsInt()) : c)));
         return out;
     }
 
@@ -104,6 +109,13 @@ class ReportTest {
                 + c.getAsJsonObject().get("t").getAsString()).toList();
         assertTrue(coverageCells.contains("missing:missing"), "a missing role is spelled out");
         assertTrue(coverageCells.contains("ambiguous:ambiguous (2)"), "an ambiguous role is marked");
+        // Long texts are stored once: every candidate-cause text of findings.csv is in the table's cells.
+        java.util.Set<String> texts = new java.util.TreeSet<>();
+        cells(tables.get("findings")).forEach(c -> texts.add(c.isJsonObject() ? c.getAsJsonObject().get("t")
+                .getAsString() : c.getAsString()));
+        for (UnitOutcome u : fleet.result().units()) {
+            u.findings().forEach(f -> assertTrue(texts.contains(String.join(" | ", f.causes())), f.toString()));
+        }
         assertTrue(index.contains("<th class=\"num\">units found</th>"));
     }
 
