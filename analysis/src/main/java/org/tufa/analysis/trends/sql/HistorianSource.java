@@ -71,6 +71,13 @@ public final class HistorianSource implements TrendSource {
     private final List<Connection> opened = java.util.Collections.synchronizedList(new ArrayList<>());
     /** What each series gave on its first read (a series shared by units is counted once). */
     private final Map<String, SeriesTally> tallies = new ConcurrentHashMap<>();
+    /** How often each series was asked for. */
+    private final Map<String, Integer> requests = new ConcurrentHashMap<>();
+    /**
+     * Series asked for by more than one unit (an outdoor air sensor, a loop's supply temperature), kept once
+     * resampled after their second read: a building's few shared series, so memory stays flat in units.
+     */
+    private final Map<String, ResampledSeries> shared = new ConcurrentHashMap<>();
 
     /** Checked column names (quoted) and how to read the time and value columns. */
     private record Columns(String series, String time, String value, boolean naiveTime, boolean textValue,
@@ -283,6 +290,15 @@ public final class HistorianSource implements TrendSource {
         List<String> ids = new ArrayList<>(new TreeSet<>(seriesIds));
         ids.removeIf(id -> !tables.containsKey(id));
         Map<String, ResampledSeries> out = new TreeMap<>();
+        for (java.util.Iterator<String> it = ids.iterator(); it.hasNext(); ) {
+            String id = it.next();
+            requests.merge(id, 1, Integer::sum);
+            ResampledSeries kept = shared.get(id);
+            if (kept != null) {
+                out.put(id, copy(kept));
+                it.remove();
+            }
+        }
         if (ids.isEmpty()) {
             return out;
         }
@@ -336,6 +352,12 @@ public final class HistorianSource implements TrendSource {
             }
             c.commit();
             release(c);
+            for (String id : ids) {
+                ResampledSeries r = out.get(id);
+                if (r != null && requests.getOrDefault(id, 0) > 1) {
+                    shared.putIfAbsent(id, copy(r));
+                }
+            }
             return out;
         } catch (SQLException e) {
             close(c);
@@ -344,6 +366,12 @@ public final class HistorianSource implements TrendSource {
             release(c);
             throw e;
         }
+    }
+
+    /** A series with its own values array: callers may change theirs. */
+    private static ResampledSeries copy(ResampledSeries r) {
+        return new ResampledSeries(r.id(), r.kind(), r.gridStart(), r.interval(), r.values().clone(), r.rawSamples(),
+                r.cellsWithSamples(), r.cellsHeld());
     }
 
     private String timeExpression() {
