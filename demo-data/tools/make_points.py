@@ -50,6 +50,20 @@ UNIT_VARIANTS_PER_CONVENTION = 3
 # Floor 12 zone sensors are networked wall sensors exposed as AV, not AI.
 AV_ZONE_SENSOR_FLOORS = {12}
 
+# ---- the Ropewalk wing (added 2028, a third controls contract): VAV boxes on AHU-4 ----
+# 10 boxes per level 1-4: seats 01-06 on the facade with hot-water reheat, 07-10 interior, cooling only.
+WING_FLOORS = range(1, 5)
+WING_BOXES_PER_FLOOR = 10
+WING_REHEAT_SEATS = range(1, 7)
+WING_RE = re.compile(r"^WCH-RW/L(\d)/VAV-(\d)\.(\d{2})/")
+# boxes without a discharge-air sensor (airflow-side analysis only)
+WING_NO_DISCHARGE = ["RW-VAV-1-04", "RW-VAV-2-09", "RW-VAV-3-02", "RW-VAV-4-08"]
+# damper position feedback exists only on levels 3 and 4 (the 2028 actuators on 1-2 have none)
+WING_FEEDBACK_FLOORS = {3, 4}
+# level 1 airflow points were left in cfm by the balancing contractor
+WING_CFM_FLOORS = {1}
+WING_NAME_MISSPELLINGS = {("RW-VAV-2-05", "zat"): "ZN-TMP"}
+
 HEADER = ["Point Name", "Description", "Units", "Object Type", "Device", "Trend ID"]
 KEY_HEADER = ["point", "expected_class", "expected_equipment", "expected_equipment_class",
               "expected_part_class", "expected_unit", "role", "note"]
@@ -366,6 +380,85 @@ def meters(dev_new, dev_old):
     ]
 
 
+# ---------------------------------------------------------------- the Ropewalk wing (VAV boxes)
+def wing_box(floor, seat):
+    eq = f"RW-VAV-{floor}-{seat:02d}"
+    dev = 40000 + floor * 100 + seat
+    pre = f"WCH-RW/L{floor}/VAV-{floor}.{seat:02d}/"
+    reheat = seat in WING_REHEAT_SEATS
+    d = f"Ropewalk L{floor} VAV {floor}.{seat:02d}"
+    box = dict(equip=eq, equip_cls="Variable_Air_Volume_Box_With_Reheat" if reheat
+               else "Variable_Air_Volume_Box")
+    flow_units, flow_unit = ("cfm", "FT3-PER-MIN") if floor in WING_CFM_FLOORS else ("L/s", "L-PER-SEC")
+    pts = [
+        ("zat", "ZN-T", f"{d} Zone Temp", "°C", "AI", True,
+         dict(cls="Zone_Air_Temperature_Sensor", unit="DEG_C", role="zone_air_temperature")),
+        ("dat", "DA-T", f"{d} Discharge Air Temp", "°C", "AI", True,
+         dict(cls="Discharge_Air_Temperature_Sensor", unit="DEG_C", role="discharge_air_temperature")),
+        ("af", "AF", f"{d} Airflow", flow_units, "AI", True,
+         dict(cls="Supply_Air_Flow_Sensor", unit=flow_unit, role="airflow")),
+        ("afsp", "AF-SP", f"{d} Airflow Setpoint", flow_units, "AV", True,
+         dict(cls="Supply_Air_Flow_Setpoint", unit=flow_unit, role="airflow_setpoint")),
+        ("afmin", "AF-MIN", f"{d} Minimum Airflow", flow_units, "AV", False,
+         dict(cls="Min_Air_Flow_Setpoint_Limit", unit=flow_unit, note="configuration, not trended")),
+        ("afmax", "AF-MAX", f"{d} Maximum Airflow", flow_units, "AV", False,
+         dict(cls="Max_Air_Flow_Setpoint_Limit", unit=flow_unit, note="configuration, not trended")),
+        ("dcmd", "DMP-CMD", f"{d} Damper Command", "%", "AO", True,
+         dict(cls="Damper_Position_Command", part="Damper", unit="PERCENT", role="damper_command")),
+        ("dpos", "DMP-POS", f"{d} Damper Position", "%", "AI", True,
+         dict(cls="Damper_Position_Sensor", part="Damper", unit="PERCENT", role="damper_position")),
+        ("rhv", "RHV-CMD", f"{d} Reheat Valve Command", "%", "AO", True,
+         dict(cls="Valve_Position_Command", part="Reheat_Valve", unit="PERCENT", role="reheat_valve_command")),
+        ("csp", "CLG-SP", f"{d} Effective Cooling Setpoint", "°C", "AV", True,
+         dict(cls="Effective_Cooling_Zone_Air_Temperature_Setpoint", unit="DEG_C",
+              role="zone_cooling_temperature_setpoint")),
+        ("hsp", "HTG-SP", f"{d} Effective Heating Setpoint", "°C", "AV", True,
+         dict(cls="Effective_Heating_Zone_Air_Temperature_Setpoint", unit="DEG_C",
+              role="zone_heating_temperature_setpoint")),
+        ("occ", "OCC", f"{d} Occupancy Mode", "", "BV", True,
+         dict(cls="Occupancy_Command", role="occupancy")),
+    ]
+    rows = []
+    for kind, token, desc, units, otype, trended, key in pts:
+        if kind == "dat" and eq in WING_NO_DISCHARGE:
+            continue
+        if kind == "dpos" and floor not in WING_FEEDBACK_FLOORS:
+            continue
+        if kind == "rhv" and not reheat:
+            continue
+        name_token = WING_NAME_MISSPELLINGS.get((eq, kind), token)
+        row = Row(pre + name_token, desc, units, otype, dev, trended, **box, **key)
+        if name_token != token:
+            add_note(row, f"misspelt: {name_token} for {token}")
+        if kind in ("af", "afsp", "afmin", "afmax") and floor in WING_CFM_FLOORS:
+            add_note(row, "airflow in cfm (balancing contractor's setting)")
+        rows.append(row)
+    return rows
+
+
+def wing_ahu(dev):
+    eq = "AHU-4"
+    pre = "WCH-RW/AHU-4/"
+    a = dict(equip=eq, equip_cls="Air_Handling_Unit")
+    spec = [
+        ("SA-T", "AHU-4 Supply Air Temp", "°C", "AI",
+         dict(cls="Supply_Air_Temperature_Sensor", unit="DEG_C", role="ahu_supply_air_temperature",
+              note="serves the Ropewalk wing VAV boxes")),
+        ("SA-T-STPT", "AHU-4 Supply Air Temp Setpoint", "°C", "AV",
+         dict(cls="Supply_Air_Temperature_Setpoint", unit="DEG_C")),
+        ("SA-P", "AHU-4 Supply Duct Static Pressure", "Pa", "AI",
+         dict(cls="Supply_Air_Static_Pressure_Sensor", unit="PA", role="ahu_supply_static_pressure")),
+        ("SA-P-STPT", "AHU-4 Supply Duct Static Pressure Setpoint", "Pa", "AV",
+         dict(cls="Supply_Air_Static_Pressure_Setpoint", unit="PA")),
+        ("SF-STS", "AHU-4 Supply Fan Status", "", "BI",
+         dict(cls="Fan_Status", note="supply fan")),
+        ("SF-SPD", "AHU-4 Supply Fan Speed", "%", "AO",
+         dict(cls="Fan_Speed_Command", unit="PERCENT", note="supply fan")),
+    ]
+    return [Row(pre + token, desc, units, otype, dev, True, **a, **key)
+            for token, desc, units, otype, key in spec]
+
+
 def bare_spare(name, otype, dev, desc="Spare"):
     return Row(name, desc, "", otype, dev, False, note="spare; maps to nothing")
 
@@ -452,6 +545,12 @@ def build(rng):
     for name in again_at_end:
         out.append(next(r for r in rows if r.name == name).duplicate(exact=False))
 
+    # ---- the Ropewalk wing, exported last (its own contract, 2028): the lines above keep their numbers
+    out.extend(wing_ahu(40904))
+    for floor in WING_FLOORS:
+        for seat in range(1, WING_BOXES_PER_FLOOR + 1):
+            out.extend(wing_box(floor, seat))
+
     # ---- trend ids: older-contract devices (< 20000) TL-<device>-<n>, the others numeric
     per_device = {}
     next_numeric = 400101
@@ -468,6 +567,9 @@ def build(rng):
         elif r.device < 20000:
             per_device[r.device] = per_device.get(r.device, 0) + 1
             r.trend = f"TL-{r.device}-{per_device[r.device]}"
+        elif r.device >= 40000:
+            per_device[r.device] = per_device.get(r.device, 0) + 1
+            r.trend = f"RW{r.device}.{per_device[r.device]}"
         else:
             r.trend = str(next_numeric)
             next_numeric += 1
@@ -484,6 +586,10 @@ def check(rows):
     repeated = sorted(n for n, c in names.items() if c > 1)
     assert repeated == sorted(r.name for r in rows if r.duplicate_of), repeated
     for r in rows:
+        w = WING_RE.match(r.name)
+        if r.equip_cls.startswith("Variable_Air_Volume_Box"):
+            assert w and w.group(1) == w.group(2), r.name
+            assert f"RW-VAV-{w.group(2)}-{w.group(3)}" == r.equip, r.name
         m = OLDER_FCU_RE.match(r.name) or NEWER_FCU_RE.match(r.name)
         if r.equip_cls == "Fan_Coil_Unit":
             assert m, r.name
@@ -492,7 +598,8 @@ def check(rows):
             assert r.equip_cls == "Fan_Coil_Unit", r.name
         assert (r.cls == "") == (r.equip == "" and "building-level" not in r.note), r.name
         assert "\n" not in r.name + r.desc and "," not in r.name, r.name
-        assert (r.part != "") == (r.role in ("cooling_valve_command", "heating_valve_command")), r.name
+        assert (r.part != "") == (r.role in ("cooling_valve_command", "heating_valve_command", "damper_command",
+                                             "damper_position", "reheat_valve_command")), r.name
         assert r.otype in ("AI", "AO", "AV", "BI", "BO", "BV", "MSV"), r.name
         assert (r.unit == "") == (r.otype in ("BI", "BO", "BV", "MSV") or r.cls == ""), r.name
 
@@ -518,6 +625,12 @@ def summarise(rows):
         per_floor[int(eq[4:6])] += 1
     older = sum(1 for r in rows if r.name.startswith("WCH_") or r.name.startswith("SPARE_"))
     spares = [r for r in rows if "maps to nothing" in r.note]
+    wing_boxes = OrderedDict()
+    for r in rows:
+        if r.equip_cls.startswith("Variable_Air_Volume_Box"):
+            wing_boxes.setdefault(r.equip, r.equip_cls)
+    wing_reheat = sum(1 for c in wing_boxes.values() if c.endswith("With_Reheat"))
+    wing_rows = sum(1 for r in rows if r.name.startswith("WCH-RW/"))
     lines = [
         "### Summary (printed by make_points.py)",
         "",
@@ -544,6 +657,11 @@ def summarise(rows):
                                               else f"second trend id {r.trend}") + ")"),
         f"- Spares and unused points ({len(spares)}): "
         + ", ".join(f"`{r.name}` ({r.otype}, device {r.device})" for r in spares),
+        f"- Ropewalk wing: {len(wing_boxes)} VAV boxes ({wing_reheat} with hot-water reheat, "
+        f"{len(wing_boxes) - wing_reheat} cooling-only) on AHU-4, {wing_rows} rows",
+        "- VAV boxes without a discharge-air sensor: " + ", ".join(WING_NO_DISCHARGE),
+        "- Damper position feedback only on levels " + ", ".join(str(f) for f in sorted(WING_FEEDBACK_FLOORS))
+        + "; level " + ", ".join(str(f) for f in sorted(WING_CFM_FLOORS)) + " airflows in cfm",
     ]
     return "\n".join(lines) + "\n"
 

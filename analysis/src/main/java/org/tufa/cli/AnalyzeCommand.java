@@ -40,7 +40,7 @@ import picocli.CommandLine.Spec;
 @Command(name = "analyze", mixinStandardHelpOptions = true,
         description = {"Run the detection on every analysable terminal unit, per operating mode: trends, modes, load "
                 + "band, PCA, OPTICS, clusters, candidate faults.",
-            "Writes DIR/fleet.csv, DIR/findings.csv, DIR/ranking.csv, DIR/run.json, DIR/units/ and the HTML report "
+            "Writes DIR/fleet.csv, DIR/findings.csv, DIR/fleet_findings.csv, DIR/ranking.csv, DIR/run.json, DIR/units/ and the HTML report "
                 + "DIR/report/index.html (opens offline in any browser). Findings are "
                 + "candidates for review by qualified staff, never commands to equipment."})
 public final class AnalyzeCommand implements Callable<Integer> {
@@ -133,6 +133,12 @@ public final class AnalyzeCommand implements Callable<Integer> {
                     + "(compressed, typed; pandas, DuckDB, Spark read it) or csv, same columns (default: ${DEFAULT-VALUE}).")
     String sampleFiles;
 
+    @Option(names = "--min-confidence", paramLabel = "C", defaultValue = "0.9",
+            description = "List findings with at least this confidence, 1 minus the false-discovery rate at which "
+                    + "the finding holds (default: ${DEFAULT-VALUE}); the others are counted, not listed. 0 lists "
+                    + "every candidate.")
+    double minConfidence;
+
     @Option(names = "--no-report", description = "Skip the HTML report (DIR/report/index.html and one page per unit).")
     boolean noReport;
 
@@ -165,12 +171,17 @@ public final class AnalyzeCommand implements Callable<Integer> {
         }
         ModeThresholds modes = new ModeThresholds(valveOpen, fanOn, defaults.modeThresholds().fanSpeedOnFraction(),
                 settling);
-        AnalysisSettings settings = new AnalysisSettings(modes, bandKind(), defaults.bandRuns(),
-                variance, minPts, new AutoParameters(xi, defaults.extraction().minClusterFraction(),
-                defaults.extraction().mergeCoverage()), defaults.minModeSamples(), defaults.minFindingSamples(),
-                defaults.bridgeSamples(), defaults.residualGate(), defaults.activityGate(), defaults.zoneErrorGate(),
-                defaults.defaultAirflow(),
-                causes == null ? defaults.causes() : CauseTable.load(causes));
+        if (!(minConfidence >= 0 && minConfidence <= 1)) {
+            throw new InputException("--min-confidence must be in [0, 1]; got " + minConfidence);
+        }
+        AnalysisSettings.DecisionSettings d = defaults.decision();
+        AnalysisSettings settings = defaults.withModeThresholds(modes)
+                .withClustering(bandKind(), variance, minPts, new AutoParameters(xi,
+                        defaults.extraction().minClusterFraction(), defaults.extraction().mergeCoverage()))
+                .withCauses(causes == null ? defaults.causes() : CauseTable.load(causes))
+                .withDayZone(zone)
+                .withDecision(new AnalysisSettings.DecisionSettings(minConfidence, d.minPeerDeviation(),
+                        d.minPeers(), d.fleetWideP(), d.minFleetUnits()));
         TrendInput input = TrendInput.of(trends, historian, dbLogin);
         HeapWatch heap = HeapWatch.start();
         FleetModelOptions.Assessed assessed = fleet.assess();
@@ -185,7 +196,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
         List<UnitSink> sinks = new ArrayList<>();
         sinks.add(new UnitFiles(out, zone, sampleFormat));
         if (!noReport) {
-            sinks.add(new UnitPages(out, zone)); // unit pages and charts render in the worker threads
+            sinks.add(new UnitPages(out, zone)); // charts and unit pages render in the worker threads
         }
         FleetAnalysis.Result result = FleetAnalysis.run(assessed.coverage(), input.opener(assessed.coverage()), time,
                 settings, Math.max(1, threads), sinks, bar::update);
@@ -203,14 +214,16 @@ public final class AnalyzeCommand implements Callable<Integer> {
         }
         FleetOutputs.write(out, result, zone, parameters, inputs);
         Path report = noReport ? null : FleetPage.write(FleetPage.reportDir(out), result, assessed.coverage(), zone);
-        FleetReport.summary(result, assessed.coverage(), out).forEach(stdout::println);
+        FleetReport.summary(result, assessed.coverage(), out, minConfidence).forEach(stdout::println);
         if (report != null) {
             stdout.println("Report: " + report + " (" + FleetPage.describeSize(FleetPage.reportDir(out)) + ")");
         }
         stderr.printf(java.util.Locale.ROOT, "time: %.1f s wall; per stage (summed over threads): %s; %s%n",
                 (System.nanoTime() - start) / 1e9, result.times().summary(), heap.stop());
         stdout.flush();
-        if (result.ingest().samplesKept() == 0) {
+        boolean anyDetection = assessed.coverage().units().stream().anyMatch(u -> u.analyzable()
+                && u.unitKind().equals(org.tufa.analysis.coverage.Profile.FAN_COIL));
+        if (result.ingest().samplesKept() == 0 && anyDetection) {
             // Nothing matched: almost always trend names that are not the model's series ids.
             List<String> seen = result.ingest().unknownSeries();
             stderr.println("tufa: no trend sample belongs to a point of the model: the trends' point names (long "
@@ -268,7 +281,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
 
     private Map<String, Object> parameters(AnalysisSettings s, TimeOptions time, ZoneId zone) {
         Map<String, Object> p = new LinkedHashMap<>();
-        p.put("profile", fleet.profile);
+        p.put("profile", fleet.profiles.isEmpty() ? "automatic" : String.join(",", new java.util.TreeSet<>(fleet.profiles)));
         p.put("unit_classes", String.join(",", assessedClasses()));
         p.put("timezone", zone.getId());
         p.put("from", time.from() == null ? "" : time.from().toString());
@@ -288,12 +301,18 @@ public final class AnalyzeCommand implements Callable<Integer> {
         p.put("min_cluster_fraction", s.extraction().minClusterFraction());
         p.put("merge_coverage", s.extraction().mergeCoverage());
         p.put("min_mode_samples", s.minModeSamples());
-        p.put("min_finding_samples", s.minFindingSamples());
-        p.put("bridge_samples", s.bridgeSamples());
         p.put("residual_gate_k", s.residualGate());
         p.put("activity_gate_percent", s.activityGate());
         p.put("zone_error_gate_k", s.zoneErrorGate());
         p.put("default_airflow_m3s", s.defaultAirflow());
+        p.put("day_zone", s.dayZone().getId());
+        p.put("min_day_deviation", s.minDayDeviation());
+        p.put("max_episode_window_days", s.maxEpisodeWindowDays());
+        p.put("min_confidence", s.decision().minConfidence());
+        p.put("min_peer_deviation", s.decision().minPeerDeviation());
+        p.put("min_peers", s.decision().minPeers());
+        p.put("fleet_wide_p", s.decision().fleetWideP());
+        p.put("min_fleet_units", s.decision().minFleetUnits());
         p.put("causes", causes == null ? "built-in" : causes.toString());
         p.put("strict", strict);
         p.put("sample_files", sampleFiles.toLowerCase(java.util.Locale.ROOT));

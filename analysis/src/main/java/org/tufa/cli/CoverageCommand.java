@@ -38,8 +38,8 @@ public final class CoverageCommand implements Callable<Integer> {
         CoverageSummary.lines(coverage, assessed.prefixes(), maxListed).forEach(stdout::println);
         if (coverage.units().isEmpty()) {
             stdout.println("Nothing to analyse in " + fleet.source() + ": no instance of the unit classes above. "
-                    + "Check the unit classes, or pass the full Brick file with --vocabulary if the model uses "
-                    + "classes outside tufa's Brick subset.");
+                    + "Check the unit classes" + (coverage.fullBrick() ? "." : ", or " + CoverageSummary.FULL_BRICK_HINT
+                    + " if the model uses classes the loaded vocabulary lacks."));
             stdout.flush();
             return ExitCodes.CHECK_FAILED;
         }

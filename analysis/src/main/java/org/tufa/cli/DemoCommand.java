@@ -100,15 +100,16 @@ public final class DemoCommand implements Callable<Integer> {
             stdout.println("Reusing the trends already simulated in " + dir);
             return;
         }
-        FleetModelOptions.Assessed assessed = FleetModelOptions.assess(model, "fcu-modes", List.of(), List.of());
+        FleetModelOptions.Assessed assessed = FleetModelOptions.assess(model, List.of(), List.of(), List.of());
         DemoTargets targets = DemoTargets.from(assessed.coverage());
-        SimulationPlan plan = DemoSimulation.plan(targets.units(), targets.building(), season, DemoSimulation.DEMO_SEED);
+        SimulationPlan plan = DemoSimulation.plan(targets.units(), targets.vavUnits(), targets.building(), season,
+                DemoSimulation.DEMO_SEED);
         SimulationResult result = Simulator.run(plan);
         Files.createDirectories(dir);
         List<Path> written = DemoTrends.write(dir, result, DemoTrends.Layout.WIDE);
         Files.writeString(stamp, id, StandardCharsets.UTF_8);
-        stdout.println("Simulated " + targets.units().size() + " units with " + plan.faults().size()
-                + " fault episodes; wrote " + String.join(", ", written.stream().map(Path::toString).toList()));
+        stdout.println("Simulated " + targets.units().size() + " fan coil units and " + targets.vavUnits().size()
+                + " VAV boxes with " + plan.faults().size() + " fault episodes; wrote " + String.join(", ", written.stream().map(Path::toString).toList()));
     }
 
     private int run(String... args) {

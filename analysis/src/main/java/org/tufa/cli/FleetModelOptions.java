@@ -9,7 +9,6 @@ import org.apache.jena.shared.PrefixMapping;
 import org.tufa.analysis.coverage.Coverage;
 import org.tufa.analysis.coverage.FleetCoverage;
 import org.tufa.analysis.coverage.ModelLoader;
-import org.tufa.analysis.coverage.ProfileCatalog;
 import org.tufa.analysis.coverage.UnitClasses;
 import org.tufa.analysis.coverage.Vocabulary;
 import org.tufa.analysis.store.ModelStore;
@@ -31,9 +30,11 @@ public final class FleetModelOptions {
             description = "With --store: the building's graph (default: the store's only building).")
     String graph;
 
-    @Option(names = "--profile", paramLabel = "NAME", defaultValue = ProfileCatalog.DEFAULT_PROFILE,
-            description = "Requirement profile (default: ${DEFAULT-VALUE}).")
-    String profile;
+    @Option(names = "--profile", paramLabel = "NAME", split = ",",
+            description = "Requirement profiles to use (repeat or separate with commas); units no named profile "
+                    + "applies to are listed without one. Default: each unit gets the best fitting of the automatic "
+                    + "profiles (fan coil units fcu-modes, VAV boxes the vav-* variant their class and points show).")
+    List<String> profiles = new ArrayList<>();
 
     @Option(names = "--unit-class", paramLabel = "CLASS", split = ",",
             description = "Only units of these classes (e.g. brick:Fan_Coil_Unit or a full IRI); "
@@ -41,7 +42,7 @@ public final class FleetModelOptions {
     List<String> unitClasses = new ArrayList<>();
 
     @Option(names = "--vocabulary", paramLabel = "FILE",
-            description = "Extra vocabulary: the full Brick file, or your own roles and profiles. Repeatable.")
+            description = "Extra vocabulary: a newer Brick release, or your own roles and profiles (all of Brick 1.4.4 is built in). Repeatable.")
     List<Path> vocabularies = new ArrayList<>();
 
     /** The coverage of the chosen fleet, and the prefixes to print IRIs with. */
@@ -53,13 +54,13 @@ public final class FleetModelOptions {
             if (model == null) {
                 throw new org.tufa.common.InputException("give the model with --model FILE, or a store with --store DIR");
             }
-            return assess(model, profile, unitClasses, vocabularies);
+            return assess(model, profiles, unitClasses, vocabularies);
         }
         if (model != null) {
             throw new org.tufa.common.InputException("--model and --store: give one of them, not both");
         }
         try (ModelStore s = ModelStore.open(store, false)) {
-            return s.read(graph, (data, stored) -> assess(data, Vocabulary.of(stored, vocabularies), profile,
+            return s.read(graph, (data, stored) -> assess(data, Vocabulary.of(stored, vocabularies), profiles,
                     unitClasses));
         }
     }
@@ -70,15 +71,18 @@ public final class FleetModelOptions {
                 : graph) + ")";
     }
 
-    static Assessed assess(Path model, String profile, List<String> unitClasses, List<Path> vocabularies) {
-        return assess(ModelLoader.load(model), Vocabulary.load(vocabularies), profile, unitClasses);
+    /** The coverage with the named profiles, or the automatic choice per unit when none is named. */
+    static Assessed assess(Path model, List<String> profiles, List<String> unitClasses, List<Path> vocabularies) {
+        return assess(ModelLoader.load(model), Vocabulary.load(vocabularies), profiles, unitClasses);
     }
 
-    static Assessed assess(Model data, Vocabulary vocabulary, String profile, List<String> unitClasses) {
-        var chosen = vocabulary.profiles().profile(profile);
+    static Assessed assess(Model data, Vocabulary vocabulary, List<String> profiles, List<String> unitClasses) {
+        var chosen = vocabulary.profiles().profiles(profiles);
         Model all = vocabulary.unionWith(data);
         PrefixMapping prefixes = Vocabulary.prefixesFor(data);
-        Set<String> classes = UnitClasses.resolve(unitClasses, all, prefixes);
-        return new Assessed(Coverage.assess(data, vocabulary, chosen, classes), prefixes);
+        Set<String> classes = UnitClasses.resolve(unitClasses, all, prefixes, vocabulary.hasFullBrick());
+        FleetCoverage coverage = profiles.isEmpty() ? Coverage.assess(data, vocabulary, classes)
+                : Coverage.assess(data, vocabulary, chosen, false, classes);
+        return new Assessed(coverage, prefixes);
     }
 }

@@ -54,7 +54,7 @@ public final class QueryCommand implements Callable<Integer> {
             description = "table, csv or json (SELECT and ASK; CONSTRUCT and DESCRIBE always print Turtle).")
     String format;
 
-    @Option(names = "--vocabulary", paramLabel = "FILE", description = "Extra vocabulary, e.g. the full Brick file.")
+    @Option(names = "--vocabulary", paramLabel = "FILE", description = "Extra vocabulary, e.g. a newer Brick release (all of Brick 1.4.4 is built in).")
     List<Path> vocabularies = new ArrayList<>();
 
     @Override

@@ -34,10 +34,14 @@ class CoverageAndQueryCommandTest {
         Run r = tufa("coverage", "--model", model(), "--out", dir.toString(), "--list", "2");
         assertEquals(0, r.code(), r.err());
         assertTrue(r.out().contains("Terminal units found: 6"), r.out());
-        assertTrue(r.out().contains("Analysable (at least one mode): 3 of 6 (50.0 %)"), r.out());
-        assertTrue(r.out().contains("  ... and 1 more"), r.out());
-        assertTrue(Files.readString(dir.resolve("coverage.csv")).startsWith("unit,label,unit_class,"));
-        assertTrue(Files.readString(dir.resolve("coverage.json")).contains("\"profile\": \"fcu-modes\""));
+        assertTrue(r.out().contains("Analysable (at least one mode): 2 of 6 (33.3 %)"), r.out());
+        assertTrue(r.out().contains("Profile fcu-modes: 5 units, 2 analysable (40.0 %)"), r.out());
+        assertTrue(r.out().contains("Profile vav-hot-water-reheat: 1 unit, 0 analysable (0.0 %)"), r.out());
+        assertTrue(r.out().contains("  ... and 2 more"), r.out());
+        assertTrue(Files.readString(dir.resolve("coverage.csv")).startsWith("unit,label,unit_class,profile,unit_kind,"));
+        String json = Files.readString(dir.resolve("coverage.json"));
+        assertTrue(json.contains("\"profile\": \"fcu-modes\""), json);
+        assertTrue(json.contains("\"profile\": \"vav-hot-water-reheat\""), json);
     }
 
     @Test

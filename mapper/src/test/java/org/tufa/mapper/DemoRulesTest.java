@@ -74,7 +74,7 @@ class DemoRulesTest {
             }
         }
         assertEquals(result.mappings().size(), rows, "rows in = rows out");
-        assertEquals(1658, rows);
+        assertEquals(2104, rows);
         assertEquals(List.of(), misses);
         assertEquals(0, result.failedExpectations(), "inline expectations: " + result.expectations());
 

@@ -119,10 +119,10 @@ class MapperTest {
     }
 
     @Test
-    void lowScoresStayUnmappedWithAReason() {
+    void pointsWithoutUsableTagsAreUnclassifiedWithAReason() {
         MappingResult r = map(FCU, List.of(p(2, "FCU-1-1.QQ-ZZ", "", "")));
         PointMapping m = r.mappings().get(0);
-        assertEquals(Status.UNMAPPED, m.status());
+        assertEquals(Status.UNCLASSIFIED, m.status());
         assertTrue(m.reason().contains("tokens not in the dictionary: QQ ZZ"), m.reason());
     }
 

@@ -162,8 +162,8 @@ class ModelTest {
                 "--report", report.toString(), "--explain");
         assertEquals(0, code, console.toString());
         String text = console.toString();
-        assertTrue(text.contains("points read: 4") && text.contains("mapped 0, unmapped 1, conflict 0, duplicate 2, "
-                + "rejected 1") && text.contains("Fan_Coil_Unit: 1") && text.contains("AHU-# SAT"), text);
+        assertTrue(text.contains("points read: 4") && text.contains("mapped 0, ambiguous 0, unclassified 0, unmapped 1, "
+                + "skipped 0, conflict 0, duplicate 2, rejected 1") && text.contains("Fan_Coil_Unit: 1") && text.contains("AHU-# SAT"), text);
         assertEquals(5, Files.readAllLines(report).size(), "header + one row per input row");
 
         Files.writeString(rules, RULES + "expect \"FCU-9-9 ZN T\" type AI => Fan_Status\n");

@@ -54,8 +54,8 @@ class RuleFileTest {
         assertEquals(Optional.of("DEG_F"), r.unit());
         assertEquals(java.util.Set.of("AI", "AV"), r.types());
         assertEquals(1, rs.expectations().size());
-        // the chilled-water valve part's qualifiers: its own tags and the when tags, minus Equipment and Valve
-        assertEquals(java.util.Set.of("Chilled", "Cool", "Water"), rs.parts().get(0).qualifiers());
+        assertEquals("Chilled_Water_Valve", rs.parts().get(0).className().fixed());
+        assertEquals(java.util.Set.of("Cool", "Valve"), rs.parts().get(0).when());
     }
 
     @Test
@@ -98,10 +98,18 @@ class RuleFileTest {
     }
 
     @Test
-    void deprecatedClassesAreAcceptedWithAWarningNamingTheReplacement() {
-        RuleSet rs = parse(HEAD + "rule a\n  match name ^A\n  class Zone_Air_Temperature_Setpoint\n");
-        assertEquals(List.of("site.tufa:4: class Zone_Air_Temperature_Setpoint is deprecated in Brick 1.3.0, use "
-                + "Target_Zone_Air_Temperature_Setpoint; accepted as written"), rs.warnings());
+    void deprecatedClassesAreReplacedOrExplainedWithAWarning() {
+        // Brick 1.4.4: Zone_Air_Temperature_Setpoint deprecated in 1.3.0, brick:isReplacedBy
+        // Target_Zone_Air_Temperature_Setpoint; Floor deprecated in 1.4.0, brick:isReplacedBy rec:Level.
+        RuleSet rs = parse(HEAD + "rule a\n  match name ^A\n  class Zone_Air_Temperature_Setpoint\n"
+                + "  equipment E Fan_Coil_Unit\n  location Floor F1\n"
+                + "rule b\n  match name ^B\n  equipment E Fan_Coil_Unit\n  location rec:Level L1\n");
+        assertEquals(List.of("site.tufa:4: class Zone_Air_Temperature_Setpoint is deprecated in Brick 1.3.0; written "
+                + "as Target_Zone_Air_Temperature_Setpoint (its replacement)",
+                "site.tufa:6: class Floor is deprecated in Brick 1.4.0; write rec:Level to follow Brick; accepted as "
+                + "written"), rs.warnings());
+        assertEquals("Target_Zone_Air_Temperature_Setpoint", rs.rules().get(0).pointClass().orElseThrow().fixed());
+        assertEquals("rec:Level", rs.rules().get(1).locations().get(0).className().fixed());
     }
 
     @Test

@@ -39,52 +39,136 @@ public final class Coverage {
     private Coverage() {
     }
 
-    /** Assesses with tufa's shipped vocabulary (Brick subset and tufa.ttl). */
+    /** Assesses with tufa's shipped vocabulary (Brick 1.4.4 and tufa.ttl) and one profile. */
     public static FleetCoverage assess(Model model, Profile profile, Set<String> unitClasses) {
         return assess(model, Vocabulary.standard(), profile, unitClasses);
     }
 
     /**
-     * Assesses every terminal unit of the model for the profile.
+     * Assesses every terminal unit of the model for one profile asked for by name: the units it applies to get it,
+     * the others are listed without a profile.
+     */
+    public static FleetCoverage assess(Model model, Vocabulary vocabulary, Profile profile, Set<String> unitClasses) {
+        return assess(model, vocabulary, List.of(profile), false, unitClasses);
+    }
+
+    /** Assesses every terminal unit of the model, each with the best fitting of the vocabulary's automatic profiles. */
+    public static FleetCoverage assess(Model model, Vocabulary vocabulary, Set<String> unitClasses) {
+        return assess(model, vocabulary, vocabulary.profiles().automatic(), true, unitClasses);
+    }
+
+    /**
+     * Assesses every terminal unit of the model, each with the best fitting profile among the candidates.
+     *
+     * <p>A profile applies to a unit when the unit is an instance of one of its tufa:appliesTo classes (subclasses
+     * and equivalent classes included; a profile without tufa:appliesTo applies to every unit). Among those that
+     * apply, a profile that declares evidence (tufa:evidenceRole, tufa:evidenceClass) fits only when at least one
+     * piece is present; the unit gets the fitting profile of highest tufa:specificity, then with the most evidence
+     * roles found, then the most evidence classes matched (the unit's own classes and those of its parts), then the
+     * first by name. A tie is noted among the unit's problems, so the model author can add the class that tells
+     * them apart.
      *
      * @param model the Brick model (not modified)
      * @param vocabulary class hierarchy the lookups reason with
-     * @param profile what to look for
+     * @param candidates the profiles to choose from
+     * @param automatic whether the candidates are the automatic ones (reported in the summary)
      * @param unitClasses IRIs of the unit classes to include (subclasses too); empty means brick:Terminal_Unit
      * @throws InputException when a terminal unit is a blank node (it cannot be named in a report)
      */
-    public static FleetCoverage assess(Model model, Vocabulary vocabulary, Profile profile, Set<String> unitClasses) {
+    public static FleetCoverage assess(Model model, Vocabulary vocabulary, List<Profile> candidates,
+            boolean automatic, Set<String> unitClasses) {
         Model all = vocabulary.unionWith(model);
         Set<String> classes = new TreeSet<>(unitClasses.isEmpty() ? Set.of(TERMINAL_UNIT) : unitClasses);
         Map<String, Set<String>> unitTypes = findUnits(all, classes);
         PointDetails details = new PointDetails(all);
         LookupRunner runner = new LookupRunner(all, unitTypes.keySet(), details);
+        List<Profile> profiles = new ArrayList<>(candidates);
+        profiles.sort(java.util.Comparator.comparing(Profile::name));
 
         // One run per distinct lookup; the map is a cache only, results are read by key.
         Map<Lookup, Map<String, LookupRunner.Hits>> results = new HashMap<>();
-        for (Role role : profile.roles()) {
-            for (Lookup lookup : role.lookups()) {
-                results.computeIfAbsent(lookup, runner::run);
+        Map<String, Role> roles = new TreeMap<>();
+        for (Profile profile : profiles) {
+            for (Role role : profile.roles()) {
+                roles.putIfAbsent(role.name(), role);
+                for (Lookup lookup : role.lookups()) {
+                    results.computeIfAbsent(lookup, runner::run);
+                }
+            }
+        }
+        Map<String, Set<String>> appliesTo = new HashMap<>();
+        Map<String, Set<String>> evidenceClosures = new HashMap<>();
+        for (Profile profile : profiles) {
+            appliesTo.put(profile.name(), Sparql.subclassClosure(all, profile.appliesTo()));
+            for (String c : profile.evidenceClasses()) {
+                evidenceClosures.computeIfAbsent(c, k -> Sparql.subclassClosure(all, List.of(k)));
             }
         }
         Map<String, String> mostSpecific = mostSpecificClasses(all, unitTypes);
         List<UnitCoverage> out = new ArrayList<>();
-        for (String unit : unitTypes.keySet()) {
-            Map<String, RoleMatch> roles = new LinkedHashMap<>();
-            for (Role role : profile.roles()) {
-                roles.put(role.name(), match(role, unit, results));
-            }
-            Map<String, Boolean> modes = new TreeMap<>();
-            for (ModeRequirement mode : profile.modes()) {
-                modes.put(mode.name(), mode.required().stream().allMatch(r -> roles.get(r).found()));
-            }
+        for (Map.Entry<String, Set<String>> entry : unitTypes.entrySet()) {
+            String unit = entry.getKey();
+            Map<String, RoleMatch> matches = new TreeMap<>();
+            roles.forEach((name, role) -> matches.put(name, match(role, unit, results)));
+            Set<String> withParts = new TreeSet<>(entry.getValue());
+            runner.partsOf(unit).forEach(part -> withParts.addAll(details.types(part)));
             List<String> problems = new ArrayList<>();
+            Optional<Profile> chosen = choose(profiles, entry.getValue(), withParts, matches, appliesTo,
+                    evidenceClosures, problems);
+            Map<String, RoleMatch> unitRoles = new LinkedHashMap<>();
+            Map<String, Boolean> modes = new TreeMap<>();
+            chosen.ifPresent(p -> {
+                p.roles().forEach(r -> unitRoles.put(r.name(), matches.get(r.name())));
+                for (ModeRequirement mode : p.modes()) {
+                    modes.put(mode.name(), mode.required().stream().allMatch(r -> r.metBy(
+                            role -> matches.get(role).found())));
+                }
+            });
             Optional<NominalAirflow> airflow = nominalAirflow(all, unit, problems);
             String label = details.label(unit);
-            out.add(new UnitCoverage(unit, label == null ? "" : label, mostSpecific.get(unit), roles, airflow, modes,
-                    problems));
+            out.add(new UnitCoverage(unit, label == null ? "" : label, mostSpecific.get(unit), chosen, unitRoles,
+                    airflow, modes, problems));
         }
-        return new FleetCoverage(profile, List.copyOf(classes), out, undeclaredBrickClasses(model, all));
+        return new FleetCoverage(profiles, automatic, List.copyOf(classes), out,
+                undeclaredBrickClasses(model, all), vocabulary.hasFullBrick());
+    }
+
+    /** The profile for one unit (see {@link #assess(Model, Vocabulary, List, boolean, Set)}), or empty. */
+    private static Optional<Profile> choose(List<Profile> profiles, Set<String> unitTypes, Set<String> withParts,
+            Map<String, RoleMatch> matches, Map<String, Set<String>> appliesTo,
+            Map<String, Set<String>> evidenceClosures, List<String> problems) {
+        Profile best = null;
+        int[] bestScore = null;
+        List<Profile> tied = new ArrayList<>();
+        for (Profile p : profiles) {
+            if (!p.appliesTo().isEmpty() && java.util.Collections.disjoint(unitTypes, appliesTo.get(p.name()))) {
+                continue;
+            }
+            int roleEvidence = (int) p.evidenceRoles().stream()
+                    .filter(r -> matches.get(r).status() != MatchStatus.MISSING).count();
+            int classEvidence = (int) p.evidenceClasses().stream()
+                    .filter(c -> !java.util.Collections.disjoint(withParts, evidenceClosures.get(c))).count();
+            boolean declaresEvidence = !p.evidenceRoles().isEmpty() || !p.evidenceClasses().isEmpty();
+            if (declaresEvidence && roleEvidence + classEvidence == 0) {
+                continue;
+            }
+            int[] score = {p.specificity(), roleEvidence, classEvidence};
+            int cmp = bestScore == null ? 1 : java.util.Arrays.compare(score, bestScore);
+            if (cmp > 0) {
+                best = p;
+                bestScore = score;
+                tied.clear();
+                tied.add(p);
+            } else if (cmp == 0) {
+                tied.add(p); // profiles come sorted by name: the first stays the choice
+            }
+        }
+        if (tied.size() > 1) {
+            problems.add("profiles " + String.join(", ", tied.stream().map(Profile::name).toList())
+                    + " fit equally well; " + best.name() + " was chosen (first by name); give the unit a class "
+                    + "that tells them apart (one of their tufa:evidenceClass)");
+        }
+        return Optional.ofNullable(best);
     }
 
     private static RoleMatch match(Role role, String unit, Map<Lookup, Map<String, LookupRunner.Hits>> results) {

@@ -42,25 +42,30 @@ public final class CoverageFiles {
     }
 
     /**
-     * One row per unit, sorted by unit IRI: unit, label, unit_class, one column per role (point IRI, empty, or
-     * {@code ambiguous}), analyzable, missing (role names, ';'-separated), one {@code <mode>_analyzable} column per
-     * mode, nominal_airflow_m3s.
+     * One row per unit, sorted by unit IRI: unit, label, unit_class, profile, unit_kind, one column per role of the
+     * profiles used (point IRI, empty, or {@code ambiguous}; empty too for a role the unit's profile does not
+     * have), analyzable, missing (the unit's unmet requirements, ';'-separated), one {@code <mode>_analyzable}
+     * column per mode of the profiles used (empty when the unit's profile has no such mode), nominal_airflow_m3s.
      */
     public static String csv(FleetCoverage coverage) {
-        List<String> header = new ArrayList<>(List.of("unit", "label", "unit_class"));
-        header.addAll(coverage.profile().roleNames());
+        List<String> roles = coverage.roleNames();
+        List<String> modes = coverage.modeNames();
+        List<String> header = new ArrayList<>(List.of("unit", "label", "unit_class", "profile", "unit_kind"));
+        header.addAll(roles);
         header.add("analyzable");
         header.add("missing");
-        coverage.profile().modes().forEach(m -> header.add(m.name() + "_analyzable"));
+        modes.forEach(m -> header.add(m + "_analyzable"));
         header.add("nominal_airflow_m3s");
         StringWriter out = new StringWriter();
         CSVFormat format = CSVFormat.DEFAULT.builder().setRecordSeparator("\n").get();
         try (CSVPrinter printer = new CSVPrinter(out, format)) {
             printer.printRecord(header);
             for (UnitCoverage u : coverage.units()) {
-                List<String> row = new ArrayList<>(List.of(u.unit(), u.label(), u.unitClass()));
-                for (RoleMatch m : u.roles().values()) {
-                    row.add(switch (m.status()) {
+                List<String> row = new ArrayList<>(List.of(u.unit(), u.label(), u.unitClass(), u.profileName(),
+                        u.unitKind()));
+                for (String role : roles) {
+                    RoleMatch m = u.roles().get(role);
+                    row.add(m == null ? "" : switch (m.status()) {
                         case FOUND -> m.point().orElseThrow().iri();
                         case AMBIGUOUS -> AMBIGUOUS;
                         case MISSING -> "";
@@ -68,7 +73,10 @@ public final class CoverageFiles {
                 }
                 row.add(Boolean.toString(u.analyzable()));
                 row.add(String.join(";", u.missing()));
-                u.modes().values().forEach(v -> row.add(Boolean.toString(v)));
+                for (String mode : modes) {
+                    Boolean v = u.modes().get(mode);
+                    row.add(v == null ? "" : v.toString());
+                }
                 row.add(u.nominalAirflow().map(a -> number(a.cubicMetresPerSecond())).orElse(""));
                 printer.printRecord(row);
             }
@@ -81,26 +89,40 @@ public final class CoverageFiles {
     /** The same content as JSON, keys in a fixed order, plus candidates of ambiguous roles and untagged hints. */
     public static String json(FleetCoverage coverage) {
         JsonObject root = new JsonObject();
-        root.addProperty("profile", coverage.profile().name());
+        root.add("profiles", strings(coverage.profiles().stream().map(Profile::name).toList()));
+        root.addProperty("profiles_chosen_automatically", coverage.automatic());
         JsonArray classes = new JsonArray();
         coverage.unitClasses().forEach(classes::add);
         root.add("unit_classes", classes);
         JsonObject summary = new JsonObject();
         summary.addProperty("units", coverage.units().size());
         summary.addProperty("analyzable", coverage.analyzableCount());
-        JsonObject modes = new JsonObject();
-        coverage.profile().modes().forEach(m -> modes.addProperty(m.name(), coverage.modeCount(m.name())));
-        summary.add("analyzable_by_mode", modes);
+        summary.addProperty("without_profile", coverage.unitsWithoutProfile().size());
+        JsonObject byProfile = new JsonObject();
+        for (Profile p : coverage.profilesUsed()) {
+            JsonObject o = new JsonObject();
+            o.addProperty("unit_kind", p.unitKind());
+            o.addProperty("units", coverage.unitsOf(p).size());
+            o.addProperty("analyzable", coverage.unitsOf(p).stream().filter(UnitCoverage::analyzable).count());
+            JsonObject modes = new JsonObject();
+            p.modes().forEach(m -> modes.addProperty(m.name(), coverage.modeCount(p, m.name())));
+            o.add("analyzable_by_mode", modes);
+            byProfile.add(p.name(), o);
+        }
+        summary.add("by_profile", byProfile);
         root.add("summary", summary);
         JsonObject undeclared = new JsonObject();
         coverage.undeclaredBrickClasses().forEach(undeclared::addProperty);
         root.add("undeclared_brick_classes", undeclared);
+        root.addProperty("full_brick_vocabulary", coverage.fullBrick());
         JsonArray units = new JsonArray();
         for (UnitCoverage u : coverage.units()) {
             JsonObject o = new JsonObject();
             o.addProperty("unit", u.unit());
             o.addProperty("label", u.label());
             o.addProperty("unit_class", u.unitClass());
+            o.add("profile", u.profile().isEmpty() ? JsonNull.INSTANCE : new JsonPrimitive(u.profileName()));
+            o.addProperty("unit_kind", u.unitKind());
             o.addProperty("analyzable", u.analyzable());
             JsonObject um = new JsonObject();
             u.modes().forEach(um::addProperty);

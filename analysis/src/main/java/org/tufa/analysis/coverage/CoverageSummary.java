@@ -7,8 +7,17 @@ import java.util.Locale;
 import java.util.Map;
 import org.apache.jena.shared.PrefixMapping;
 
-/** The console view of a fleet's coverage: counts by class, analysable share, missing roles, blocked units. */
+/**
+ * The console view of a fleet's coverage: units per class and profile, per profile the analysable share by mode
+ * and the most common unmet requirements (in that profile's words), then the units that cannot be analysed.
+ */
 public final class CoverageSummary {
+    /**
+     * The advice when the loaded vocabulary is not the whole Brick ontology; tufa bundles all of Brick 1.4.4, so
+     * it shows only for a vocabulary assembled without it.
+     */
+    public static final String FULL_BRICK_HINT = "pass the full Brick file with --vocabulary";
+
     private CoverageSummary() {
     }
 
@@ -21,44 +30,65 @@ public final class CoverageSummary {
     public static List<String> lines(FleetCoverage coverage, PrefixMapping prefixes, int maxUnits) {
         List<String> out = new ArrayList<>();
         int n = coverage.units().size();
-        out.add("Profile " + coverage.profile().name() + ", unit classes "
-                + String.join(", ", coverage.unitClasses().stream().map(prefixes::shortForm).toList()));
+        out.add("Unit classes " + String.join(", ", coverage.unitClasses().stream().map(prefixes::shortForm).toList())
+                + "; " + (coverage.automatic() ? "each unit gets the best fitting of the profiles "
+                : "profiles asked for: ") + String.join(", ", coverage.profiles().stream().map(Profile::name).toList()));
         if (!coverage.undeclaredBrickClasses().isEmpty()) {
             List<String> named = new ArrayList<>();
             coverage.undeclaredBrickClasses().forEach((c, k) -> named.add(prefixes.shortForm(c) + " (" + k + ")"));
-            out.add("Classes the vocabulary does not declare (their instances are not recognised; pass the full Brick "
-                    + "file with --vocabulary): " + String.join(", ", named.subList(0, Math.min(named.size(), maxUnits)))
-                    + (named.size() > maxUnits ? " ... and " + (named.size() - maxUnits) + " more" : ""));
+            String list = String.join(", ", named.subList(0, Math.min(named.size(), maxUnits)))
+                    + (named.size() > maxUnits ? " ... and " + (named.size() - maxUnits) + " more" : "");
+            out.add(coverage.fullBrick()
+                    ? "Brick-namespace classes the loaded Brick vocabulary does not define (names of older Brick "
+                            + "versions, local or misspelt names; their instances are not recognised): " + list
+                    : "Classes the vocabulary does not declare (their instances are not recognised; "
+                            + FULL_BRICK_HINT + "): " + list);
         }
         if (n == 0) {
             out.add("No terminal units found.");
             return out;
         }
         out.add("Terminal units found: " + n);
-        Map<String, Integer> byClass = coverage.unitsByClass();
+        Map<String, Map<String, Integer>> byClass = coverage.unitsByClassAndProfile();
         int width = byClass.keySet().stream().mapToInt(c -> prefixes.shortForm(c).length()).max().orElse(10);
-        byClass.forEach((c, k) -> out.add(String.format(Locale.ROOT, "  %-" + width + "s %6d", prefixes.shortForm(c), k)));
+        byClass.forEach((c, profiles) -> {
+            int k = profiles.values().stream().mapToInt(Integer::intValue).sum();
+            List<String> parts = new ArrayList<>();
+            profiles.forEach((p, m) -> parts.add((p.isEmpty() ? "no profile" : p) + " " + m));
+            out.add(String.format(Locale.ROOT, "  %-" + width + "s %6d  %s", prefixes.shortForm(c), k,
+                    String.join(", ", parts)));
+        });
         long ok = coverage.analyzableCount();
         out.add(String.format(Locale.ROOT, "Analysable (at least one mode): %d of %d (%s)", ok, n, percent(ok, n)));
-        for (ModeRequirement m : coverage.profile().modes()) {
-            long k = coverage.modeCount(m.name());
-            out.add(String.format(Locale.ROOT, "  %-10s %6d (%s)  needs %s", m.name(), k, percent(k, n),
-                    String.join(", ", m.required())));
-        }
-        Map<String, Integer> unavailable = coverage.unavailableRoleCounts();
-        if (!unavailable.isEmpty()) {
-            out.add("Roles not available (missing or ambiguous), most common first:");
-            int rw = unavailable.keySet().stream().mapToInt(String::length).max().orElse(10);
-            unavailable.entrySet().stream()
-                    .sorted(Map.Entry.<String, Integer>comparingByValue(Comparator.reverseOrder())
-                            .thenComparing(Map.Entry.comparingByKey()))
-                    .forEach(e -> out.add(String.format(Locale.ROOT, "  %-" + rw + "s %6d %s (%s)", e.getKey(),
-                            e.getValue(), e.getValue() == 1 ? "unit " : "units", percent(e.getValue(), n))));
+        for (Profile p : coverage.profilesUsed()) {
+            List<UnitCoverage> units = coverage.unitsOf(p);
+            long pk = units.stream().filter(UnitCoverage::analyzable).count();
+            out.add(String.format(Locale.ROOT, "Profile %s: %d unit%s, %d analysable (%s)", p.name(), units.size(),
+                    units.size() == 1 ? "" : "s", pk, percent(pk, units.size())));
+            int mw = p.modes().stream().mapToInt(m -> m.name().length()).max().orElse(8);
+            for (ModeRequirement m : p.modes()) {
+                long k = coverage.modeCount(p, m.name());
+                out.add(String.format(Locale.ROOT, "  %-" + mw + "s %6d (%s)  needs %s", m.name(), k,
+                        percent(k, units.size()), String.join(", ", m.required().stream()
+                                .map(Requirement::describe).toList())));
+            }
+            Map<String, Integer> unmet = coverage.unmetCounts(p);
+            if (!unmet.isEmpty()) {
+                out.add("  Not available (missing or ambiguous), most common first:");
+                int rw = unmet.keySet().stream().mapToInt(String::length).max().orElse(10);
+                unmet.entrySet().stream()
+                        .sorted(Map.Entry.<String, Integer>comparingByValue(Comparator.reverseOrder())
+                                .thenComparing(Map.Entry.comparingByKey()))
+                        .forEach(e -> out.add(String.format(Locale.ROOT, "    %-" + rw + "s %6d %s (%s)", e.getKey(),
+                                e.getValue(), e.getValue() == 1 ? "unit " : "units", percent(e.getValue(),
+                                        units.size()))));
+            }
         }
         List<UnitCoverage> blocked = coverage.units().stream().filter(u -> !u.analyzable()).toList();
         if (!blocked.isEmpty()) {
             out.add("Units that cannot be analysed:");
-            blocked.stream().limit(maxUnits).forEach(u -> out.add("  " + name(u, prefixes) + ": " + reason(coverage, u)));
+            blocked.stream().limit(maxUnits).forEach(u -> out.add("  " + name(u, prefixes) + ": "
+                    + reason(coverage, u, prefixes)));
             if (blocked.size() > maxUnits) {
                 out.add("  ... and " + (blocked.size() - maxUnits) + " more");
             }
@@ -75,23 +105,49 @@ public final class CoverageSummary {
         return out;
     }
 
-    /** Why a unit cannot be analysed: per mode, its unavailable required roles. */
+    /** Why a unit cannot be analysed, in its profile's words: per mode, its unmet requirements. */
     public static String reason(FleetCoverage coverage, UnitCoverage u) {
-        List<String> parts = new ArrayList<>();
-        for (ModeRequirement m : coverage.profile().modes()) {
+        return reason(coverage, u, org.apache.jena.shared.PrefixMapping.Standard);
+    }
+
+    /** As {@link #reason(FleetCoverage, UnitCoverage)}, with IRIs shortened by the prefixes. */
+    public static String reason(FleetCoverage coverage, UnitCoverage u, PrefixMapping prefixes) {
+        if (u.profile().isEmpty()) {
+            return (coverage.automatic() ? "no requirement profile applies to " : "none of the profiles asked for ("
+                    + String.join(", ", coverage.profiles().stream().map(Profile::name).toList()) + ") applies to ")
+                    + prefixes.shortForm(u.unitClass()) + "; add a profile for it in a Turtle file passed with "
+                    + "--vocabulary (see DEVELOPERS.md)";
+        }
+        // Modes that lack the same things are named together: "cooling, deadband lack airflow, damper".
+        Map<String, List<String>> modesByLack = new java.util.LinkedHashMap<>();
+        for (ModeRequirement m : u.profile().get().modes()) {
             List<String> lacking = new ArrayList<>();
-            for (String r : m.required()) {
-                RoleMatch match = u.roles().get(r);
-                if (match.status() == MatchStatus.MISSING) {
-                    lacking.add(r + (match.untagged().isEmpty() ? "" : " (" + match.untagged().size()
-                            + " untagged candidate(s): add a tag or a valve part)"));
-                } else if (match.status() == MatchStatus.AMBIGUOUS) {
-                    lacking.add(r + " (ambiguous: " + match.candidates().size() + " points on the " + match.place().label() + ")");
+            for (Requirement r : m.required()) {
+                if (!u.met(r)) {
+                    lacking.add(lacking(u, r));
                 }
             }
-            parts.add(m.name() + " lacks " + String.join(", ", lacking));
+            modesByLack.computeIfAbsent(String.join(", ", lacking), k -> new ArrayList<>()).add(m.name());
         }
+        List<String> parts = new ArrayList<>();
+        modesByLack.forEach((lack, modes) -> parts.add(String.join(", ", modes) + (modes.size() == 1 ? " lacks "
+                : " lack ") + lack));
         return String.join("; ", parts);
+    }
+
+    /** An unmet requirement in words, with the ambiguous candidates or untagged hints that explain it. */
+    private static String lacking(UnitCoverage u, Requirement r) {
+        List<String> notes = new ArrayList<>();
+        for (String role : r.roleNames()) {
+            RoleMatch match = u.roles().get(role);
+            String prefix = r.isChoice() ? role + " " : "";
+            if (match.status() == MatchStatus.AMBIGUOUS) {
+                notes.add(prefix + "ambiguous: " + match.candidates().size() + " points on the " + match.place().label());
+            } else if (match.status() == MatchStatus.MISSING && !match.untagged().isEmpty()) {
+                notes.add(prefix + match.untagged().size() + " untagged candidate(s): add a tag or a part");
+            }
+        }
+        return notes.isEmpty() ? r.name() : r.name() + " (" + String.join("; ", notes) + ")";
     }
 
     private static String name(UnitCoverage u, PrefixMapping prefixes) {
@@ -99,6 +155,6 @@ public final class CoverageSummary {
     }
 
     private static String percent(long k, long n) {
-        return String.format(Locale.ROOT, "%.1f %%", 100.0 * k / n);
+        return n == 0 ? "-" : String.format(Locale.ROOT, "%.1f %%", 100.0 * k / n);
     }
 }

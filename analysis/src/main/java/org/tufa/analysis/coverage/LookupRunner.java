@@ -224,7 +224,8 @@ final class LookupRunner {
         });
     }
 
-    private Set<String> partsOf(String unit) {
+    /** The parts of a unit, transitively; cached. */
+    Set<String> partsOf(String unit) {
         return partsCache.computeIfAbsent(unit, this::parts);
     }
 

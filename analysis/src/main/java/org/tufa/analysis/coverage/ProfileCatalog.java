@@ -28,7 +28,7 @@ import org.tufa.vocabulary.Namespaces;
  * jena-shacl library. The terms are documented in tufa.ttl.
  */
 public final class ProfileCatalog {
-    /** The profile used when none is named. */
+    /** The fan coil profile the automatic choice gives every fan coil unit (benchmarks and tests name it). */
     public static final String DEFAULT_PROFILE = "fcu-modes";
 
     private final Map<String, Role> roles;
@@ -39,7 +39,7 @@ public final class ProfileCatalog {
         this.profiles = profiles;
     }
 
-    /** Reads every tufa:Role and tufa:Profile in the model. */
+    /** Reads every tufa:Role, tufa:RoleChoice and tufa:Profile in the model. */
     public static ProfileCatalog from(Model vocabulary) {
         Map<String, Role> rolesByIri = new TreeMap<>();
         Map<String, Role> rolesByName = new TreeMap<>();
@@ -52,9 +52,20 @@ public final class ProfileCatalog {
             }
             rolesByIri.put(role.iri(), role);
         }
+        Map<String, Choice> choicesByIri = new TreeMap<>();
+        Map<String, String> choiceNames = new TreeMap<>();
+        for (Resource c : vocabulary.listSubjectsWithProperty(RDF.type, tufa(vocabulary, "RoleChoice")).toList()) {
+            Choice choice = readChoice(vocabulary, c, rolesByIri);
+            String name = choice.requirement().name();
+            if (rolesByName.containsKey(name) || choiceNames.put(name, choice.iri()) != null) {
+                throw new InputException("vocabulary: choice name '" + name + "' of " + describe(c)
+                        + " is already a role or choice name; give each tufa:RoleChoice its own tufa:choiceName");
+            }
+            choicesByIri.put(choice.iri(), choice);
+        }
         Map<String, Profile> profiles = new TreeMap<>();
         for (Resource p : vocabulary.listSubjectsWithProperty(RDF.type, tufa(vocabulary, "Profile")).toList()) {
-            Profile profile = readProfile(vocabulary, p, rolesByIri);
+            Profile profile = readProfile(vocabulary, p, rolesByIri, choicesByIri);
             if (profiles.put(profile.name(), profile) != null) {
                 throw new InputException("vocabulary: two profiles are named '" + profile.name()
                         + "'; give each tufa:Profile its own tufa:profileName");
@@ -77,6 +88,23 @@ public final class ProfileCatalog {
     /** Profile names, sorted. */
     public List<String> names() {
         return List.copyOf(profiles.keySet());
+    }
+
+    /**
+     * The profiles chosen from automatically (those with tufa:appliesTo and without tufa:onRequest), sorted by
+     * name: each unit gets the best fitting one of those that apply to its class.
+     */
+    public List<Profile> automatic() {
+        return profiles.values().stream().filter(Profile::automatic).toList();
+    }
+
+    /** The named profiles, in the order given; an unknown name is an error listing the known ones. */
+    public List<Profile> profiles(List<String> names) {
+        List<Profile> out = new ArrayList<>();
+        for (String n : new java.util.TreeSet<>(names)) {
+            out.add(profile(n));
+        }
+        return out;
     }
 
     /** Roles by name, sorted by name. */
@@ -121,7 +149,11 @@ public final class ProfileCatalog {
                     + "tufa:OnZone, tufa:Upstream, tufa:BuildingWide");
         }
         Place place = Place.fromIri(places.get(0));
-        List<String> pointClasses = iris(m, l, "pointClass");
+        // Legacy names (classes older Brick versions defined) qualify like the others; they are kept apart in
+        // tufa.ttl only so that a test can check every other name against the current Brick file.
+        List<String> pointClasses = new ArrayList<>(iris(m, l, "pointClass"));
+        pointClasses.addAll(iris(m, l, "legacyPointClass"));
+        pointClasses.sort(null);
         if (pointClasses.isEmpty()) {
             throw new InputException(where + ": needs at least one tufa:pointClass");
         }
@@ -133,11 +165,79 @@ public final class ProfileCatalog {
                 iris(m, l, "preferredHostClass"));
     }
 
-    private static Profile readProfile(Model m, Resource p, Map<String, Role> rolesByIri) {
+    /** A tufa:RoleChoice read from the vocabulary. */
+    private record Choice(String iri, Requirement requirement, List<Role> roles) {
+    }
+
+    private static Choice readChoice(Model m, Resource c, Map<String, Role> rolesByIri) {
+        String where = "vocabulary: choice " + describe(c);
+        String name = requiredString(m, c, "choiceName", where);
+        if (!name.matches("[a-z][a-z0-9_]*")) {
+            throw new InputException(where + ": tufa:choiceName '" + name
+                    + "' must be lower case letters, digits and underscores");
+        }
+        Statement os = c.getProperty(tufa(m, "options"));
+        if (os == null || !os.getObject().canAs(RDFList.class)) {
+            throw new InputException(where + " has no tufa:options list; add tufa:options ( tufa:RoleA ( tufa:RoleB "
+                    + "tufa:RoleC ) ), each item a role or a list of roles that together stand in");
+        }
+        List<List<String>> options = new ArrayList<>();
+        Set<Role> roles = new LinkedHashSet<>();
+        for (RDFNode item : os.getObject().as(RDFList.class).asJavaList()) {
+            List<RDFNode> members = item.canAs(RDFList.class) && !item.isURIResource()
+                    ? item.as(RDFList.class).asJavaList() : List.of(item);
+            List<String> option = new ArrayList<>();
+            for (RDFNode member : members) {
+                Role role = member.isURIResource() ? rolesByIri.get(member.asResource().getURI()) : null;
+                if (role == null) {
+                    throw new InputException(where + ": option " + (options.size() + 1) + " names " + member
+                            + ", which is not a tufa:Role in the loaded vocabulary");
+                }
+                option.add(role.name());
+                roles.add(role);
+            }
+            if (option.isEmpty()) {
+                throw new InputException(where + ": option " + (options.size() + 1) + " is an empty list");
+            }
+            options.add(option);
+        }
+        if (options.size() < 2) {
+            throw new InputException(where + ": a choice needs at least two options");
+        }
+        return new Choice(c.getURI(), new Requirement(name, options), List.copyOf(roles));
+    }
+
+    private static Profile readProfile(Model m, Resource p, Map<String, Role> rolesByIri,
+            Map<String, Choice> choicesByIri) {
         String where = "vocabulary: profile " + describe(p);
         String name = requiredString(m, p, "profileName", where);
         Statement comment = p.getProperty(RDFS.comment);
         String description = comment != null && comment.getObject().isLiteral() ? comment.getString() : "";
+        List<String> kinds = p.listProperties(tufa(m, "unitKind")).toList().stream()
+                .map(s -> s.getObject().isLiteral() ? s.getString().strip() : "").toList();
+        if (kinds.size() > 1 || kinds.stream().anyMatch(k -> !k.matches("[a-z][a-z0-9_]*"))) {
+            throw new InputException(where + ": at most one tufa:unitKind, a lower-case name such as \""
+                    + Profile.FAN_COIL + "\" or \"" + Profile.VAV + "\"");
+        }
+        String kind = kinds.isEmpty() ? Profile.FAN_COIL : kinds.get(0);
+        List<Statement> requestOnly = p.listProperties(tufa(m, "onRequest")).toList();
+        boolean onRequest = false;
+        if (!requestOnly.isEmpty()) {
+            if (requestOnly.size() > 1 || !requestOnly.get(0).getObject().isLiteral()
+                    || !(requestOnly.get(0).getObject().asLiteral().getValue() instanceof Boolean)) {
+                throw new InputException(where + ": tufa:onRequest must be given once, as true or false");
+            }
+            onRequest = requestOnly.get(0).getBoolean();
+        }
+        List<Statement> specificities = p.listProperties(tufa(m, "specificity")).toList();
+        int specificity = 0;
+        if (!specificities.isEmpty()) {
+            if (specificities.size() > 1 || !specificities.get(0).getObject().isLiteral()
+                    || !(specificities.get(0).getObject().asLiteral().getValue() instanceof Number)) {
+                throw new InputException(where + ": tufa:specificity must be given once, as an integer");
+            }
+            specificity = specificities.get(0).getInt();
+        }
         List<ModeRequirement> modes = new ArrayList<>();
         Set<Role> used = new LinkedHashSet<>();
         for (Statement s : p.listProperties(tufa(m, "mode")).toList()) {
@@ -146,15 +246,15 @@ public final class ProfileCatalog {
             }
             Resource mode = s.getResource();
             String modeName = requiredString(m, mode, "modeName", where + ", a mode");
-            List<Role> required = roles(m, mode, "requires", rolesByIri, where + ", mode " + modeName);
-            List<Role> optional = roles(m, mode, "uses", rolesByIri, where + ", mode " + modeName);
+            List<Requirement> required = requirements(m, mode, "requires", rolesByIri, choicesByIri, used,
+                    where + ", mode " + modeName);
+            List<Requirement> optional = requirements(m, mode, "uses", rolesByIri, choicesByIri, used,
+                    where + ", mode " + modeName);
             if (required.isEmpty()) {
                 throw new InputException(where + ", mode " + modeName + ": needs at least one tufa:requires role");
             }
-            used.addAll(required);
-            used.addAll(optional);
-            modes.add(new ModeRequirement(modeName, required.stream().map(Role::name).toList(),
-                    optional.stream().filter(r -> !required.contains(r)).map(Role::name).toList()));
+            modes.add(new ModeRequirement(modeName, required,
+                    optional.stream().filter(r -> !required.contains(r)).toList()));
         }
         if (modes.isEmpty()) {
             throw new InputException(where + ": needs at least one tufa:mode");
@@ -165,9 +265,45 @@ public final class ProfileCatalog {
                 throw new InputException(where + ": two modes are named '" + modes.get(i).name() + "'");
             }
         }
+        List<Role> evidence = roles(m, p, "evidenceRole", rolesByIri, where);
+        used.addAll(evidence);
         List<Role> roles = new ArrayList<>(used);
         roles.sort(ROLE_ORDER);
-        return new Profile(name, p.getURI(), description, modes, roles);
+        return new Profile(name, p.getURI(), description, kind, iris(m, p, "appliesTo"), onRequest, specificity,
+                evidence.stream().map(Role::name).toList(), iris(m, p, "evidenceClass"), modes, roles);
+    }
+
+    /** The requirements a mode names with the property: roles or choices, in column order of their first role. */
+    private static List<Requirement> requirements(Model m, Resource mode, String property,
+            Map<String, Role> rolesByIri, Map<String, Choice> choicesByIri, Set<Role> used, String where) {
+        List<Requirement> out = new ArrayList<>();
+        List<Integer> order = new ArrayList<>();
+        for (String iri : iris(m, mode, property)) {
+            Role role = rolesByIri.get(iri);
+            Choice choice = choicesByIri.get(iri);
+            if (role != null) {
+                out.add(Requirement.of(role.name()));
+                order.add(role.columnOrder());
+                used.add(role);
+            } else if (choice != null) {
+                out.add(choice.requirement());
+                order.add(choice.roles().stream().mapToInt(Role::columnOrder).min().orElse(1000));
+                used.addAll(choice.roles());
+            } else {
+                throw new InputException(where + ": <" + iri + "> is not a tufa:Role or tufa:RoleChoice in the "
+                        + "loaded vocabulary");
+            }
+        }
+        Integer[] idx = new Integer[out.size()];
+        for (int i = 0; i < idx.length; i++) {
+            idx[i] = i;
+        }
+        java.util.Arrays.sort(idx, Comparator.<Integer>comparingInt(order::get).thenComparing(i -> out.get(i).name()));
+        List<Requirement> sorted = new ArrayList<>();
+        for (Integer i : idx) {
+            sorted.add(out.get(i));
+        }
+        return sorted;
     }
 
     private static final Comparator<Role> ROLE_ORDER = Comparator.comparingInt(Role::columnOrder)

@@ -14,14 +14,20 @@ public final class UnitClasses {
     private UnitClasses() {
     }
 
+    /** As {@link #resolve(List, Model, PrefixMapping, boolean)} without the Brick ontology loaded (the error then suggests it). */
+    public static Set<String> resolve(List<String> names, Model all, PrefixMapping prefixes) {
+        return resolve(names, all, prefixes, false);
+    }
+
     /**
      * Resolves each name: {@code brick:Fan_Coil_Unit}, a bare Brick name {@code Fan_Coil_Unit}, {@code <iri>} or a
      * full IRI. The class must be brick:Terminal_Unit or one of its subclasses in the vocabulary or the model.
      *
      * @param all vocabulary and model together
+     * @param fullBrick whether the full Brick file is loaded (if not, the error suggests passing it)
      * @throws InputException for an unknown class, naming the nearest known terminal-unit classes
      */
-    public static Set<String> resolve(List<String> names, Model all, PrefixMapping prefixes) {
+    public static Set<String> resolve(List<String> names, Model all, PrefixMapping prefixes, boolean fullBrick) {
         Set<String> known = Sparql.subclassClosure(all, List.of(Coverage.TERMINAL_UNIT));
         Set<String> out = new TreeSet<>();
         for (String name : names) {
@@ -29,7 +35,8 @@ public final class UnitClasses {
             if (iri == null || !known.contains(iri)) {
                 throw new InputException("--unit-class " + name + ": not a terminal-unit class in the loaded vocabulary"
                         + " or model; nearest: " + String.join(", ", nearest(name, known, prefixes))
-                        + " (for classes outside tufa's Brick subset pass the full Brick file with --vocabulary)");
+                        + (fullBrick ? "" : " (for classes the loaded vocabulary lacks "
+                                + CoverageSummary.FULL_BRICK_HINT + ")"));
             }
             out.add(iri);
         }

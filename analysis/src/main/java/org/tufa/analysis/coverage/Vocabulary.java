@@ -4,22 +4,38 @@ import java.nio.file.Path;
 import java.util.List;
 import org.apache.jena.rdf.model.Model;
 import org.apache.jena.rdf.model.ModelFactory;
+import org.apache.jena.graph.GraphUtil;
+import org.tufa.vocabulary.BrickGraph;
+import org.tufa.vocabulary.BrickVocabulary;
 import org.tufa.vocabulary.Namespaces;
 
 /**
- * The class hierarchy and tufa terms the coverage and query stages reason with: tufa's Brick subset, tufa.ttl, and
- * any files the user adds (the full Brick file, their own roles and profiles).
+ * The class hierarchy and tufa terms the coverage and query stages reason with: the Brick vocabulary tufa ships
+ * (Brick 1.4.4, {@link BrickGraph}), tufa.ttl, and any files the user adds (another Brick release, their own roles
+ * and profiles).
  */
 public final class Vocabulary {
     private final Model model;
     private final ProfileCatalog profiles;
+    private final boolean fullBrick;
 
     private Vocabulary(Model model) {
         this.model = model;
         this.profiles = ProfileCatalog.from(model);
+        // The published Brick file declares its ontology (https://brickschema.org/schema/1.4/Brick a owl:Ontology),
+        // and so does the RDF view of the Brick tufa bundles (BrickGraph): the whole ontology is there.
+        this.fullBrick = model.listSubjectsWithProperty(org.apache.jena.vocabulary.RDF.type,
+                org.apache.jena.vocabulary.OWL.Ontology).toList().stream()
+                .anyMatch(o -> o.isURIResource() && o.getURI().startsWith("https://brickschema.org/schema/1.")
+                        && o.getURI().endsWith("/Brick"));
     }
 
-    /** The shipped vocabulary: Brick subset plus tufa.ttl. */
+    /** True when the vocabulary holds the whole Brick ontology (always, with the bundled Brick 1.4.4). */
+    public boolean hasFullBrick() {
+        return fullBrick;
+    }
+
+    /** The shipped vocabulary: Brick plus tufa.ttl. */
     public static Vocabulary standard() {
         return load(List.of());
     }
@@ -32,7 +48,7 @@ public final class Vocabulary {
      */
     public static Vocabulary load(List<Path> extraFiles) {
         Model model = ModelFactory.createDefaultModel();
-        model.add(ModelLoader.loadResource(Namespaces.BRICK_SUBSET_RESOURCE));
+        GraphUtil.addInto(model.getGraph(), BrickGraph.of(BrickVocabulary.bundled()));
         model.add(ModelLoader.loadResource(Namespaces.TUFA_TERMS_RESOURCE));
         for (Path file : extraFiles) {
             model.add(ModelLoader.load(file));

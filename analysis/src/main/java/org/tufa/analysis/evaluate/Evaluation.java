@@ -23,9 +23,11 @@ import java.util.TreeSet;
  * <li>false flags: the share of analysable hours flagged on healthy units (analysed units without any episode).
  * </li>
  * </ul>
- * Episodes on units the analysis skipped or failed (coverage found no discharge sensor, say) are counted apart
- * as not analysed: no analysis can see them, and the coverage report already names those units and why. The
- * detection goal counts the analysed episodes; the table shows the others beside them.
+ * Episodes on units the analysis skipped or failed (coverage found no discharge sensor, say, or there is no
+ * detection for the unit's kind yet) are counted apart as not analysed: no analysis can see them, and the fleet
+ * file says why. The detection goal counts the analysed episodes; the table shows the others beside them. When the
+ * unit kinds are known, the episodes are also totalled per kind ({@code all_<kind>_faults}), since each kind of
+ * unit has its own detection and its own targets.
  */
 public final class Evaluation {
     /** Goal: share of analysable fault hours flagged. */
@@ -52,9 +54,17 @@ public final class Evaluation {
         }
     }
 
-    /** The result: per-episode scores (truth order), per-fault groups (sorted by name), all faults, healthy units. */
+    /**
+     * The result: per-episode scores (truth order), per-fault groups (sorted by name), all faults, healthy units,
+     * and the faults per unit kind (sorted by kind; empty when the kinds are unknown or only one kind has episodes).
+     */
     public record Result(double minHours, List<EpisodeScore> episodes, List<GroupScore> byFault, GroupScore allFaults,
-            GroupScore healthy) {
+            GroupScore healthy, List<GroupScore> byKind) {
+        public Result {
+            byFault = List.copyOf(byFault);
+            byKind = List.copyOf(byKind);
+        }
+
         public boolean allDetected() {
             return allFaults.detected() == allFaults.episodes() - allFaults.notAnalysed();
         }
@@ -137,7 +147,18 @@ public final class Evaluation {
             }
         }
         GroupScore healthy = new GroupScore("healthy_units", healthyUnits, 0, 0, 0, analysableHours, flaggedHours);
-        return new Result(minHours, List.copyOf(scores), List.copyOf(groups), all, healthy);
+        Map<String, List<EpisodeScore>> byKind = new TreeMap<>();
+        for (EpisodeScore s : scores) {
+            String kind = input.unitKinds().get(s.episode().unit());
+            if (kind != null && !kind.isEmpty()) {
+                byKind.computeIfAbsent(kind, k -> new ArrayList<>()).add(s);
+            }
+        }
+        List<GroupScore> kinds = new ArrayList<>();
+        if (byKind.size() > 1) {
+            byKind.forEach((kind, list) -> kinds.add(group("all_" + kind + "_faults", list)));
+        }
+        return new Result(minHours, List.copyOf(scores), List.copyOf(groups), all, healthy, kinds);
     }
 
     private static GroupScore group(String scope, List<EpisodeScore> list) {

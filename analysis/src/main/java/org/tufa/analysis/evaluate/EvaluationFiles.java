@@ -129,7 +129,24 @@ public final class EvaluationFiles {
             }
             truth.add(new TruthEpisode(unit, r.get("fault"), start, end, severity));
         });
-        return new EvaluationInput(List.copyOf(fleet), findings, samples, List.copyOf(truth));
+        // The unit kinds, when the analysis wrote the coverage file beside fleet.csv (tufa analyze does).
+        Map<String, String> kinds = new TreeMap<>();
+        Path coverageFile = findingsDir.resolve("coverage.csv");
+        if (Files.isRegularFile(coverageFile) && hasColumn(coverageFile, "unit_kind")) {
+            forEachRecord(coverageFile, List.of("unit", "unit_kind"), (r, line) -> kinds.put(r.get("unit"),
+                    r.get("unit_kind")));
+        }
+        return new EvaluationInput(List.copyOf(fleet), findings, samples, List.copyOf(truth), kinds);
+    }
+
+    /** Whether the CSV file's header names the column (coverage files of older versions have no unit_kind). */
+    private static boolean hasColumn(Path file, String column) {
+        try (java.io.BufferedReader r = Files.newBufferedReader(file, StandardCharsets.UTF_8)) {
+            String header = r.readLine();
+            return header != null && java.util.Arrays.asList(header.split(",", -1)).contains(column);
+        } catch (IOException e) {
+            throw InputException.in(file, "cannot read: " + e.getMessage());
+        }
     }
 
     private interface RecordHandler {

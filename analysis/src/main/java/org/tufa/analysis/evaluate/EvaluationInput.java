@@ -4,12 +4,20 @@ import java.util.List;
 import java.util.Map;
 
 /**
- * Everything evaluation reads: the fleet (in file order), findings per unit, samples per analysed unit and the
- * ground truth. Maps are sorted (TreeMap) so nothing depends on hash order.
+ * Everything evaluation reads: the fleet (in file order), findings per unit, samples per analysed unit, the
+ * ground truth, and the kind of each unit (fan coil, VAV, ... as the coverage file gives it; empty when the
+ * analysis folder has no coverage.csv). Maps are sorted (TreeMap) so nothing depends on hash order.
  */
 public record EvaluationInput(
         List<FleetUnit> fleet,
         Map<String, List<FlaggedInterval>> findingsByUnit,
         Map<String, UnitSamples> samplesByUnit,
-        List<TruthEpisode> truth) {
+        List<TruthEpisode> truth,
+        Map<String, String> unitKinds) {
+
+    /** Input without unit kinds: one group of faults. */
+    public EvaluationInput(List<FleetUnit> fleet, Map<String, List<FlaggedInterval>> findingsByUnit,
+            Map<String, UnitSamples> samplesByUnit, List<TruthEpisode> truth) {
+        this(fleet, findingsByUnit, samplesByUnit, truth, Map.of());
+    }
 }

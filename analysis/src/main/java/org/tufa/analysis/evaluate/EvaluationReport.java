@@ -21,21 +21,22 @@ public final class EvaluationReport {
     /** The table printed by {@code tufa evaluate}, goals beside the numbers. */
     public static List<String> table(Evaluation.Result r) {
         List<String> lines = new ArrayList<>();
-        lines.add(String.format(Locale.ROOT, "%-24s %6s %9s %11s %10s %8s", "fault", "units", "detected*",
+        lines.add(String.format(Locale.ROOT, "%-28s %6s %9s %11s %10s %8s", "fault", "units", "detected*",
                 "analysable_h", "flagged_h", "flagged"));
         for (Evaluation.GroupScore g : r.byFault()) {
             lines.add(row(g));
         }
         lines.add(row(r.allFaults()));
+        r.byKind().forEach(g -> lines.add(row(g)));
         Evaluation.GroupScore h = r.healthy();
-        lines.add(String.format(Locale.ROOT, "%-24s %6d %9s %11.1f %10.1f %8s", h.scope(), h.units(), "-",
+        lines.add(String.format(Locale.ROOT, "%-28s %6d %9s %11.1f %10.1f %8s", h.scope(), h.units(), "-",
                 h.analysableHours(), h.flaggedHours(), percent(h.flaggedShare())));
         lines.add("* detected / episodes on analysed units (+ episodes on units that could not be analysed)");
         lines.add(String.format(Locale.ROOT, "goal: every injected episode detected (>= %s h flagged): %d/%d %s%s",
                 number(r.minHours()), r.allFaults().detected(),
                 r.allFaults().episodes() - r.allFaults().notAnalysed(), met(r.allDetected()),
                 r.allFaults().notAnalysed() == 0 ? "" : "; " + r.allFaults().notAnalysed()
-                        + " more on units the coverage check excluded (not analysable)"));
+                        + " more on units not analysed (coverage excluded them, or no detection for their kind yet)"));
         lines.add(String.format(Locale.ROOT, "goal: >= 70 %% of analysable fault hours flagged: %s %s",
                 percent(r.allFaults().flaggedShare()), met(r.flaggedShareMet())));
         lines.add(String.format(Locale.ROOT, "goal: < 2 %% of healthy-unit hours flagged: %s %s",
@@ -44,7 +45,7 @@ public final class EvaluationReport {
     }
 
     private static String row(Evaluation.GroupScore g) {
-        return String.format(Locale.ROOT, "%-24s %6d %9s %11.1f %10.1f %8s", g.scope(), g.units(),
+        return String.format(Locale.ROOT, "%-28s %6d %9s %11.1f %10.1f %8s", g.scope(), g.units(),
                 g.detected() + "/" + (g.episodes() - g.notAnalysed()) + (g.notAnalysed() == 0 ? "" : " +" + g.notAnalysed()),
                 g.analysableHours(), g.flaggedHours(), percent(g.flaggedShare()));
     }
@@ -63,8 +64,8 @@ public final class EvaluationReport {
 
     /**
      * {@code evaluation.csv}: {@code scope,units,episodes,not_analysed,detected,analysable_hours,flagged_hours,
-     * flagged_share,goal,goal_met}; one row per fault type, then all_faults, then healthy_units. The share is empty when there
-     * are no analysable hours.
+     * flagged_share,goal,goal_met}; one row per fault type, then all_faults, then all_<kind>_faults per unit kind
+     * (when the fleet has several), then healthy_units. The share is empty when there are no analysable hours.
      */
     public static void writeSummary(Path file, Evaluation.Result r) {
         StringBuilder out = new StringBuilder(
@@ -76,6 +77,10 @@ public final class EvaluationReport {
         }
         summaryRow(out, r.allFaults(), "all episodes detected; flagged share >= 0.70",
                 r.allDetected() && r.flaggedShareMet());
+        for (Evaluation.GroupScore g : r.byKind()) {
+            summaryRow(out, g, "all episodes detected; flagged share >= 0.70", g.detected() == g.episodes()
+                    - g.notAnalysed() && g.flaggedShare() >= Evaluation.GOAL_FLAGGED_SHARE);
+        }
         summaryRow(out, r.healthy(), "flagged share < 0.02", r.falseShareMet());
         write(file, out);
     }

@@ -62,19 +62,31 @@ public final class ModeFeatures {
      * @throws IllegalArgumentException for a mode that is not clustered or a unit that lacks its roles
      */
     public static FeatureMatrix build(String mode, UnitSignals s, int[] samples) {
+        boolean[] running = new boolean[s.size()];
+        java.util.Arrays.fill(running, true);
+        return build(mode, s, samples, running);
+    }
+
+    /**
+     * @param running per grid sample: in the mode itself. The valve activity counts only moves between consecutive
+     *                samples of the mode, so it measures how a loop holds while it runs: a valve that opens as the
+     *                fan starts and shuts as it stops (unoccupied cycling) is not unstable, and a loop that leaves
+     *                the mode each time it swings is the hunting rule's to judge.
+     */
+    public static FeatureMatrix build(String mode, UnitSignals s, int[] samples, boolean[] running) {
         String why = missingFor(mode, s);
         if (why != null) {
             throw new IllegalArgumentException(why);
         }
         return switch (mode) {
-            case "cooling" -> coil(s, samples, true);
-            case "heating" -> coil(s, samples, false);
+            case "cooling" -> coil(s, samples, true, running);
+            case "heating" -> coil(s, samples, false, running);
             case "ventilation" -> ventilation(s, samples);
             default -> throw new IllegalArgumentException("no features for mode " + mode);
         };
     }
 
-    private static FeatureMatrix coil(UnitSignals s, int[] samples, boolean cooling) {
+    private static FeatureMatrix coil(UnitSignals s, int[] samples, boolean cooling, boolean[] running) {
         double[] zone = s.zoneAirTemperature();
         double[] discharge = s.dischargeAirTemperature();
         double[] valve = cooling ? s.coolingValveCommand() : s.heatingValveCommand();
@@ -96,7 +108,19 @@ public final class ModeFeatures {
             }
         }
         CoilResponse response = CoilResponse.fit(v, air, wat);
-        double[] activity = ValveActivity.of(valve, ACTIVITY_HALF_WINDOW);
+        // A two-position valve toggles by design: its activity says nothing about loop stability, and clustering on
+        // it only splits normal operation by how often the thermostat switched.
+        boolean modulating = !ValveActivity.twoPosition(valve);
+        double[] activity = null;
+        if (modulating) {
+            double[] whileRunning = valve.clone();
+            for (int i = 0; i < whileRunning.length; i++) {
+                if (!running[i]) {
+                    whileRunning[i] = Double.NaN;
+                }
+            }
+            activity = ValveActivity.of(whileRunning, ACTIVITY_HALF_WINDOW);
+        }
         double[] rawResidual = new double[n];
         for (int k = 0; k < n; k++) {
             rawResidual[k] = response.residual(v[k], air[k], hasWater ? wat[k] : Double.NaN);
@@ -119,7 +143,9 @@ public final class ModeFeatures {
         String waterName = cooling ? "chilled_water_supply_temperature" : "hot_water_supply_temperature";
         Columns c = new Columns();
         c.add("coil_residual", "K", true);
-        c.add("valve_activity", "%", true);
+        if (modulating) {
+            c.add("valve_activity", "%", true);
+        }
         if (hasError) {
             c.add("zone_error", "K", true);
         }
@@ -139,7 +165,9 @@ public final class ModeFeatures {
             double[] row = new double[c.size()];
             int j = 0;
             row[j++] = residual[k];
-            row[j++] = activity[i];
+            if (modulating) {
+                row[j++] = activity[i];
+            }
             if (hasError) {
                 row[j++] = zoneError[k];
             }

@@ -40,4 +40,29 @@ public final class ValveActivity {
         }
         return out;
     }
+
+    /** Share of a valve's open samples that must be fully open for it to count as two-position. */
+    public static final double TWO_POSITION_SHARE = 0.97;
+    /** Fewest open samples needed to tell a two-position valve from a modulating one. */
+    public static final int MIN_OPEN_SAMPLES = 20;
+
+    /**
+     * True for a two-position (on/off) valve: whenever it is open (above 1 %), it is fully open (at least 99 %) in
+     * at least {@link #TWO_POSITION_SHARE} of the samples, as a thermostat's relay drives it; a modulating valve
+     * spends much of its open time part-way (common practice, no source). False when the valve was open in fewer
+     * than {@link #MIN_OPEN_SAMPLES} samples: then it cannot be told.
+     *
+     * @param command commands in percent, NaN where missing
+     */
+    public static boolean twoPosition(double[] command) {
+        int open = 0;
+        int full = 0;
+        for (double c : command) {
+            if (c > 1) {
+                open++;
+                full += c >= 99 ? 1 : 0;
+            }
+        }
+        return open >= MIN_OPEN_SAMPLES && full >= TWO_POSITION_SHARE * open;
+    }
 }

@@ -20,6 +20,35 @@ public final class ClusterShifts {
         return out;
     }
 
+    /** Per-feature shift of the rows in {@code group} from the rows in {@code normal}, on medians. */
+    public static List<Shift> of(FeatureMatrix features, boolean[] group, boolean[] normal) {
+        List<Shift> out = new ArrayList<>(features.width());
+        for (int j = 0; j < features.width(); j++) {
+            double d = median(features.rows(), group, j) - median(features.rows(), normal, j);
+            out.add(new Shift(features.names().get(j), features.units().get(j), d));
+        }
+        return out;
+    }
+
+    static double median(double[][] rows, boolean[] mask, int column) {
+        double[] v = new double[rows.length];
+        int n = 0;
+        for (int i = 0; i < rows.length; i++) {
+            if (mask[i]) {
+                v[n++] = rows[i][column];
+            }
+        }
+        return median(v, n);
+    }
+
+    private static double median(double[] v, int n) {
+        if (n == 0) {
+            return Double.NaN;
+        }
+        Arrays.sort(v, 0, n);
+        return n % 2 == 1 ? v[n / 2] : 0.5 * (v[n / 2 - 1] + v[n / 2]);
+    }
+
     static double median(double[][] rows, int[] labels, int label, int column) {
         double[] v = new double[rows.length];
         int n = 0;
@@ -28,10 +57,6 @@ public final class ClusterShifts {
                 v[n++] = rows[i][column];
             }
         }
-        if (n == 0) {
-            return Double.NaN;
-        }
-        Arrays.sort(v, 0, n);
-        return n % 2 == 1 ? v[n / 2] : 0.5 * (v[n / 2 - 1] + v[n / 2]);
+        return median(v, n);
     }
 }

@@ -17,6 +17,11 @@ final class Csv {
         return ISO.format(t.atZone(zone).toOffsetDateTime());
     }
 
+    /** A decimal that parses back to the same double; inf/-inf/nan as numpy and pandas read them. */
+    static String number(double v) {
+        return org.tufa.analysis.tables.SampleTable.csvNumber(v);
+    }
+
     /** A rounded figure for tables people read. */
     static String fixed(double v, int decimals) {
         if (Double.isNaN(v)) {

@@ -14,7 +14,10 @@ import java.util.concurrent.atomic.AtomicInteger;
 import org.tufa.analysis.coverage.CoverageSummary;
 import org.tufa.analysis.coverage.FleetCoverage;
 import org.tufa.analysis.coverage.UnitCoverage;
+import org.tufa.analysis.decision.FleetDecision;
+import org.tufa.analysis.episodes.ChannelEvidence;
 import org.tufa.analysis.features.UnitSignals;
+import org.tufa.analysis.findings.Finding;
 import org.tufa.analysis.trends.IngestReport;
 import org.tufa.analysis.trends.ResampledSeries;
 import org.tufa.analysis.trends.SeriesKind;
@@ -23,9 +26,17 @@ import org.tufa.analysis.trends.TrendSource;
 import org.tufa.analysis.trends.TrendStore;
 
 /**
- * Runs the detection on every unit of a fleet: reads the trends once, then analyses units in parallel and writes
- * each unit's files as it finishes. One unit's failure never stops the fleet: it becomes a {@code failed} row.
- * Results are collected in unit order, so the outputs are the same bytes whatever the thread count.
+ * Runs the detection on every unit of a fleet, in three phases:
+ * <ol>
+ *   <li>reads the trends once, then analyses units in parallel; each unit's per-sample files and charts are
+ *       written as it finishes ({@link UnitSink#analysed}), and only its small summary and its evidence are kept;</li>
+ *   <li>decides every candidate finding at once for the whole fleet ({@link FleetDecision}): against the fleet's
+ *       healthy units, the unit's peers and fleet-wide effects, with a false-discovery rate over all tests;</li>
+ *   <li>hands each unit its decided findings ({@link UnitSink#decided}), with its signals prepared again from the
+ *       trend store when it has findings to show.</li>
+ * </ol>
+ * One unit's failure never stops the fleet: it becomes a {@code failed} row. Results are collected in unit order
+ * and the decision is made on them in that order, so the outputs are the same bytes whatever the thread count.
  */
 public final class FleetAnalysis {
 
@@ -35,10 +46,17 @@ public final class FleetAnalysis {
         void unitDone(int done, int total);
     }
 
-    /** The whole run: one outcome per unit of the coverage, in unit order, and the ingest report. */
-    public record Result(List<UnitOutcome> units, IngestReport ingest, StageTimes times) {
+    /**
+     * The whole run: one outcome per unit of the coverage, in unit order, the fleet-wide findings, the decision's
+     * figures and the ingest report.
+     */
+    public record Result(List<UnitOutcome> units, List<FleetDecision.FleetFinding> fleetFindings,
+                         List<FleetDecision.ChannelNull> nulls, int tests, int fleetBelowConfidence,
+                         IngestReport ingest, StageTimes times) {
         public Result {
             units = List.copyOf(units);
+            fleetFindings = List.copyOf(fleetFindings);
+            nulls = List.copyOf(nulls);
         }
     }
 
@@ -65,7 +83,7 @@ public final class FleetAnalysis {
         for (UnitCoverage u : units) {
             UnitInputs in = UnitInputs.of(u, settings.defaultAirflow());
             inputs.put(u.unit(), in);
-            if (u.analyzable()) {
+            if (u.analyzable() && detects(u)) {
                 wanted.putAll(in.seriesKinds());
             }
         }
@@ -84,7 +102,7 @@ public final class FleetAnalysis {
             });
             AtomicInteger done = new AtomicInteger();
             try {
-                List<Future<UnitOutcome>> futures = new ArrayList<>();
+                List<Future<Kept>> futures = new ArrayList<>();
                 for (int k = 0; k < units.size(); k++) {
                     UnitCoverage u = units.get(k);
                     String folder = folders.get(k);
@@ -93,18 +111,45 @@ public final class FleetAnalysis {
                         UnitOutcome o = a.outcome();
                         long w = System.nanoTime();
                         for (UnitSink sink : sinks) {
-                            sink.accept(o, a.signals());
+                            sink.analysed(o, a.signals());
                         }
                         times.add(StageTimes.Stage.WRITE, System.nanoTime() - w);
                         progress.unitDone(done.incrementAndGet(), units.size());
-                        return o.withoutDetail();
+                        List<ChannelEvidence> evidence = o.result() != null && o.status().equals(UnitOutcome.ANALYZED)
+                                ? o.result().evidence() : null;
+                        return new Kept(o.withoutDetail(), evidence);
                     }));
                 }
+                List<Kept> kept = new ArrayList<>(units.size());
+                for (Future<Kept> f : futures) {
+                    kept.add(f.get());
+                }
+                long t1 = System.nanoTime();
+                List<FleetDecision.UnitEvidence> evidence = new ArrayList<>();
+                for (Kept k : kept) {
+                    if (k.evidence() != null) {
+                        evidence.add(new FleetDecision.UnitEvidence(k.outcome().unit(), k.evidence()));
+                    }
+                }
+                FleetDecision.Decision decision = FleetDecision.fit(evidence, settings.decision(), settings.causes(),
+                        settings.dayZone(), settings.maxEpisodeWindowDays());
+                times.add(StageTimes.Stage.DECISION, System.nanoTime() - t1);
+                double min = settings.decision().minConfidence();
+                List<Future<UnitOutcome>> finals = new ArrayList<>();
+                for (Kept k : kept) {
+                    UnitOutcome o = k.outcome();
+                    List<Finding> decided = decision.findings().getOrDefault(o.unit(), List.of());
+                    finals.add(pool.submit(() -> complete(o, decided, min, inputs.get(o.unit()), store, sinks,
+                            times)));
+                }
                 List<UnitOutcome> outcomes = new ArrayList<>(units.size());
-                for (Future<UnitOutcome> f : futures) {
+                for (Future<UnitOutcome> f : finals) {
                     outcomes.add(f.get());
                 }
-                return new Result(outcomes, store.report(), times);
+                List<FleetDecision.FleetFinding> fleet = decision.fleet().stream()
+                        .filter(f -> f.finding().confidence() >= min).toList();
+                return new Result(outcomes, fleet, decision.nulls(), decision.tests(),
+                        decision.fleet().size() - fleet.size(), store.report(), times);
             } catch (InterruptedException e) {
                 Thread.currentThread().interrupt();
                 throw new IllegalStateException("interrupted", e);
@@ -120,28 +165,84 @@ public final class FleetAnalysis {
         }
     }
 
+    /** What the fleet keeps of a unit between the phases. */
+    private record Kept(UnitOutcome outcome, List<ChannelEvidence> evidence) {
+    }
+
+    /** Phase 3 for one unit: its decided findings, its signals again when it has some, the sinks. */
+    private static UnitOutcome complete(UnitOutcome o, List<Finding> decided, double minConfidence, UnitInputs in,
+                                        TrendSource store, List<UnitSink> sinks, StageTimes times) {
+        List<Finding> listed = decided.stream().filter(f -> f.confidence() >= minConfidence).toList();
+        int below = decided.size() - listed.size();
+        List<String> notes = new ArrayList<>();
+        if (o.summary() != null) {
+            for (ModeSummary m : o.summary().modes()) {
+                if (m.analyzed() && !m.dominantRegime()) {
+                    notes.add(String.format(java.util.Locale.ROOT, "%s: no dominant regime (the normal reference "
+                            + "holds %.0f %% of the clustered samples, less than half), so no cluster findings in "
+                            + "this mode", m.mode(), 100 * m.referenceShare()));
+                }
+            }
+        }
+        UnitSignals signals = null;
+        double[] load = null;
+        if (!listed.isEmpty()) {
+            long t0 = System.nanoTime();
+            signals = prepare(in, store).signals();
+            load = UnitAnalysis.load(signals, in.fanSignal(), in.nominalAirflow());
+            times.add(StageTimes.Stage.RESAMPLE, System.nanoTime() - t0);
+        }
+        UnitOutcome done = o.decided(listed, below, notes, load);
+        long w = System.nanoTime();
+        for (UnitSink sink : sinks) {
+            sink.decided(done, signals, load);
+        }
+        times.add(StageTimes.Stage.WRITE, System.nanoTime() - w);
+        return done;
+    }
+
+    private static SignalPreparation.Prepared prepare(UnitInputs in, TrendSource store) {
+        return prepare(in, store.read(in.seriesKinds().keySet()), store);
+    }
+
+    private static SignalPreparation.Prepared prepare(UnitInputs in, Map<String, ResampledSeries> series,
+                                                      TrendSource store) {
+        return SignalPreparation.prepare(in, id -> Optional.ofNullable(series.get(id)), store.gridStart(),
+                store.interval(), store.gridLength());
+    }
+
+    /** Whether this version has a detection for the unit's kind: fan coil units only (VAV boxes come next). */
+    private static boolean detects(UnitCoverage u) {
+        return u.unitKind().equals(org.tufa.analysis.coverage.Profile.FAN_COIL);
+    }
+
     /** An outcome with the signals it was computed from (null when the unit was not analysed). */
     private record Analysed(UnitOutcome outcome, UnitSignals signals) {
     }
 
     private static Analysed analyse(FleetCoverage coverage, UnitCoverage u, UnitInputs in, String folder,
-                                       TrendSource store, AnalysisSettings settings, StageTimes times) {
+                                    TrendSource store, AnalysisSettings settings, StageTimes times) {
         if (!u.analyzable()) {
             return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED,
-                    CoverageSummary.reason(coverage, u), List.of(), null, List.of()), null);
+                    CoverageSummary.reason(coverage, u), List.of(), null), null);
+        }
+        if (!detects(u)) {
+            return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED,
+                    "no detection for " + (u.unitKind().equals(org.tufa.analysis.coverage.Profile.VAV) ? "VAV boxes"
+                            : "units of kind " + u.unitKind()) + " in this version (coverage: analysable with profile "
+                            + u.profileName() + ")", List.of(), null), null);
         }
         // Outside the try: a source that cannot be read (a database gone away, a value that is not a number) stops
         // the run with its one-line error instead of failing unit after unit.
         long t0 = System.nanoTime();
         Map<String, ResampledSeries> series = store.read(in.seriesKinds().keySet());
         try {
-            SignalPreparation.Prepared p = SignalPreparation.prepare(in, id -> Optional.ofNullable(series.get(id)),
-                    store.gridStart(), store.interval(), store.gridLength());
+            SignalPreparation.Prepared p = prepare(in, series, store);
             times.add(StageTimes.Stage.RESAMPLE, System.nanoTime() - t0);
             UnitSignals s = p.signals();
             if (!UnitSignals.present(s.zoneAirTemperature()) || !UnitSignals.present(s.dischargeAirTemperature())) {
                 return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED,
-                        "no trend data for the zone or discharge air temperature", p.notes(), null, List.of()), null);
+                        "no trend data for the zone or discharge air temperature", p.notes(), null), null);
             }
             UnitAnalysis.Result r = UnitAnalysis.run(s, in.fanSignal(), in.nominalAirflow(), settings, times);
             List<String> notes = new ArrayList<>(p.notes());
@@ -158,14 +259,13 @@ public final class FleetAnalysis {
                 String why = String.join("; ", r.modeResults().stream().map(m -> m.mode() + ": " + m.reason())
                         .toList());
                 return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED,
-                        "no mode could be clustered (" + why + ")", notes, r, r.findings()), s);
+                        "no mode could be clustered (" + why + ")", notes, r), s);
             }
-            return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.ANALYZED, "", notes, r,
-                    r.findings()), s);
+            return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.ANALYZED, "", notes, r), s);
         } catch (RuntimeException e) {
             String msg = e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
             return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.FAILED,
-                    msg.lines().findFirst().orElse(""), List.of(), null, List.of()), null);
+                    msg.lines().findFirst().orElse(""), List.of(), null), null);
         }
     }
 }

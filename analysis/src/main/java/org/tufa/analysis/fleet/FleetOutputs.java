@@ -17,20 +17,25 @@ import java.util.HexFormat;
 import java.util.List;
 import java.util.Map;
 import java.util.stream.Collectors;
+import org.tufa.analysis.decision.FleetDecision;
 import org.tufa.analysis.findings.Finding;
 import org.tufa.analysis.findings.Shift;
 
 /**
- * The fleet-level files of a run: {@code fleet.csv}, {@code findings.csv}, {@code ranking.csv} and
- * {@code run.json}. Their names and columns are fixed: other tools and tufa's own report read them.
+ * The fleet-level files of a run: {@code fleet.csv}, {@code findings.csv}, {@code fleet_findings.csv},
+ * {@code ranking.csv} and {@code run.json}. Their names and columns are fixed: other tools and tufa's own report
+ * read them (new columns are only ever added at the end).
  */
 public final class FleetOutputs {
 
     public static final String FLEET_HEADER =
-            "unit,label,folder,status,reason,modes,samples_used,clusters,fault_clusters,fault_hours,energy_kwh";
+            "unit,label,folder,status,reason,modes,samples_used,clusters,fault_clusters,fault_hours,energy_kwh,"
+                    + "findings,below_confidence,top_confidence";
     public static final String FINDINGS_HEADER =
-            "unit,mode,kind,cluster,start,end,hours,energy_kwh,shift,candidate_causes";
-    public static final String RANKING_HEADER = "rank,unit,label,fault_hours,energy_kwh,findings";
+            "unit,mode,kind,cluster,start,end,hours,energy_kwh,shift,candidate_causes,confidence,p_value,evidence";
+    public static final String FLEET_FINDINGS_HEADER =
+            "mode,kind,start,end,hours,energy_kwh,units,shift,candidate_causes,confidence,p_value,evidence,unit_list";
+    public static final String RANKING_HEADER = "rank,unit,label,top_confidence,fault_hours,energy_kwh,findings";
 
     private FleetOutputs() {
     }
@@ -43,8 +48,9 @@ public final class FleetOutputs {
             List<Path> out = new ArrayList<>();
             out.add(write(dir.resolve("fleet.csv"), fleet(result.units())));
             out.add(write(dir.resolve("findings.csv"), findings(result.units(), zone)));
+            out.add(write(dir.resolve("fleet_findings.csv"), fleetFindings(result.fleetFindings(), zone)));
             out.add(write(dir.resolve("ranking.csv"), ranking(result.units())));
-            out.add(write(dir.resolve("run.json"), runJson(parameters, inputs)));
+            out.add(write(dir.resolve("run.json"), runJson(parameters, inputs, result)));
             return out;
         } catch (IOException e) {
             throw new UncheckedIOException("cannot write to " + dir + ": " + e.getMessage(), e);
@@ -64,7 +70,8 @@ public final class FleetOutputs {
                     .append(Csv.field(u.reason())).append(',').append(u.analyzedModes()).append(',')
                     .append(u.samplesUsed()).append(',').append(u.clusters()).append(',')
                     .append(u.faultClusters()).append(',').append(Csv.fixed(u.faultHours(), 2)).append(',')
-                    .append(Csv.fixed(u.faultEnergyKwh(), 1)).append('\n');
+                    .append(Csv.fixed(u.faultEnergyKwh(), 1)).append(',').append(u.findings().size()).append(',')
+                    .append(u.belowConfidence()).append(',').append(Csv.fixed(u.topConfidence(), 4)).append('\n');
         }
         return b.toString();
     }
@@ -79,16 +86,38 @@ public final class FleetOutputs {
                         .append(Csv.time(f.start(), zone)).append(',').append(Csv.time(f.end(), zone)).append(',')
                         .append(Csv.fixed(f.hours(), 2)).append(',').append(Csv.fixed(f.energyKwh(), 1)).append(',')
                         .append(Csv.field(shift)).append(',')
-                        .append(Csv.field(String.join(" | ", f.causes()))).append('\n');
+                        .append(Csv.field(String.join(" | ", f.causes()))).append(',')
+                        .append(Csv.fixed(f.confidence(), 4)).append(',').append(Csv.number(f.pValue())).append(',')
+                        .append(Csv.field(f.evidence())).append('\n');
             }
         }
         return b.toString();
     }
 
-    /** Units with findings ranked by fault hours, then energy, then IRI (a total order: deterministic). */
+    static String fleetFindings(List<FleetDecision.FleetFinding> fleet, ZoneId zone) {
+        StringBuilder b = new StringBuilder(FLEET_FINDINGS_HEADER).append('\n');
+        for (FleetDecision.FleetFinding ff : fleet) {
+            Finding f = ff.finding();
+            String shift = f.shifts().stream().map(Shift::describe).collect(Collectors.joining("; "));
+            b.append(f.mode()).append(',').append(f.kind()).append(',').append(Csv.time(f.start(), zone)).append(',')
+                    .append(Csv.time(f.end(), zone)).append(',').append(Csv.fixed(f.hours(), 2)).append(',')
+                    .append(Csv.fixed(f.energyKwh(), 1)).append(',').append(ff.units().size()).append(',')
+                    .append(Csv.field(shift)).append(',').append(Csv.field(String.join(" | ", f.causes())))
+                    .append(',').append(Csv.fixed(f.confidence(), 4)).append(',').append(Csv.number(f.pValue()))
+                    .append(',').append(Csv.field(f.evidence())).append(',')
+                    .append(Csv.field(String.join(" ", ff.units()))).append('\n');
+        }
+        return b.toString();
+    }
+
+    /**
+     * Units with findings ranked by their most confident finding, then fault hours, then energy, then IRI (a total
+     * order: deterministic).
+     */
     public static List<UnitOutcome> ranked(List<UnitOutcome> units) {
         return units.stream().filter(u -> !u.findings().isEmpty())
-                .sorted(Comparator.comparingDouble(UnitOutcome::faultHours).reversed()
+                .sorted(Comparator.comparingDouble(UnitOutcome::topConfidence).reversed()
+                        .thenComparing(Comparator.comparingDouble(UnitOutcome::faultHours).reversed())
                         .thenComparing(Comparator.comparingDouble(UnitOutcome::faultEnergyKwh).reversed())
                         .thenComparing(UnitOutcome::unit))
                 .toList();
@@ -99,13 +128,15 @@ public final class FleetOutputs {
         int rank = 1;
         for (UnitOutcome u : ranked(units)) {
             b.append(rank++).append(',').append(Csv.field(u.unit())).append(',').append(Csv.field(u.label()))
-                    .append(',').append(Csv.fixed(u.faultHours(), 2)).append(',')
+                    .append(',').append(Csv.fixed(u.topConfidence(), 4)).append(',')
+                    .append(Csv.fixed(u.faultHours(), 2)).append(',')
                     .append(Csv.fixed(u.faultEnergyKwh(), 1)).append(',').append(u.findings().size()).append('\n');
         }
         return b.toString();
     }
 
-    static String runJson(Map<String, Object> parameters, List<Path> inputs) throws IOException {
+    static String runJson(Map<String, Object> parameters, List<Path> inputs, FleetAnalysis.Result result)
+            throws IOException {
         JsonObject run = new JsonObject();
         run.addProperty("tool", "tufa");
         String version = FleetOutputs.class.getPackage().getImplementationVersion();
@@ -128,7 +159,34 @@ public final class FleetOutputs {
             files.add(f);
         }
         run.add("inputs", files);
+        if (result != null) {
+            run.add("decision", decision(result));
+        }
         return Json.write(run);
+    }
+
+    /** The fleet stage's figures: tests, findings listed and below confidence, every channel's null. */
+    private static JsonObject decision(FleetAnalysis.Result result) {
+        JsonObject d = new JsonObject();
+        d.addProperty("tests", result.tests());
+        d.addProperty("findings_listed", result.units().stream().mapToInt(u -> u.findings().size()).sum());
+        d.addProperty("findings_below_confidence", result.units().stream().mapToInt(UnitOutcome::belowConfidence)
+                .sum());
+        d.addProperty("fleet_findings_listed", result.fleetFindings().size());
+        d.addProperty("fleet_findings_below_confidence", result.fleetBelowConfidence());
+        JsonArray nulls = new JsonArray();
+        for (FleetDecision.ChannelNull n : result.nulls()) {
+            JsonObject j = new JsonObject();
+            j.addProperty("channel", n.key());
+            j.addProperty("units", n.units());
+            j.addProperty("candidates", n.candidates());
+            j.add("gumbel_location", Json.number(n.nullDistribution().location()));
+            j.add("gumbel_scale", Json.number(n.nullDistribution().scale()));
+            j.addProperty("fitted_to_fleet", n.nullDistribution().fitted());
+            nulls.add(j);
+        }
+        d.add("channel_nulls", nulls);
+        return d;
     }
 
     private static List<Path> expand(List<Path> inputs) throws IOException {

@@ -6,6 +6,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.TreeMap;
+import org.tufa.analysis.decision.FleetDecision;
 import org.tufa.analysis.coverage.FleetCoverage;
 import org.tufa.analysis.findings.Finding;
 
@@ -20,7 +21,8 @@ public final class FleetReport {
     private FleetReport() {
     }
 
-    public static List<String> summary(FleetAnalysis.Result result, FleetCoverage coverage, Path out) {
+    public static List<String> summary(FleetAnalysis.Result result, FleetCoverage coverage, Path out,
+                                       double minConfidence) {
         List<String> lines = new ArrayList<>();
         Map<String, Integer> byStatus = new TreeMap<>();
         Map<String, Integer> byKind = new TreeMap<>();
@@ -39,15 +41,25 @@ public final class FleetReport {
                 ingest.unparsableValues(), ingest.dstRepeatedFirstPass() + ingest.dstRepeatedSecondPass(),
                 ingest.dstSkipped()));
         int total = byKind.values().stream().mapToInt(Integer::intValue).sum();
-        lines.add("Findings: " + total + (total == 0 ? "" : " (" + String.join(", ", byKind.entrySet().stream()
-                .map(e -> e.getValue() + " " + e.getKey()).toList()) + ")"));
+        int below = result.units().stream().mapToInt(UnitOutcome::belowConfidence).sum();
+        long unitsWith = result.units().stream().filter(u -> !u.findings().isEmpty()).count();
+        lines.add(String.format(Locale.ROOT, "Findings at confidence >= %.2f: %d on %d unit(s)%s; %d candidate(s) "
+                        + "below it not listed; %d tests, false-discovery rate controlled over all", minConfidence,
+                total, unitsWith, total == 0 ? "" : " (" + String.join(", ", byKind.entrySet().stream()
+                        .map(e -> e.getValue() + " " + e.getKey()).toList()) + ")", below, result.tests()));
+        for (FleetDecision.FleetFinding f : result.fleetFindings()) {
+            lines.add(String.format(Locale.ROOT, "Fleet-wide: %s %s, %s to %s, %d units, confidence %.3f",
+                    f.finding().mode(), f.finding().kind(), f.finding().start(), f.finding().end(), f.units().size(),
+                    f.finding().confidence()));
+        }
         List<UnitOutcome> ranked = FleetOutputs.ranked(result.units());
         if (!ranked.isEmpty()) {
-            lines.add("Units with the most fault hours:");
+            lines.add("Units by their most confident finding:");
             for (int i = 0; i < Math.min(10, ranked.size()); i++) {
                 UnitOutcome u = ranked.get(i);
-                lines.add(String.format(Locale.ROOT, "  %2d. %-28s %7.1f h %9.1f kWh  %d finding(s)", i + 1,
-                        u.label(), u.faultHours(), u.faultEnergyKwh(), u.findings().size()));
+                lines.add(String.format(Locale.ROOT, "  %2d. %-28s confidence %.3f %7.1f h %9.1f kWh  %d finding(s)",
+                        i + 1, u.label(), u.topConfidence(), u.faultHours(), u.faultEnergyKwh(),
+                        u.findings().size()));
             }
         }
         List<UnitOutcome> notAnalysed = result.units().stream()
@@ -63,7 +75,7 @@ public final class FleetReport {
             }
         }
         lines.add("Outputs: " + out.resolve("fleet.csv") + ", " + out.resolve("findings.csv") + ", "
-                + out.resolve("units"));
+                + out.resolve("fleet_findings.csv") + ", " + out.resolve("units"));
         lines.add(CAUTION);
         return lines;
     }

@@ -43,16 +43,30 @@ final class Json {
         u.addProperty("reason", o.reason());
         u.add("notes", strings(o.notes()));
         JsonArray modes = new JsonArray();
-        if (o.result() != null) {
-            for (ModeResult m : o.result().modeResults()) {
+        if (o.summary() != null) {
+            for (ModeSummary m : o.summary().modes()) {
                 modes.add(mode(m));
             }
         }
         u.add("modes", modes);
+        JsonArray findings = new JsonArray();
+        for (org.tufa.analysis.findings.Finding f : o.findings()) {
+            JsonObject fj = new JsonObject();
+            fj.addProperty("mode", f.mode());
+            fj.addProperty("kind", f.kind());
+            fj.addProperty("start", f.start().toString());
+            fj.addProperty("end", f.end().toString());
+            fj.add("confidence", number(f.confidence()));
+            fj.add("p_value", number(f.pValue()));
+            fj.addProperty("evidence", f.evidence());
+            findings.add(fj);
+        }
+        u.add("findings", findings);
+        u.addProperty("findings_below_confidence", o.belowConfidence());
         return write(u);
     }
 
-    private static JsonObject mode(ModeResult m) {
+    private static JsonObject mode(ModeSummary m) {
         JsonObject j = new JsonObject();
         j.addProperty("mode", m.mode());
         j.addProperty("analyzed", m.analyzed());
@@ -65,29 +79,26 @@ final class Json {
             b.add("q3_kw", number(m.band().q3()));
             b.add("low_kw", number(m.band().low()));
             b.add("high_kw", number(m.band().high()));
-            b.addProperty("in_band", m.band().inBandCount());
-            b.addProperty("out_of_band", m.band().outOfBandCount());
+            b.addProperty("in_band", m.band().inBand());
+            b.addProperty("out_of_band", m.band().outOfBand());
+            b.addProperty("sustained_out_of_band_periods", m.band().sustainedRuns());
             j.add("load_band", b);
         }
         if (!m.analyzed()) {
             return j;
         }
-        j.addProperty("samples_clustered", m.features().size());
-        j.add("features", strings(m.features().names()));
-        j.add("feature_units", strings(m.features().units()));
-        PcaResult pca = m.pca();
+        j.addProperty("samples_clustered", m.samplesClustered());
+        j.add("features", strings(m.features()));
+        j.add("feature_units", strings(m.featureUnits()));
+        ModeSummary.Pca pca = m.pca();
         JsonObject p = new JsonObject();
-        p.addProperty("components", pca.componentCount());
+        p.addProperty("components", pca.components());
         JsonArray ratios = new JsonArray();
         for (double r : pca.explainedVarianceRatio()) {
             ratios.add(number(r));
         }
         p.add("explained_variance_ratio", ratios);
-        JsonArray kept = new JsonArray();
-        for (int c : pca.keptColumns()) {
-            kept.add(m.features().healthNames().get(c));
-        }
-        p.add("kept_features", kept);
+        p.add("kept_features", strings(pca.keptFeatures()));
         JsonArray loadings = new JsonArray();
         for (double[] row : pca.loadings()) {
             JsonArray r = new JsonArray();
@@ -98,7 +109,9 @@ final class Json {
         }
         p.add("loadings", loadings);
         j.add("pca", p);
-        j.addProperty("optics_min_pts", m.optics().minPts());
+        j.addProperty("optics_min_pts", m.minPts());
+        j.add("normal_reference_share", number(m.referenceShare()));
+        j.addProperty("dominant_regime", m.dominantRegime());
         JsonArray clusters = new JsonArray();
         for (ClusterSummary c : m.clusters()) {
             JsonObject cj = new JsonObject();
@@ -116,11 +129,7 @@ final class Json {
             clusters.add(cj);
         }
         j.add("clusters", clusters);
-        int noise = 0;
-        for (int l : m.labels()) {
-            noise += l < 0 ? 1 : 0;
-        }
-        j.addProperty("noise", noise);
+        j.addProperty("noise", m.noise());
         return j;
     }
 }

@@ -21,17 +21,23 @@ import org.tufa.analysis.findings.ClusterSummary;
  * @param optics      OPTICS of the PCA scores
  * @param labels      cluster label per feature row, 0 = normal (largest), -1 = noise
  * @param clusters    one summary per cluster label, in label order
+ * @param referenceShare share of the clustered samples in the normal reference (the largest cluster and every
+ *                    cluster whose health features agree with it); NaN when skipped
+ * @param dominantRegime whether at least half of the mode's days are days of normal operation (candidate-fault
+ *                    clusters hold less than half of their samples): without a dominant regime the mode raises no
+ *                    cluster findings
  */
 public record ModeResult(String mode, boolean analyzed, String reason, int modeSamples, LoadBand band,
                          FeatureMatrix features, PcaResult pca, OpticsResult optics, int[] labels,
-                         List<ClusterSummary> clusters) {
+                         List<ClusterSummary> clusters, double referenceShare, boolean dominantRegime) {
 
     public ModeResult {
         clusters = clusters == null ? List.of() : List.copyOf(clusters);
     }
 
     static ModeResult skipped(String mode, int modeSamples, String reason) {
-        return new ModeResult(mode, false, reason, modeSamples, null, null, null, null, null, List.of());
+        return new ModeResult(mode, false, reason, modeSamples, null, null, null, null, null, List.of(), Double.NaN,
+                false);
     }
 
     /** Clusters (noise not counted). */

@@ -8,7 +8,7 @@ import java.util.concurrent.atomic.LongAdder;
 public final class StageTimes {
 
     /** The stages timed. */
-    public enum Stage { READ, RESAMPLE, FEATURES, PCA, OPTICS, FINDINGS, WRITE }
+    public enum Stage { READ, RESAMPLE, FEATURES, PCA, OPTICS, FINDINGS, DECISION, WRITE }
 
     private final Map<Stage, LongAdder> nanos = new EnumMap<>(Stage.class);
 

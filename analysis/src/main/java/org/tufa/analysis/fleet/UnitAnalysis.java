@@ -3,10 +3,11 @@ package org.tufa.analysis.fleet;
 import java.time.Duration;
 import java.time.Instant;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.Comparator;
 import java.util.List;
+import java.util.Locale;
 import org.tufa.analysis.band.LoadBand;
-import org.tufa.analysis.band.OutOfBandRun;
 import org.tufa.analysis.cluster.AutoClusters;
 import org.tufa.analysis.cluster.ComponentRule;
 import org.tufa.analysis.cluster.Extraction;
@@ -14,8 +15,14 @@ import org.tufa.analysis.cluster.Optics;
 import org.tufa.analysis.cluster.OpticsResult;
 import org.tufa.analysis.cluster.Pca;
 import org.tufa.analysis.cluster.PcaResult;
+import org.tufa.analysis.episodes.ChannelEvidence;
+import org.tufa.analysis.episodes.DayChannel;
+import org.tufa.analysis.episodes.DayIndex;
+import org.tufa.analysis.episodes.Episode;
+import org.tufa.analysis.episodes.EpisodeFinder;
 import org.tufa.analysis.features.FeatureMatrix;
 import org.tufa.analysis.features.ModeFeatures;
+import org.tufa.analysis.features.RollingMedian;
 import org.tufa.analysis.features.UnitSignals;
 import org.tufa.analysis.features.ValveActivity;
 import org.tufa.analysis.findings.BalanceRules;
@@ -24,7 +31,6 @@ import org.tufa.analysis.findings.ClusterSummary;
 import org.tufa.analysis.findings.DirectionCheck;
 import org.tufa.analysis.findings.Finding;
 import org.tufa.analysis.findings.IndexRange;
-import org.tufa.analysis.findings.Intervals;
 import org.tufa.analysis.findings.ModeHunting;
 import org.tufa.analysis.findings.Shift;
 import org.tufa.analysis.load.SensibleLoad;
@@ -33,31 +39,40 @@ import org.tufa.analysis.modes.ModeSplit;
 import org.tufa.analysis.modes.ModeThresholds;
 import org.tufa.analysis.modes.OperatingMode;
 import org.tufa.analysis.modes.OperatingModes;
+import org.tufa.analysis.significance.ScanStatistic;
 
 /**
  * The detection for one unit: operating modes, load, load band, and per mode features, PCA, OPTICS, clusters and
- * findings. Pure: signals in, an immutable result out; no I/O.
+ * the candidate findings with their evidence. Pure: signals in, an immutable result out; no I/O. Whether a
+ * candidate becomes a finding is decided for the whole fleet at once ({@code FleetDecision}), against what the
+ * fleet's healthy units do.
  *
  * <p>The clustering follows the published PCA + OPTICS approach (PCA: Jolliffe, Principal Component Analysis,
- * 2002; OPTICS: Ankerst, Breunig, Kriegel and Sander, SIGMOD 1999): largest cluster = normal, other clusters =
- * candidates, noise ignored. Three additions keep it useful when it runs unattended on hundreds of units:
+ * 2002; OPTICS: Ankerst, Breunig, Kriegel and Sander, SIGMOD 1999): per mode, the samples of the unit's normal
+ * operation form the bulk, other dense clusters are candidates, noise is ignored. What this class adds, so that it
+ * can run unattended on hundreds of units:
  * <ul>
- *   <li>physically informed features (coil residual, ventilation discharge offset, valve activity;
- *       {@link ModeFeatures}) so that a fault separates from a change of load;</li>
- *   <li>an engineering-significance gate: a cluster is a candidate fault only when it differs from normal in a
- *       health feature by more than the sensor uncertainty, or fails the expected-direction check; a cluster
- *       that differs only in load or weather is another regime of normal operation;</li>
- *   <li>persistence: flagged samples become findings only as intervals of a minimum duration
- *       ({@link Intervals}), so isolated spikes stay noise.</li>
+ *   <li>physically informed health features (coil residual, ventilation discharge offset, valve activity, zone
+ *       error; {@link ModeFeatures}) so that a fault separates from a change of load;</li>
+ *   <li>a normal reference that is the unit's normal operation: the largest cluster together with every cluster
+ *       whose health features agree with it within the engineering gate (other regimes of normal operation, such
+ *       as high and low load); when it holds less than half of the mode's samples the mode has no dominant regime
+ *       and raises no cluster findings;</li>
+ *   <li>days as the unit of persistence ({@link DayChannel}, {@link EpisodeFinder}): a candidate cluster counts
+ *       only on days it dominates, and only where those days stray from the unit's own normal days by more than
+ *       the engineering gate and by several day-to-day spreads; consecutive such days form one episode, one
+ *       candidate finding;</li>
+ *   <li>rule-based evidence under the same discipline: simultaneous heating and cooling, hunting and the
+ *       energy-balance rules are shares of each day's samples, compared with the unit's own normal days.</li>
  * </ul>
- * Samples outside the load band are not clustered but never dropped silently: sustained out-of-band periods
- * become findings of their own, and simultaneous heating and cooling is reported directly.
+ * Samples outside the load band are not clustered (the published method), and their count stays in the mode's
+ * summary.
  */
 public final class UnitAnalysis {
 
     /** Everything the detection produced for one unit. */
     public record Result(Instant gridStart, Duration interval, ModeSplit modes, double[] loadKw, byte[] bandState,
-                         List<ModeResult> modeResults, List<Finding> findings) {
+                         List<ModeResult> modeResults, List<Finding> findings, List<ChannelEvidence> evidence) {
         /** {@link #bandState} values: not applicable, inside the band, outside the band. */
         public static final byte NOT_APPLICABLE = 0;
         public static final byte IN_BAND = 1;
@@ -66,6 +81,7 @@ public final class UnitAnalysis {
         public Result {
             modeResults = List.copyOf(modeResults);
             findings = List.copyOf(findings);
+            evidence = List.copyOf(evidence);
         }
 
         /** Hours per grid sample. */
@@ -86,34 +102,158 @@ public final class UnitAnalysis {
                              StageTimes times) {
         int n = s.size();
         ModeSplit modes = classify(s, fanSignal, settings.modeThresholds());
-        double[] fan = s.fanFraction();
-        if (fanSignal == FanSignal.NONE || !UnitSignals.present(s.fanFraction())) {
-            // Without a fan signal the fan counts as running whenever the unit is in a coil mode (inferred above).
-            fan = new double[n];
-            java.util.Arrays.fill(fan, 1.0);
-        }
-        double[] load = SensibleLoad.kilowatts(nominalAirflow, fan, s.zoneAirTemperature(),
-                s.dischargeAirTemperature());
+        double[] load = load(s, fanSignal, nominalAirflow);
+        int[] day = DayIndex.of(s.gridStart(), s.interval(), n, settings.dayZone());
+        Context cx = new Context(s, load, day, settings);
         byte[] bandState = new byte[n];
         List<ModeResult> results = new ArrayList<>();
-        List<Finding> findings = new ArrayList<>();
+        List<ChannelEvidence> evidence = new ArrayList<>();
 
-        findings.addAll(ruleFindings(modes.mask(OperatingMode.SIMULTANEOUS), "simultaneous_heating_cooling", s, load,
-                settings));
-        findings.addAll(ruleFindings(hunting(s, fanSignal, settings), "mode_hunting", s, load, settings));
-        findings.addAll(balanceFindings(modes, s, load, settings));
+        boolean[] running = running(modes);
+        // Both valves open together and the energy-balance rules are faults by physics whatever the unit's own days
+        // say; how often a unit changes mode depends on its control, so hunting is judged against its own days.
+        evidence.add(cx.rule("any", "simultaneous_heating_cooling", running,
+                modes.mask(OperatingMode.SIMULTANEOUS), RULE_MIN_SHARE, 0));
+        evidence.add(cx.rule("any", "mode_hunting", running, hunting(s, fanSignal, settings), RULE_MIN_SHARE,
+                Double.NaN));
+        evidence.addAll(balanceEvidence(modes, cx));
         for (String mode : ModeFeatures.CLUSTERED_MODES) {
-            OperatingMode m = OperatingMode.valueOf(mode.toUpperCase(java.util.Locale.ROOT));
-            results.add(mode(mode, m, s, modes, load, bandState, findings, settings, times));
+            OperatingMode m = OperatingMode.valueOf(mode.toUpperCase(Locale.ROOT));
+            results.add(mode(mode, m, modes, bandState, evidence, cx, times));
         }
-        findings.sort(Comparator.comparing((Finding f) -> f.range().start()).thenComparing(Finding::mode)
-                .thenComparing(Finding::kind).thenComparingInt(Finding::cluster));
-        return new Result(s.gridStart(), s.interval(), modes, load, bandState, results, findings);
+        evidence.removeIf(e -> e == null);
+        List<Finding> findings = new ArrayList<>();
+        for (ChannelEvidence e : evidence) {
+            e.candidates().forEach(c -> findings.add(c.finding()));
+        }
+        findings.sort(FINDING_ORDER);
+        return new Result(s.gridStart(), s.interval(), modes, load, bandState, results, findings, evidence);
     }
 
-    private static ModeResult mode(String name, OperatingMode m, UnitSignals s, ModeSplit modes, double[] load,
-                                   byte[] bandState, List<Finding> findings, AnalysisSettings settings,
-                                   StageTimes times) {
+    /** The unit's air-side sensible load per sample, kW ({@link SensibleLoad}). */
+    public static double[] load(UnitSignals s, FanSignal fanSignal, double nominalAirflow) {
+        double[] fan = s.fanFraction();
+        if (fanSignal == FanSignal.NONE || !UnitSignals.present(s.fanFraction())) {
+            // Without a fan signal the fan counts as running whenever the unit is in a coil mode (inferred).
+            fan = new double[s.size()];
+            Arrays.fill(fan, 1.0);
+        }
+        return SensibleLoad.kilowatts(nominalAirflow, fan, s.zoneAirTemperature(), s.dischargeAirTemperature());
+    }
+
+    /** Findings in time order, then mode, kind and cluster: a total order, so outputs are deterministic. */
+    public static final Comparator<Finding> FINDING_ORDER = Comparator.comparing((Finding f) -> f.range().start())
+            .thenComparing(Finding::mode).thenComparing(Finding::kind).thenComparingInt(Finding::cluster)
+            .thenComparingInt(f -> f.range().end());
+
+    /** Share of a day's eligible samples a rule must flag on a fault day (common practice, no source). */
+    static final double RULE_MIN_SHARE = 0.25;
+    /** A rule's share must exceed the unit's normal share by this much on a fault day (common practice, no source). */
+    static final double RULE_GATE = 0.2;
+    /** Smallest day-to-day spread of a rule's share: one sample in twenty (common practice, no source). */
+    static final double SHARE_FLOOR = 0.05;
+    /** Share of a mode's informative days that must be days of normal operation for the mode to have a dominant regime. */
+    static final double MIN_REFERENCE_SHARE = 0.5;
+
+    /** The inputs every channel of one unit needs. */
+    private record Context(UnitSignals s, double[] load, int[] day, AnalysisSettings settings) {
+
+        int minDaySamples() {
+            long perHour = Math.max(1, Math.round(3_600_000.0 / Math.max(1, s.interval().toMillis())));
+            return (int) Math.max(4, perHour);
+        }
+
+        EpisodeFinder.Parameters parameters(double gate, double minShare) {
+            return new EpisodeFinder.Parameters(settings.minDayDeviation(), gate, minShare, 1, 4,
+                    settings.maxEpisodeWindowDays());
+        }
+
+        /**
+         * A rule channel: the share of the day's eligible samples that the rule flags, against the unit's own normal
+         * days, or against a share known from physics ({@code normalShare}, NaN for the unit's own).
+         */
+        ChannelEvidence rule(String mode, String kind, boolean[] eligible, boolean[] flagged, double minShare,
+                             double normalShare) {
+            int[] rows = indices(eligible);
+            if (rows.length == 0) {
+                return null;
+            }
+            int[] dayOfRow = new int[rows.length];
+            boolean[] flags = new boolean[rows.length];
+            for (int k = 0; k < rows.length; k++) {
+                dayOfRow[k] = day[rows[k]];
+                flags[k] = flagged[rows[k]];
+            }
+            DayChannel c = Double.isNaN(normalShare)
+                    ? DayChannel.ofShares(kind, dayOfRow, flags, minDaySamples(), SHARE_FLOOR)
+                    : DayChannel.ofSharesAgainst(normalShare, kind, dayOfRow, flags, minDaySamples(), SHARE_FLOOR);
+            if (c.size() == 0) {
+                return null;
+            }
+            List<ChannelEvidence.Candidate> candidates = new ArrayList<>();
+            for (Episode e : EpisodeFinder.find(c, parameters(RULE_GATE, minShare))) {
+                IndexRange r = rangeOf(rows, flags, dayOfRow, e.firstDay(), e.lastDay());
+                if (r == null) {
+                    continue;
+                }
+                String text = String.format(Locale.ROOT, "%s on %.0f %% of the samples on %d day(s), against %.0f %%"
+                        + " on the unit's normal days", kind, 100 * (e.meanShift() + c.center()), e.faultDays(),
+                        100 * c.center());
+                candidates.add(new ChannelEvidence.Candidate(e, finding(mode, kind, -1, r, List.of(),
+                        settings.causes().causes(kind, List.of(), null)).withEvidence(text)));
+            }
+            return evidence(mode, c, "share", RULE_GATE, rows, candidates);
+        }
+
+        ChannelEvidence evidence(String mode, DayChannel c, String unit, double gate, int[] rows,
+                                 List<ChannelEvidence.Candidate> candidates) {
+            double scan = ScanStatistic.max(c.z(), settings.maxEpisodeWindowDays());
+            IndexRange span = rows.length == 0 ? null : new IndexRange(rows[0], rows[rows.length - 1] + 1);
+            Finding spanFinding = span == null ? null : finding(mode, c.channel(), -1, span, List.of(), List.of());
+            return new ChannelEvidence(mode, c.channel(), c.direction(), unit, c.center(), c.spread(), gate,
+                    c.size(), scan, spanFinding, candidates);
+        }
+
+        Finding finding(String mode, String kind, int cluster, IndexRange r, List<Shift> shifts, List<String> causes) {
+            Duration step = s.interval();
+            Instant start = s.time(r.start());
+            Instant end = s.time(r.end());
+            double hours = Duration.between(start, end).toMillis() / 3_600_000.0;
+            double kwh = 0;
+            int valid = 0;
+            for (int i = r.start(); i < r.end(); i++) {
+                if (!Double.isNaN(load[i])) {
+                    kwh += Math.abs(load[i]) * step.toMillis() / 3_600_000.0;
+                    valid++;
+                }
+            }
+            return new Finding(mode, kind, cluster, r, start, end, hours, valid == 0 ? Double.NaN : kwh, shifts,
+                    causes);
+        }
+    }
+
+    /**
+     * The grid range from the first to the last flagged row on the days {@code firstDay..lastDay}, or null when no
+     * row there is flagged.
+     */
+    private static IndexRange rangeOf(int[] rows, boolean[] flagged, int[] dayOfRow, int firstDay, int lastDay) {
+        int first = -1;
+        int last = -1;
+        for (int k = 0; k < rows.length; k++) {
+            if (dayOfRow[k] >= firstDay && dayOfRow[k] <= lastDay && flagged[k]) {
+                if (first < 0) {
+                    first = rows[k];
+                }
+                last = rows[k];
+            }
+        }
+        return first < 0 ? null : new IndexRange(first, last + 1);
+    }
+
+    private static ModeResult mode(String name, OperatingMode m, ModeSplit modes, byte[] bandState,
+                                   List<ChannelEvidence> evidence, Context cx, StageTimes times) {
+        UnitSignals s = cx.s();
+        AnalysisSettings settings = cx.settings();
         int modeSamples = modes.count(m);
         String missing = ModeFeatures.missingFor(name, s);
         if (missing != null) {
@@ -123,27 +263,33 @@ public final class UnitAnalysis {
             return ModeResult.skipped(name, modeSamples, "only " + modeSamples + " samples in " + name
                     + " (at least " + settings.minModeSamples() + " needed)");
         }
-        boolean[] inMode = modes.mask(m);
+        boolean[] inMode = m == OperatingMode.VENTILATION ? steadyVentilation(modes, s) : modes.mask(m);
         LoadBand band = null;
         boolean[] keep = inMode;
         if (m != OperatingMode.VENTILATION) {
-            double[] modeLoad = modes.only(m, load);
+            double[] modeLoad = modes.only(m, cx.load());
             band = LoadBand.fit(modeLoad, settings.band(), settings.bandRuns());
             keep = band.inBand();
-            for (int i = 0; i < load.length; i++) {
+            boolean[] eligible = new boolean[modeLoad.length];
+            boolean[] above = new boolean[modeLoad.length];
+            boolean[] below = new boolean[modeLoad.length];
+            for (int i = 0; i < modeLoad.length; i++) {
                 if (inMode[i] && !Double.isNaN(modeLoad[i])) {
                     bandState[i] = keep[i] ? Result.IN_BAND : Result.OUT_OF_BAND;
+                    eligible[i] = true;
+                    above[i] = modeLoad[i] > band.high();
+                    below[i] = modeLoad[i] < band.low();
                 }
             }
-            for (OutOfBandRun run : band.runs()) {
-                String side = run.aboveSamples() * 2 >= run.outsideSamples() ? "high" : "low";
-                IndexRange r = new IndexRange(run.start(), run.endExclusive());
-                findings.add(finding(name, "out_of_band_" + side, -1, r, s, load, List.of(),
-                        settings.causes().causes("out_of_band_" + side, List.of(), null)));
+            // Samples outside the band are not clustered (the published method), but days spent mostly outside it
+            // are evidence of their own: a failed fan pushes every sample of the day above the band.
+            if (settings.band() != org.tufa.analysis.band.BandKind.NONE) {
+                evidence.add(cx.rule(name, "out_of_band_high", eligible, above, 0.5, Double.NaN));
+                evidence.add(cx.rule(name, "out_of_band_low", eligible, below, 0.5, Double.NaN));
             }
         }
         long t0 = System.nanoTime();
-        FeatureMatrix features = ModeFeatures.build(name, s, indices(keep, inMode));
+        FeatureMatrix features = ModeFeatures.build(name, s, indices(keep, inMode), modes.mask(m));
         long t1 = System.nanoTime();
         times.add(StageTimes.Stage.FEATURES, t1 - t0);
         if (features.size() < Math.max(settings.minModeSamples() / 2, settings.minPts() + 1)) {
@@ -158,46 +304,289 @@ public final class UnitAnalysis {
         long t3 = System.nanoTime();
         times.add(StageTimes.Stage.OPTICS, t3 - t2);
         AutoClusters clusters = Extraction.auto(optics, settings.extraction());
-        int[] labels = clusters.labels();
+        double[] weight = dayWeights(features.sampleIndex(), cx.day());
+        int[] labels = byDays(clusters.labels(), clusters.clusterCount(), weight);
         List<ClusterSummary> summaries = summarise(name, features, labels, clusters.clusterCount(), settings);
-        // Samples of all candidate-fault clusters together, so one fault that OPTICS split into neighbouring
-        // clusters gives one finding per interval, not one per cluster; each interval is described by the
-        // cluster holding most of its samples.
-        int[] clusterAt = new int[s.size()];
-        java.util.Arrays.fill(clusterAt, -1);
-        boolean[] flagged = new boolean[s.size()];
+        boolean[] reference = new boolean[labels.length];
         for (int k = 0; k < labels.length; k++) {
-            if (labels[k] > 0 && summaries.get(labels[k]).candidateFault()) {
-                flagged[features.sampleIndex()[k]] = true;
-                clusterAt[features.sampleIndex()[k]] = labels[k];
-            }
+            reference[k] = labels[k] >= 0 && !summaries.get(labels[k]).candidateFault();
         }
-        for (IndexRange r : Intervals.runs(flagged, settings.bridgeSamples(), settings.minFindingSamples())) {
-            ClusterSummary c = summaries.get(dominant(clusterAt, r, summaries.size()));
-            findings.add(finding(name, "fault_cluster", c.label(), r, s, load, c.shifts(), c.causes()));
-        }
+        double referenceShare = referenceSamples(reference) / (double) labels.length;
+        boolean dominant = normalDayShare(reference, labels, features.sampleIndex(), cx) >= MIN_REFERENCE_SHARE;
+        evidence.addAll(clusterEvidence(name, features, labels, summaries, reference, dominant, cx));
         times.add(StageTimes.Stage.FINDINGS, System.nanoTime() - t3);
-        return new ModeResult(name, true, "", modeSamples, band, features, pca, optics, labels, summaries);
+        return new ModeResult(name, true, "", modeSamples, band, features, pca, optics, labels, summaries,
+                referenceShare, dominant);
     }
 
-    /** The cluster with most samples in the range (lowest label on a tie). */
-    private static int dominant(int[] clusterAt, IndexRange r, int clusters) {
-        int[] count = new int[clusters];
-        for (int i = r.start(); i < r.end(); i++) {
-            if (clusterAt[i] > 0) {
-                count[clusterAt[i]]++;
-            }
+    private static int referenceSamples(boolean[] reference) {
+        int n = 0;
+        for (boolean r : reference) {
+            n += r ? 1 : 0;
         }
-        int best = 1;
-        for (int c = 1; c < clusters; c++) {
-            if (count[c] > count[best]) {
-                best = c;
-            }
-        }
-        return best;
+        return n;
     }
 
-    /** Shifts, direction check, gate and causes of every cluster against cluster 0 (the largest = normal). */
+    /**
+     * Share of the mode's informative days that candidate-fault clusters do not dominate (they hold less than half of
+     * the day's clustered samples): the days of normal operation. Noise samples count for neither side.
+     */
+    private static double normalDayShare(boolean[] reference, int[] labels, int[] sampleIndex, Context cx) {
+        int days = 0;
+        int normal = 0;
+        int i = 0;
+        int[] day = cx.day();
+        while (i < sampleIndex.length) {
+            int j = i;
+            int clustered = 0;
+            int candidate = 0;
+            while (j < sampleIndex.length && day[sampleIndex[j]] == day[sampleIndex[i]]) {
+                if (labels[j] >= 0) {
+                    clustered++;
+                    candidate += reference[j] ? 0 : 1;
+                }
+                j++;
+            }
+            if (j - i >= cx.minDaySamples()) {
+                days++;
+                normal += 2 * candidate < clustered || clustered == 0 ? 1 : 0;
+            }
+            i = j;
+        }
+        return days == 0 ? 0 : normal / (double) days;
+    }
+
+    /**
+     * Each row's weight when clusters are sized by days: 1 / (rows of the mode on the row's day), so every day of
+     * operation counts once. A fault that keeps a unit running around the clock (a failed fan that never satisfies
+     * the zone) gives its days twice the samples of a normal day; counted in samples it could outweigh normal
+     * operation, counted in days it cannot unless it lasts most of the record.
+     */
+    static double[] dayWeights(int[] sampleIndex, int[] day) {
+        double[] w = new double[sampleIndex.length];
+        int i = 0;
+        while (i < sampleIndex.length) {
+            int j = i;
+            while (j < sampleIndex.length && day[sampleIndex[j]] == day[sampleIndex[i]]) {
+                j++;
+            }
+            for (int k = i; k < j; k++) {
+                w[k] = 1.0 / (j - i);
+            }
+            i = j;
+        }
+        return w;
+    }
+
+    /**
+     * Relabels clusters by decreasing size counted in days ({@link #dayWeights}), ties by their first label: label 0
+     * is then the cluster covering most days of the unit's operation, the normal one. Noise stays -1.
+     */
+    static int[] byDays(int[] labels, int count, double[] weight) {
+        double[] size = new double[count];
+        for (int k = 0; k < labels.length; k++) {
+            if (labels[k] >= 0) {
+                size[labels[k]] += weight[k];
+            }
+        }
+        Integer[] order = new Integer[count];
+        for (int c = 0; c < count; c++) {
+            order[c] = c;
+        }
+        Arrays.sort(order, Comparator.comparingDouble((Integer c) -> -size[c]).thenComparingInt(c -> c));
+        int[] newLabel = new int[count];
+        for (int rank = 0; rank < count; rank++) {
+            newLabel[order[rank]] = rank;
+        }
+        int[] out = new int[labels.length];
+        for (int k = 0; k < labels.length; k++) {
+            out[k] = labels[k] < 0 ? -1 : newLabel[labels[k]];
+        }
+        return out;
+    }
+
+    /**
+     * The health features of one mode as day channels, and their episodes: the candidate-fault clusters that
+     * dominate days on which the feature strays from the unit's normal days.
+     */
+    private static List<ChannelEvidence> clusterEvidence(String mode, FeatureMatrix f, int[] labels,
+                                                         List<ClusterSummary> summaries, boolean[] reference,
+                                                         boolean dominant, Context cx) {
+        AnalysisSettings settings = cx.settings();
+        int n = f.size();
+        int[] rows = f.sampleIndex();
+        int[] dayOfRow = new int[n];
+        for (int k = 0; k < n; k++) {
+            dayOfRow[k] = cx.day()[rows[k]];
+        }
+        List<ChannelEvidence> out = new ArrayList<>();
+        for (int j = 0; j < f.width(); j++) {
+            if (!f.health()[j]) {
+                continue;
+            }
+            String feature = f.names().get(j);
+            int[] directions = faultDirections(feature);
+            double gate = gate(feature, settings);
+            // Rows in a candidate cluster whose shift on this feature passes the gate (either fault side).
+            boolean[] candidate = new boolean[n];
+            boolean[][] candidateOn = new boolean[2][n];
+            for (int k = 0; k < n; k++) {
+                int l = labels[k];
+                if (l <= 0 || !summaries.get(l).candidateFault()) {
+                    continue;
+                }
+                double shift = summaries.get(l).shifts().get(j).value();
+                for (int dir : directions) {
+                    if (dir * shift >= gate) {
+                        candidate[k] = true;
+                        candidateOn[dir > 0 ? 0 : 1][k] = true;
+                    }
+                }
+            }
+            DayChannel base = DayChannel.ofMedians(feature, 1, dayOfRow, f.column(j), candidate, cx.minDaySamples(),
+                    floor(feature));
+            if (base.size() == 0) {
+                continue;
+            }
+            for (int dir : directions) {
+                DayChannel c = dir > 0 ? base : base.flipped();
+                double dayGate = feature.equals("valve_activity") ? Math.max(gate, 0.5 * c.center()) : gate;
+                List<ChannelEvidence.Candidate> candidates = new ArrayList<>();
+                if (dominant) {
+                    boolean[] side = candidateOn[dir > 0 ? 0 : 1];
+                    for (Episode e : EpisodeFinder.find(c, cx.parameters(dayGate, Double.NaN))) {
+                        ChannelEvidence.Candidate cand = clusterCandidate(mode, f, labels, summaries, reference,
+                                side, rows, dayOfRow, e, c, cx);
+                        if (cand != null) {
+                            candidates.add(cand);
+                        }
+                    }
+                }
+                out.add(cx.evidence(mode, c, f.units().get(j), dayGate, rows, candidates));
+            }
+        }
+        return out;
+    }
+
+    private static ChannelEvidence.Candidate clusterCandidate(String mode, FeatureMatrix f, int[] labels,
+                                                             List<ClusterSummary> summaries, boolean[] reference,
+                                                             boolean[] side, int[] rows, int[] dayOfRow, Episode e,
+                                                             DayChannel c, Context cx) {
+        IndexRange r = rangeOf(rows, side, dayOfRow, e.firstDay(), e.lastDay());
+        if (r == null) {
+            return null;
+        }
+        // The episode's own shift from normal, on medians of its candidate rows against the reference rows.
+        boolean[] inEpisode = new boolean[labels.length];
+        int[] count = new int[summaries.size()];
+        for (int k = 0; k < labels.length; k++) {
+            inEpisode[k] = side[k] && dayOfRow[k] >= e.firstDay() && dayOfRow[k] <= e.lastDay();
+            if (inEpisode[k]) {
+                count[labels[k]]++;
+            }
+        }
+        int cluster = 1;
+        for (int l = 1; l < count.length; l++) {
+            if (count[l] > count[cluster]) {
+                cluster = l;
+            }
+        }
+        List<Shift> shifts = ClusterShifts.of(f, inEpisode, reference);
+        DirectionCheck.Outcome dir = summaries.get(cluster).direction();
+        boolean directionFault = dir == DirectionCheck.Outcome.FAILS
+                && summaries.get(0).direction() == DirectionCheck.Outcome.AS_EXPECTED;
+        List<String> causes = cx.settings().causes().causes(mode, shifts, directionFault ? dir : null);
+        String unit = f.units().get(f.indexOf(c.channel()));
+        String text = String.format(Locale.ROOT, "%s %+.1f %s from the unit's normal days (%.1f day-to-day spreads)"
+                        + " on %d day(s)", c.channel(), c.direction() * e.meanShift(), unit.equals("degC") ? "K" : unit,
+                e.meanZ(), e.faultDays());
+        return new ChannelEvidence.Candidate(e, cx.finding(mode, "fault_cluster", cluster, r, shifts, causes)
+                .withEvidence(text));
+    }
+
+    /** How long a coil takes to reach the zone's temperature after its valve shuts (common practice, no source). */
+    static final Duration COIL_RECOVERY = Duration.ofMinutes(30);
+
+    /**
+     * Fan-only samples with both valves commanded shut ({@link #shut}) and at least {@link #COIL_RECOVERY} after the
+     * last sample of a coil mode (cooling, heating,
+     * simultaneous, or the transition that follows them): before that the water left in the coil and a slow
+     * actuator still cool or warm the air, which is normal and no leaking valve (the field practice of dropping
+     * the first 15-30 minutes after a mode change; APAR evaluates its rules only in steady state, Schein et al.
+     * 2006).
+     */
+    static boolean[] steadyVentilation(ModeSplit modes, UnitSignals s) {
+        Duration interval = s.interval();
+        int n = modes.codes().length;
+        int recovery = (int) Math.max(1, Math.ceil(COIL_RECOVERY.toMillis() / (double) interval.toMillis()));
+        boolean[] out = new boolean[n];
+        int sinceCoil = Integer.MAX_VALUE / 2;
+        for (int i = 0; i < n; i++) {
+            OperatingMode m = modes.at(i);
+            boolean coil = m == OperatingMode.COOLING || m == OperatingMode.HEATING
+                    || m == OperatingMode.SIMULTANEOUS;
+            if (coil) {
+                sinceCoil = 0;
+            } else if (m == OperatingMode.VENTILATION || m == OperatingMode.TRANSITION) {
+                sinceCoil++;
+            } else {
+                sinceCoil = Integer.MAX_VALUE / 2; // fan off: the coil has time to settle
+            }
+            out[i] = m == OperatingMode.VENTILATION && sinceCoil > recovery
+                    && shut(s.coolingValveCommand()[i]) && shut(s.heatingValveCommand()[i]);
+        }
+        // Steady state: the discharge temperature holds still from one sample to the next. A polled trend log sees
+        // the command only at the log instant; a two-position valve that cycles between instants shows as a
+        // discharge jumping by kelvins with the logged command at zero.
+        double[] d = s.dischargeAirTemperature();
+        boolean[] steady = out.clone();
+        for (int i = 0; i < n; i++) {
+            if (out[i]) {
+                boolean before = i > 0 && Math.abs(d[i] - d[i - 1]) <= STEADY_STEP_K;
+                boolean after = i + 1 < n && Math.abs(d[i + 1] - d[i]) <= STEADY_STEP_K;
+                steady[i] = before && after;
+            }
+        }
+        return steady;
+    }
+
+    /**
+     * A valve commanded fully shut. A command below the open threshold of the modes (5 %) still passes water on
+     * most valves (a 3 % command on an equal-percentage valve cools the air by kelvins), so fan-only analysis takes
+     * only samples whose valves are commanded shut (common practice, no source). A missing command is a missing
+     * valve.
+     */
+    static boolean shut(double command) {
+        return Double.isNaN(command) || command <= SHUT_PERCENT;
+    }
+
+    /**
+     * Largest change of the discharge temperature between consecutive samples in steady fan-only operation: the
+     * 1.1 K sensor tolerance (common practice, no source; APAR's steady-state filter, Schein et al. 2006).
+     */
+    static final double STEADY_STEP_K = 1.1;
+
+    /** Largest command that counts as fully shut, percent. */
+    static final double SHUT_PERCENT = 1.0;
+
+    /** The sides of a health feature that mean a fault: a calmer valve or a cooler zone is no fault. */
+    static int[] faultDirections(String feature) {
+        return switch (feature) {
+            case "valve_activity", "zone_error" -> new int[] {1};
+            default -> new int[] {1, -1};
+        };
+    }
+
+    /**
+     * Smallest day-to-day spread of a health feature: about the resolution a BAS logs it with (0.1 K for
+     * temperatures, logged at 0.1 degC or 0.1 degF; half a percent per sample for valve activity), so that a very
+     * steady unit does not turn a rounding step into a large deviation (common practice, no source).
+     */
+    static double floor(String feature) {
+        return feature.equals("valve_activity") ? 0.5 : 0.15;
+    }
+
+    /** Shifts, direction check and gate of every cluster against cluster 0 (the largest). */
     private static List<ClusterSummary> summarise(String mode, FeatureMatrix f, int[] labels, int count,
                                                   AnalysisSettings settings) {
         List<ClusterSummary> out = new ArrayList<>(count);
@@ -223,7 +612,10 @@ public final class UnitAnalysis {
                 if (!f.health()[j]) {
                     continue;
                 }
-                significant |= Math.abs(shifts.get(j).value()) >= gate(f.names().get(j), settings);
+                double gate = gate(f.names().get(j), settings);
+                for (int side : faultDirections(f.names().get(j))) {
+                    significant |= side * shifts.get(j).value() >= gate;
+                }
             }
             // A failed direction check counts only where normal operation passes it: otherwise the check itself
             // cannot tell (e.g. a unit whose valve barely moves).
@@ -291,7 +683,9 @@ public final class UnitAnalysis {
      * {@link #HUNTING_ACTIVITY} percent per sample on average: the unit hunts. Changes are counted on the modes
      * before settling, and a fan starting or stopping (to or from off) is not a change, so unoccupied fan cycling
      * never counts; the swing condition keeps a valve that settles near the open threshold (flipping between
-     * fan-only and cooling at low load) from counting (common practice, no source).
+     * fan-only and cooling at low load) from counting, and only a modulating valve's swing counts
+     * ({@link ValveActivity#twoPosition}): a two-position valve cycling on its thermostat is not hunting (common
+     * practice, no source).
      */
     private static boolean[] hunting(UnitSignals s, FanSignal fanSignal, AnalysisSettings settings) {
         ModeSplit raw = classify(s, fanSignal, settings.modeThresholds().withSettlingSamples(0));
@@ -305,8 +699,12 @@ public final class UnitAnalysis {
         boolean[] flags = ModeHunting.flags(changed, 4, 3);
         double[] cooling = ValveActivity.of(s.coolingValveCommand(), ModeFeatures.ACTIVITY_HALF_WINDOW);
         double[] heating = ValveActivity.of(s.heatingValveCommand(), ModeFeatures.ACTIVITY_HALF_WINDOW);
+        // Only a modulating valve can hunt: a two-position valve cycles on its thermostat by design.
+        boolean coolingModulates = !ValveActivity.twoPosition(s.coolingValveCommand());
+        boolean heatingModulates = !ValveActivity.twoPosition(s.heatingValveCommand());
         for (int i = 0; i < flags.length; i++) {
-            double swing = Math.max(Double.isNaN(cooling[i]) ? 0 : cooling[i], Double.isNaN(heating[i]) ? 0 : heating[i]);
+            double swing = Math.max(coolingModulates && !Double.isNaN(cooling[i]) ? cooling[i] : 0,
+                    heatingModulates && !Double.isNaN(heating[i]) ? heating[i] : 0);
             flags[i] &= swing >= HUNTING_ACTIVITY;
         }
         return flags;
@@ -318,50 +716,41 @@ public final class UnitAnalysis {
      * residual gate (two sensors, each within about 1.1 K) in ventilation, once in heating and cooling, where the
      * coil drives the difference well past it.
      */
-    private static List<Finding> balanceFindings(ModeSplit modes, UnitSignals s, double[] load,
-                                                 AnalysisSettings settings) {
+    private static List<ChannelEvidence> balanceEvidence(ModeSplit modes, Context cx) {
+        UnitSignals s = cx.s();
         if (!UnitSignals.present(s.dischargeAirTemperature()) || !UnitSignals.present(s.zoneAirTemperature())) {
             return List.of();
         }
-        List<Finding> out = new ArrayList<>();
-        double eps = settings.residualGate();
+        List<ChannelEvidence> out = new ArrayList<>();
+        double eps = cx.settings().residualGate();
         record Rule(OperatingMode mode, String kind, double tolerance) {
         }
         for (Rule rule : List.of(new Rule(OperatingMode.HEATING, "heating_without_heat", eps),
                 new Rule(OperatingMode.COOLING, "cooling_without_cooling", eps),
                 new Rule(OperatingMode.VENTILATION, "ventilation_offset", 2 * eps))) {
-            boolean[] in = modes.mask(rule.mode());
-            int n = 0;
-            for (boolean b : in) {
-                n += b ? 1 : 0;
+            boolean[] in = rule.mode() == OperatingMode.VENTILATION ? steadyVentilation(modes, s)
+                    : modes.mask(rule.mode());
+            int[] idx = indices(in);
+            double[] difference = new double[idx.length];
+            for (int k = 0; k < idx.length; k++) {
+                difference[k] = s.dischargeAirTemperature()[idx[k]] - s.zoneAirTemperature()[idx[k]];
             }
-            int[] idx = new int[n];
-            double[] difference = new double[n];
-            int k = 0;
-            for (int i = 0; i < in.length; i++) {
-                if (in[i]) {
-                    idx[k] = i;
-                    difference[k++] = s.dischargeAirTemperature()[i] - s.zoneAirTemperature()[i];
-                }
-            }
-            double[] smooth = org.tufa.analysis.features.RollingMedian.of(difference, 2);
+            double[] smooth = RollingMedian.of(difference, 2);
+            boolean[] eligible = new boolean[in.length];
             boolean[] failed = new boolean[in.length];
-            for (int j = 0; j < n; j++) {
-                double d = smooth[j];
+            for (int k = 0; k < idx.length; k++) {
+                double d = smooth[k];
                 if (Double.isNaN(d)) {
                     continue;
                 }
-                failed[idx[j]] = switch (rule.mode()) {
+                eligible[idx[k]] = true;
+                failed[idx[k]] = switch (rule.mode()) {
                     case HEATING -> BalanceRules.heatingWithoutHeat(0, d, rule.tolerance());
                     case COOLING -> BalanceRules.coolingWithoutCooling(0, d, rule.tolerance());
                     default -> BalanceRules.ventilationOffset(0, d, rule.tolerance());
                 };
             }
-            String mode = rule.mode().label();
-            for (IndexRange r : Intervals.runs(failed, settings.bridgeSamples(), settings.minFindingSamples())) {
-                out.add(finding(mode, rule.kind(), -1, r, s, load, List.of(),
-                        settings.causes().causes(rule.kind(), List.of(), null)));
-            }
+            out.add(cx.rule(rule.mode().label(), rule.kind(), eligible, failed, 0.5, 0));
         }
         return out;
     }
@@ -400,44 +789,35 @@ public final class UnitAnalysis {
                 || m == OperatingMode.SIMULTANEOUS;
     }
 
-    private static List<Finding> ruleFindings(boolean[] flagged, String kind, UnitSignals s, double[] load,
-                                              AnalysisSettings settings) {
-        List<Finding> out = new ArrayList<>();
-        for (IndexRange r : Intervals.runs(flagged, settings.bridgeSamples(), settings.minFindingSamples())) {
-            out.add(finding("any", kind, -1, r, s, load, List.of(), settings.causes().causes(kind, List.of(), null)));
+    /** Samples with the fan running: a running mode, or the transition sample after a change of mode. */
+    private static boolean[] running(ModeSplit modes) {
+        boolean[] out = new boolean[modes.codes().length];
+        for (int i = 0; i < out.length; i++) {
+            out[i] = running(modes.at(i)) || modes.at(i) == OperatingMode.TRANSITION;
         }
         return out;
     }
 
-    private static Finding finding(String mode, String kind, int cluster, IndexRange r, UnitSignals s,
-                                   double[] load, List<Shift> shifts, List<String> causes) {
-        Duration step = s.interval();
-        Instant start = s.time(r.start());
-        Instant end = s.time(r.end());
-        double hours = Duration.between(start, end).toMillis() / 3_600_000.0;
-        double kwh = 0;
-        int valid = 0;
-        for (int i = r.start(); i < r.end(); i++) {
-            if (!Double.isNaN(load[i])) {
-                kwh += Math.abs(load[i]) * step.toMillis() / 3_600_000.0;
-                valid++;
-            }
-        }
-        return new Finding(mode, kind, cluster, r, start, end, hours, valid == 0 ? Double.NaN : kwh, shifts, causes);
-    }
-
-    private static int[] indices(boolean[] keep, boolean[] inMode) {
+    private static int[] indices(boolean[] mask) {
         int count = 0;
-        for (int i = 0; i < keep.length; i++) {
-            count += keep[i] && inMode[i] ? 1 : 0;
+        for (boolean b : mask) {
+            count += b ? 1 : 0;
         }
         int[] idx = new int[count];
         int k = 0;
-        for (int i = 0; i < keep.length; i++) {
-            if (keep[i] && inMode[i]) {
+        for (int i = 0; i < mask.length; i++) {
+            if (mask[i]) {
                 idx[k++] = i;
             }
         }
         return idx;
+    }
+
+    private static int[] indices(boolean[] keep, boolean[] inMode) {
+        boolean[] both = new boolean[keep.length];
+        for (int i = 0; i < keep.length; i++) {
+            both[i] = keep[i] && inMode[i];
+        }
+        return indices(both);
     }
 }

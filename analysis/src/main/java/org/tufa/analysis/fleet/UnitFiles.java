@@ -18,10 +18,10 @@ import org.tufa.analysis.tables.SampleTable;
 
 /**
  * Writes one unit's files under {@code DIR/units/<folder>/}: {@code modes} (every sample's mode and band state),
- * {@code summary.json} (notes, clusters, shifts, PCA loadings), and per clustered mode {@code features},
- * {@code scores} and {@code reachability}. The per-sample tables are Parquet ({@code .parquet}) or CSV
- * ({@code .csv}), same columns either way ({@link SampleFormat}). Numbers are written at full double precision, so
- * the clustering can be re-run elsewhere and reproduces the ordering exactly.
+ * {@code summary.json} (notes, clusters, shifts, PCA loadings, findings; written once the fleet stage has decided),
+ * and per clustered mode {@code features}, {@code scores} and {@code reachability}. The per-sample tables are
+ * Parquet ({@code .parquet}) or CSV ({@code .csv}), same columns either way ({@link SampleFormat}). Numbers are
+ * written at full double precision, so the clustering can be re-run elsewhere and reproduces the ordering exactly.
  */
 public final class UnitFiles implements UnitSink {
 
@@ -51,15 +51,32 @@ public final class UnitFiles implements UnitSink {
         this.format = format;
     }
 
-    @Override
-    public void accept(UnitOutcome o, org.tufa.analysis.features.UnitSignals signals) {
+    private Path folder(UnitOutcome o) {
         Path dir = unitsDir.resolve(o.folder());
         if (!dir.normalize().startsWith(unitsDir.normalize())) {
             throw new IllegalStateException("unit folder escapes the output folder: " + o.folder());
         }
+        return dir;
+    }
+
+    /** summary.json, once the unit's findings are decided. */
+    @Override
+    public void decided(UnitOutcome o, org.tufa.analysis.features.UnitSignals signals, double[] loadKw) {
+        Path dir = folder(o);
         try {
             Files.createDirectories(dir);
             Files.writeString(dir.resolve("summary.json"), Json.unitSummary(o), StandardCharsets.UTF_8);
+        } catch (IOException e) {
+            throw new UncheckedIOException("cannot write " + dir + ": " + e.getMessage(), e);
+        }
+    }
+
+    /** The per-sample files, while the detailed result is in memory. */
+    @Override
+    public void analysed(UnitOutcome o, org.tufa.analysis.features.UnitSignals signals) {
+        Path dir = folder(o);
+        try {
+            Files.createDirectories(dir);
             if (o.result() == null) {
                 return;
             }

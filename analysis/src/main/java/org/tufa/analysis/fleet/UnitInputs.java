@@ -31,6 +31,11 @@ public record UnitInputs(String unit, String label, Map<String, PointRef> points
         for (String role : ROLES) {
             coverage.point(role).ifPresent(p -> points.put(role, p));
         }
+        if (!points.containsKey("zone_temperature_setpoint")) {
+            // A unit modelled with the cooling/heating pair: the zone error is judged in cooling only, against the
+            // cooling setpoint, so that one stands in for the single setpoint.
+            coverage.point("zone_cooling_temperature_setpoint").ifPresent(p -> points.put("zone_temperature_setpoint", p));
+        }
         Optional<PointRef> fan = Optional.ofNullable(points.get("fan_status"));
         FanSignal signal = fan.map(p -> isSpeed(p) ? FanSignal.SPEED : FanSignal.STATUS).orElse(FanSignal.NONE);
         double airflow = coverage.nominalAirflow().map(a -> a.cubicMetresPerSecond()).orElse(defaultAirflow);

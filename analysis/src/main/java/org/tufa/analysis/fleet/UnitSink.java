@@ -3,15 +3,26 @@ package org.tufa.analysis.fleet;
 import org.tufa.analysis.features.UnitSignals;
 
 /**
- * Receives each unit as soon as its analysis is done, from a worker thread, while its signals are still in
- * memory: the per-unit files and report pages are written here, so the fleet's data never has to be held at once.
- * Implementations write only below their own per-unit folder, so calls for different units may run in parallel.
+ * Receives each unit twice, from worker threads: once as soon as its analysis is done, while its signals and
+ * detailed result are in memory (the per-sample files and the charts are written then, so the fleet's data never
+ * has to be held at once), and once after the fleet stage has decided its findings (the files and pages that show
+ * them). Implementations write only below their own per-unit folder, so calls for different units may run in
+ * parallel.
  */
-@FunctionalInterface
 public interface UnitSink {
+
     /**
-     * @param outcome the unit's outcome
+     * Phase 1: the unit's outcome with its detailed result and candidate findings.
+     *
      * @param signals the unit's prepared signals, or null when the unit was not analysed
      */
-    void accept(UnitOutcome outcome, UnitSignals signals);
+    void analysed(UnitOutcome outcome, UnitSignals signals);
+
+    /**
+     * Phase 2: the unit's outcome with its decided findings and without the detailed result.
+     *
+     * @param signals the unit's signals again when it has findings to show (null otherwise)
+     * @param loadKw  its sensible load per sample, with {@code signals}
+     */
+    void decided(UnitOutcome outcome, UnitSignals signals, double[] loadKw);
 }

@@ -15,15 +15,20 @@ import org.tufa.analysis.features.UnitSignals;
 import org.tufa.analysis.findings.ClusterSummary;
 import org.tufa.analysis.findings.DirectionCheck;
 import org.tufa.analysis.findings.Finding;
+import java.util.concurrent.ConcurrentHashMap;
+import org.tufa.analysis.decision.FleetDecision;
 import org.tufa.analysis.fleet.ModeResult;
+import org.tufa.analysis.fleet.ModeSummary;
+import org.tufa.analysis.fleet.UnitSummary;
 import org.tufa.analysis.fleet.UnitAnalysis;
 import org.tufa.analysis.fleet.UnitOutcome;
 import org.tufa.analysis.fleet.UnitSink;
 import org.tufa.analysis.modes.OperatingMode;
 
 /**
- * Writes one report page per unit, {@code DIR/report/units/<folder>/index.html}, with its charts beside it, while
- * the unit's signals are still in memory (a {@link UnitSink}, called from the worker threads). Writes nothing
+ * Writes one report page per unit, {@code DIR/report/units/<folder>/index.html}, with its charts beside it (a
+ * {@link UnitSink}, called from the worker threads): the charts while the unit's detailed result is in memory,
+ * the page once its findings are decided. Writes nothing
  * outside the unit's own folder, so units render in parallel.
  */
 public final class UnitPages implements UnitSink {
@@ -41,6 +46,8 @@ public final class UnitPages implements UnitSink {
 
     private final Path unitsDir;
     private final ZoneId zone;
+    /** Per unit folder: the charts drawn in phase 1, by mode, until the page is written. */
+    private final Map<String, Map<String, ModeCharts.Drawn>> drawn = new ConcurrentHashMap<>();
 
     /** @param outDir the run's output directory; pages go below {@code outDir/report/units} */
     public UnitPages(Path outDir, ZoneId zone) {
@@ -49,22 +56,68 @@ public final class UnitPages implements UnitSink {
         this.zone = zone;
     }
 
-    @Override
-    public void accept(UnitOutcome o, UnitSignals signals) {
+    private Path folder(UnitOutcome o) {
         Path dir = unitsDir.resolve(o.folder());
         if (!dir.normalize().startsWith(unitsDir.normalize())) {
             throw new IllegalStateException("unit folder escapes the report folder: " + o.folder());
         }
+        return dir;
+    }
+
+    /**
+     * Phase 1: the charts that need the detailed result (reachability plots, biplots) and the signal strips
+     * without findings (redrawn with them in phase 2 for units that have findings).
+     */
+    @Override
+    public void analysed(UnitOutcome o, UnitSignals signals) {
+        UnitAnalysis.Result r = o.result();
+        if (r == null) {
+            return;
+        }
+        Path dir = folder(o);
         try {
             Files.createDirectories(dir);
-            Files.writeString(dir.resolve("index.html"), page(o, signals, dir), StandardCharsets.UTF_8);
+        } catch (IOException e) {
+            throw new UncheckedIOException("cannot write " + dir + ": " + e.getMessage(), e);
+        }
+        String name = name(o);
+        Map<String, ModeCharts.Drawn> charts = new java.util.TreeMap<>();
+        for (ModeResult m : r.modeResults()) {
+            if (m.analyzed()) {
+                charts.put(m.mode(), ModeCharts.draw(m, name, dir));
+            }
+        }
+        drawn.put(o.folder(), charts);
+        if (signals != null) {
+            Charts.writePng(strips(name, signals, r.loadKw(), r.interval(), List.of()), STRIP_WIDTH, STRIP_HEIGHT,
+                    dir.resolve("strips.png"));
+        }
+    }
+
+    /** Phase 2: the page, with the decided findings (and the strips redrawn with them shaded). */
+    @Override
+    public void decided(UnitOutcome o, UnitSignals signals, double[] loadKw) {
+        Path dir = folder(o);
+        try {
+            Files.createDirectories(dir);
+            if (signals != null && o.summary() != null) {
+                Charts.writePng(strips(name(o), signals, loadKw, o.summary().interval(), o.findings()), STRIP_WIDTH,
+                        STRIP_HEIGHT, dir.resolve("strips.png"));
+            }
+            Map<String, ModeCharts.Drawn> charts = drawn.remove(o.folder());
+            Files.writeString(dir.resolve("index.html"), page(o, charts == null ? Map.of() : charts, dir),
+                    StandardCharsets.UTF_8);
         } catch (IOException e) {
             throw new UncheckedIOException("cannot write " + dir + ": " + e.getMessage(), e);
         }
     }
 
-    private String page(UnitOutcome o, UnitSignals signals, Path dir) {
-        String name = o.label().isEmpty() ? o.unit() : o.label();
+    private static String name(UnitOutcome o) {
+        return o.label().isEmpty() ? o.unit() : o.label();
+    }
+
+    private String page(UnitOutcome o, Map<String, ModeCharts.Drawn> charts, Path dir) {
+        String name = name(o);
         StringBuilder b = new StringBuilder(16_384);
         Html.open(b, name + " - tufa unit report", "Unit " + name);
         b.append("<p><a href=\"../../index.html\">&larr; Fleet report</a></p>\n");
@@ -75,11 +128,16 @@ public final class UnitPages implements UnitSink {
             b.append(" &mdash; ").append(Html.esc(o.reason()));
         }
         b.append(".</p>\n");
-        UnitAnalysis.Result r = o.result();
+        UnitSummary r = o.summary();
         if (r != null) {
             b.append("<p>Fault hours ").append(Html.fixed(o.faultHours(), 1)).append(" h, estimated sensible "
                     + "energy moved during findings ").append(Html.fixed(o.faultEnergyKwh(), 0)).append(" kWh, ")
-                    .append(o.findings().size()).append(" finding(s).</p>\n");
+                    .append(o.findings().size()).append(" finding(s)");
+            if (o.belowConfidence() > 0) {
+                b.append(" (and ").append(o.belowConfidence()).append(" candidate(s) below the run's minimum "
+                        + "confidence, not listed)");
+            }
+            b.append(".</p>\n");
         }
         b.append("<h2>Notes</h2>\n");
         if (o.notes().isEmpty()) {
@@ -94,38 +152,40 @@ public final class UnitPages implements UnitSink {
             return b.toString();
         }
         modeCounts(b, r);
-        if (signals != null) {
-            Charts.writePng(strips(name, signals, r, o.findings()), STRIP_WIDTH, STRIP_HEIGHT,
-                    dir.resolve("strips.png"));
-            int factor = stripFactor(r.interval(), signals.size());
+        if (Files.exists(dir.resolve("strips.png"))) {
+            int factor = stripFactor(r.interval(), r.samples());
             b.append("<h2>Signals over the period</h2>\n<figure><img src=\"strips.png\" width=\"").append(STRIP_WIDTH)
                     .append("\" height=\"").append(STRIP_HEIGHT).append("\" alt=\"Time series of ")
                     .append(Html.esc(name)).append(": temperatures, valve commands, fan and load, with findings "
                             + "shaded\">\n<figcaption>Means over blocks of ")
                     .append(describe(r.interval().multipliedBy(factor)))
                     .append(" (display only; the analysis uses every sample), plotted at each block's start. "
-                            + "Shaded: findings (numbered F1, F2, ... as in the findings table below when there are at most eight; vermillion = fault cluster, "
-                            + "yellow = sustained load outside the band, reddish purple = simultaneous heating "
-                            + "and cooling). Fan: share of the time running, in %. Load: sensible load estimated "
-                            + "from airflow and the zone-to-discharge temperature difference.</figcaption>"
-                            + "</figure>\n");
+                            + "Shaded: findings (numbered F1, F2, ... as in the findings table below when there are "
+                            + "at most eight; vermillion = fault cluster, yellow = differs from its peers, "
+                            + "reddish purple = a rule's finding). Fan: share of the time running, in %. Load: "
+                            + "sensible load estimated from airflow and the zone-to-discharge temperature "
+                            + "difference.</figcaption></figure>\n");
         }
         findings(b, o);
-        for (ModeResult m : r.modeResults()) {
-            mode(b, m, r, dir, name);
+        for (ModeSummary m : r.modes()) {
+            mode(b, m, charts.get(m.mode()));
         }
         Html.close(b);
         return b.toString();
     }
 
-    private static void modeCounts(StringBuilder b, UnitAnalysis.Result r) {
+    private static void modeCounts(StringBuilder b, UnitSummary r) {
         b.append("<h2>Samples per operating mode</h2>\n<table>\n<thead><tr>");
-        Map<OperatingMode, Integer> counts = r.modes().countsByMode();
-        counts.keySet().forEach(m -> b.append("<th class=\"num\">").append(m.label()).append("</th>"));
+        int[] counts = r.modeCounts();
+        for (OperatingMode m : OperatingMode.values()) {
+            b.append("<th class=\"num\">").append(m.label()).append("</th>");
+        }
         b.append("</tr></thead>\n<tbody><tr>");
-        counts.values().forEach(c -> b.append("<td class=\"num\">").append(c).append("</td>"));
+        for (OperatingMode m : OperatingMode.values()) {
+            b.append("<td class=\"num\">").append(counts[m.code()]).append("</td>");
+        }
         b.append("</tr></tbody>\n</table>\n");
-        if (r.modes().fanInferred()) {
+        if (r.fanInferred()) {
             b.append("<p class=\"small\">No fan signal: the fan was taken as running whenever a valve was open."
                     + "</p>\n");
         }
@@ -137,18 +197,21 @@ public final class UnitPages implements UnitSink {
             b.append("<p>No findings.</p>\n");
             return;
         }
-        b.append("<table>\n<thead><tr><th>#</th><th>mode</th><th>kind</th><th>cluster</th><th>start</th>"
-                + "<th>end</th><th class=\"num\">hours</th><th class=\"num\">energy (kWh)</th>"
-                + "<th>shift from normal</th><th>candidate causes (verify on site)</th></tr></thead>\n<tbody>\n");
+        b.append("<table>\n<thead><tr><th>#</th><th class=\"num\">confidence</th><th>mode</th><th>kind</th>"
+                + "<th>cluster</th><th>start</th><th>end</th><th class=\"num\">hours</th>"
+                + "<th class=\"num\">energy (kWh)</th><th>evidence</th><th>shift from normal</th>"
+                + "<th>candidate causes (verify on site)</th></tr></thead>\n<tbody>\n");
         int k = 1;
         for (Finding f : o.findings()) {
-            b.append("<tr><td>F").append(k++).append("</td><td>").append(Html.esc(f.mode())).append("</td><td>")
+            b.append("<tr><td>F").append(k++).append("</td><td class=\"num\">").append(Html.fixed(f.confidence(), 3))
+                    .append("</td><td>").append(Html.esc(f.mode())).append("</td><td>")
                     .append(Html.esc(f.kind())).append("</td><td>")
                     .append(f.cluster() < 0 ? "" : "C" + f.cluster()).append("</td><td class=\"t\">")
                     .append(Times.local(f.start(), zone)).append("</td><td class=\"t\">")
                     .append(Times.local(f.end(), zone))
                     .append("</td><td class=\"num\">").append(Html.fixed(f.hours(), 1))
                     .append("</td><td class=\"num\">").append(Html.fixed(f.energyKwh(), 1)).append("</td><td>")
+                    .append(Html.esc(f.evidence())).append("</td><td>")
                     .append(Html.shifts(f.shifts())).append("</td><td>");
             list(b, f.causes());
             b.append("</td></tr>\n");
@@ -165,7 +228,7 @@ public final class UnitPages implements UnitSink {
         b.append("</ul>");
     }
 
-    private static void mode(StringBuilder b, ModeResult m, UnitAnalysis.Result r, Path dir, String name) {
+    private static void mode(StringBuilder b, ModeSummary m, ModeCharts.Drawn drawn) {
         b.append("<h2>Mode: ").append(Html.esc(m.mode())).append("</h2>\n");
         if (!m.analyzed()) {
             b.append("<p>Not clustered: ").append(Html.esc(m.reason())).append(" (").append(m.modeSamples())
@@ -173,14 +236,20 @@ public final class UnitPages implements UnitSink {
             return;
         }
         b.append("<p>").append(m.modeSamples()).append(" samples in ").append(Html.esc(m.mode())).append(", ")
-                .append(m.features().size()).append(" clustered");
+                .append(m.samplesClustered()).append(" clustered");
         if (m.band() != null) {
             b.append(" (inside the load band)");
         }
-        b.append("; PCA kept ").append(m.pca().componentCount()).append(" component(s) explaining ")
-                .append(Html.fixed(100 * m.pca().explainedVariance(), 0)).append(" % of the variance.</p>\n");
+        b.append("; PCA kept ").append(m.pca().components()).append(" component(s) explaining ")
+                .append(Html.fixed(100 * m.pca().explainedVariance(), 0)).append(" % of the variance. The normal "
+                        + "reference (the largest cluster and the clusters that agree with it) holds ")
+                .append(Html.fixed(100 * m.referenceShare(), 0)).append(" % of the clustered samples")
+                .append(m.dominantRegime() ? "." : ": no dominant regime, so no cluster findings in this mode.")
+                .append("</p>\n");
         clusterTable(b, m);
-        ModeCharts.Drawn drawn = ModeCharts.draw(m, name, dir);
+        if (drawn == null) {
+            return;
+        }
         b.append("<figure><img src=\"").append(drawn.reachabilityFile()).append("\" width=\"").append(REACH_WIDTH)
                 .append("\" height=\"").append(REACH_HEIGHT).append("\" alt=\"Reachability plot, ")
                 .append(Html.esc(m.mode())).append("\">\n<figcaption>OPTICS reachability plot (Ankerst, Breunig, "
@@ -196,13 +265,13 @@ public final class UnitPages implements UnitSink {
                 .append("</figcaption></figure>\n");
     }
 
-    private static void clusterTable(StringBuilder b, ModeResult m) {
+    private static void clusterTable(StringBuilder b, ModeSummary m) {
         b.append("<table>\n<thead><tr><th>cluster</th><th class=\"num\">samples</th><th>judged</th>"
                 + "<th>direction check</th><th>shift from normal</th><th>candidate causes</th></tr></thead>\n"
                 + "<tbody>\n");
         for (ClusterSummary c : m.clusters()) {
             String judged = c.label() == 0 ? "normal (largest)" : c.candidateFault() ? "candidate fault"
-                    : "other regime of normal operation";
+                    : "normal reference: another regime of normal operation";
             b.append("<tr><td><span class=\"swatch\" style=\"background:")
                     .append(Palette.hex(Palette.cluster(c.label()))).append("\"></span>C").append(c.label())
                     .append("</td><td class=\"num\">").append(c.size()).append("</td><td>").append(judged)
@@ -211,10 +280,7 @@ public final class UnitPages implements UnitSink {
             list(b, c.causes());
             b.append("</td></tr>\n");
         }
-        int noise = 0;
-        for (int l : m.labels()) {
-            noise += l < 0 ? 1 : 0;
-        }
+        int noise = m.noise();
         b.append("<tr><td><span class=\"swatch\" style=\"background:").append(Palette.hex(Palette.NOISE_GREY))
                 .append("\"></span>noise</td><td class=\"num\">").append(noise)
                 .append("</td><td>ignored</td><td></td><td></td><td></td></tr>\n</tbody>\n</table>\n");
@@ -246,12 +312,13 @@ public final class UnitPages implements UnitSink {
         return minutes + " minutes";
     }
 
-    private org.jfree.chart.JFreeChart strips(String name, UnitSignals s, UnitAnalysis.Result r, List<Finding> findings) {
-        int factor = stripFactor(r.interval(), s.size());
+    private org.jfree.chart.JFreeChart strips(String name, UnitSignals s, double[] loadKw, Duration interval,
+                                              List<Finding> findings) {
+        int factor = stripFactor(interval, s.size());
         int blocks = (s.size() + factor - 1) / factor;
         long[] times = new long[blocks];
         for (int i = 0; i < blocks; i++) {
-            times[i] = r.time(i * factor).toEpochMilli();
+            times[i] = s.time(i * factor).toEpochMilli();
         }
         List<Charts.Strip> strips = new ArrayList<>();
         List<Charts.Line> temps = new ArrayList<>();
@@ -269,14 +336,14 @@ public final class UnitPages implements UnitSink {
         add(commands, "fan running (% of time)", fan, factor, Palette.BLUISH_GREEN, true);
         strips.add(new Charts.Strip("command (%)", commands));
         List<Charts.Line> load = new ArrayList<>();
-        add(load, "sensible load (kW)", r.loadKw(), factor, Palette.REDDISH_PURPLE, false);
+        add(load, "sensible load (kW)", loadKw, factor, Palette.REDDISH_PURPLE, false);
         strips.add(new Charts.Strip("load (kW)", load));
         strips.removeIf(st -> st.lines().isEmpty());
         List<Charts.Shade> shades = new ArrayList<>();
         int k = 1;
         for (Finding f : findings) {
             Color c = f.kind().equals("fault_cluster") ? Palette.VERMILLION
-                    : f.kind().startsWith("out_of_band") ? Palette.YELLOW : Palette.REDDISH_PURPLE;
+                    : f.kind().equals(FleetDecision.PEER_KIND) ? Palette.YELLOW : Palette.REDDISH_PURPLE;
             shades.add(new Charts.Shade(f.start().toEpochMilli(), f.end().toEpochMilli(), c,
                     findings.size() <= 8 ? "F" + k : null));
             k++;

@@ -17,8 +17,9 @@ import java.util.Locale;
  * series in column order, each in time order) or the wide layout ({@code timestamp,<series id>,...}, one row per
  * sample), and the ground truth {@code truth.csv} ({@code unit,fault,start,end,severity}). Timestamps are ISO 8601
  * with the local offset of the season's zone, e.g. {@code 2031-06-01T00:15:00-04:00}. Series order: building roles
- * in {@link SimulationRoles#BUILDING_ROLES} order, then units in plan order, each in
- * {@link SimulationRoles#UNIT_ROLES} order; roles without a target are skipped.
+ * in {@link SimulationRoles#BUILDING_ROLES} order, then fan coil units in plan order, each in
+ * {@link SimulationRoles#UNIT_ROLES} order, then the air handler's roles ({@link SimulationRoles#AHU_ROLES}), then
+ * VAV boxes in plan order, each in {@link SimulationRoles#VAV_ROLES} order; roles without a target are skipped.
  */
 public final class DemoTrends {
     public static final String TRENDS_FILE = "trends.csv";
@@ -147,6 +148,24 @@ public final class DemoTrends {
             UnitSeriesTargets targets = result.plan().units().get(i);
             UnitTrace trace = result.units().get(i);
             for (String role : SimulationRoles.UNIT_ROLES) {
+                SeriesTarget t = targets.targets().get(role);
+                if (t != null) {
+                    columns.add(new Column(t.seriesId(), trace.series(role), ValueWriter.forTarget(role, t)));
+                }
+            }
+        }
+        if (!result.vavUnits().isEmpty()) {
+            for (String role : SimulationRoles.AHU_ROLES) {
+                SeriesTarget t = result.plan().buildingTargets().get(role);
+                if (t != null) {
+                    columns.add(new Column(t.seriesId(), result.buildingSeries(role), ValueWriter.forTarget(role, t)));
+                }
+            }
+        }
+        for (int i = 0; i < result.vavUnits().size(); i++) {
+            VavSeriesTargets targets = result.plan().vavUnits().get(i);
+            VavTrace trace = result.vavUnits().get(i);
+            for (String role : SimulationRoles.VAV_ROLES) {
                 SeriesTarget t = targets.targets().get(role);
                 if (t != null) {
                     columns.add(new Column(t.seriesId(), trace.series(role), ValueWriter.forTarget(role, t)));

@@ -5,12 +5,9 @@ import java.util.Optional;
 /**
  * One four-pipe fan coil unit and its zone, simulated at one-minute steps and sampled every 15 minutes.
  *
- * <p>Zone: two lumped capacitances (zone air with furnishings; building mass), explicit Euler at 60 s (the step is
- * under a tenth of the air node's time constant). The air node exchanges heat with outdoors through the envelope
- * conductance, with the mass node, and with the unit's discharge air; internal gains follow the occupancy schedule
- * (half convective to the air, half to the mass) and solar gains through the glazing of the zone's orientation
- * (40 % to the air, 60 % to the mass). This is the usual resistance-capacitance zone model (e.g. ISO 13790's
- * simple hourly method uses the same structure with five resistances and one capacitance).
+ * <p>Zone: {@link TwoNodeZone} (two lumped capacitances, explicit Euler at 60 s, the step under a tenth of the air
+ * node's time constant), with internal gains following the occupancy schedule and solar gains through the glazing
+ * of the zone's orientation.
  *
  * <p>Unit: recirculating room air through a cooling coil, then a heating coil ({@link CoilModel}); single-speed fan,
  * always on in occupied hours, cycling on the unoccupied setpoints (16/29 C) otherwise (on outside the band,
@@ -107,8 +104,8 @@ final class FanCoilSimulation {
         double datAlphaFlow = 1 - Math.exp(-1.0);
         double datAlphaStill = 1 - Math.exp(-1.0 / 10.0);
 
-        double tAir = 24.0;
-        double tMass = 24.0;
+        TwoNodeZone zoneModel = new TwoNodeZone(24.0);
+        double tAir = zoneModel.air();
         double zoneSensor = tAir;
         double datSensor = tAir;
         double coolPos = 0;
@@ -229,16 +226,11 @@ final class FanCoilSimulation {
             datSensor += (datTarget - datSensor) * (airFraction >= 0.3 ? datAlphaFlow : datAlphaStill);
 
             // Zone heat balance.
-            double internalW = occupied
-                    ? peakInternalW * occupiedProfile(minuteOfDay, p) * dayFactor[site.localDay()[m]]
-                    : 0.15 * peakInternalW;
-            double solarW = solarAperture * facade[m];
-            double toMassW = p.massConductanceWPerK() * (tAir - tMass);
-            double airNet = p.envelopeUaWPerK() * (outdoor[m] - tAir) - toMassW + supplyToZoneW
-                    + 0.5 * internalW + 0.4 * solarW;
-            double massNet = toMassW + 0.5 * internalW + 0.6 * solarW;
-            tAir += DT * airNet / p.airCapacitanceJPerK();
-            tMass += DT * massNet / p.massCapacitanceJPerK();
+            double internalW = TwoNodeZone.internalGainsW(occupied, peakInternalW, minuteOfDay,
+                    p.occupiedStartMinute(), p.occupiedEndMinute(), dayFactor[site.localDay()[m]]);
+            zoneModel.step(DT, p.envelopeUaWPerK(), p.massConductanceWPerK(), p.airCapacitanceJPerK(),
+                    p.massCapacitanceJPerK(), outdoor[m], supplyToZoneW, internalW, solarAperture * facade[m]);
+            tAir = zoneModel.air();
 
             // Sample every 15 minutes after the warm-up: the instantaneous values, as a polled trend log holds them.
             int k = m - warmUp;
@@ -294,10 +286,13 @@ final class FanCoilSimulation {
         return table[i] + (table[i + 1] - table[i]) * (x - i);
     }
 
-    /** Share of peak internal gains in occupied hours: ramp-up in the first 90 min, lunch dip, wind-down. */
-    private static double occupiedProfile(int minuteOfDay, UnitParameters p) {
-        double sinceStart = minuteOfDay - p.occupiedStartMinute();
-        double untilEnd = p.occupiedEndMinute() - minuteOfDay;
+    /**
+     * Share of peak internal gains in occupied hours from {@code startMinute} to {@code endMinute} (local minutes of
+     * day): ramp-up in the first 90 min, lunch dip, wind-down.
+     */
+    static double occupiedProfile(int minuteOfDay, int startMinute, int endMinute) {
+        double sinceStart = minuteOfDay - startMinute;
+        double untilEnd = endMinute - minuteOfDay;
         double f = sinceStart < 90 ? 0.6 + 0.4 * sinceStart / 90.0 : 1.0;
         if (minuteOfDay >= 720 && minuteOfDay < 780) {
             f = Math.min(f, 0.85);
@@ -308,7 +303,7 @@ final class FanCoilSimulation {
         return f;
     }
 
-    private static double spike(SeededRandom rng) {
+    static double spike(SeededRandom rng) {
         if (rng.nextDouble() >= SPIKE_PROBABILITY) {
             return 0.0;
         }
@@ -316,11 +311,11 @@ final class FanCoilSimulation {
         return rng.nextDouble() < 0.5 ? -size : size;
     }
 
-    private static double towards(double from, double to, double maxStep) {
+    static double towards(double from, double to, double maxStep) {
         return from + clamp(to - from, -maxStep, maxStep);
     }
 
-    private static double clamp(double v, double lo, double hi) {
+    static double clamp(double v, double lo, double hi) {
         return Math.max(lo, Math.min(hi, v));
     }
 }

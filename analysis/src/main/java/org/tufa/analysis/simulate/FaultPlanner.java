@@ -5,6 +5,7 @@ import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
+import java.util.Set;
 
 /**
  * Chooses, deterministically from a seed, which units get a fault and when: a share of the units (at least one
@@ -30,6 +31,19 @@ public final class FaultPlanner {
      * @return the episodes, sorted by unit IRI
      */
     public static List<FaultEpisode> plan(List<String> unitIris, Season season, long seed, double faultyShare) {
+        return plan(unitIris, new java.util.HashSet<>(unitIris), FaultType.Kind.FAN_COIL, season, seed, faultyShare);
+    }
+
+    /**
+     * Plans the episodes of one kind of unit. Each kind draws from its own stream (the fan coil plan is the one
+     * {@link #plan(List, Season, long, double)} always made), so adding boxes of another kind leaves it unchanged.
+     *
+     * @param unitIris all units of the kind (any order: they are sorted first)
+     * @param reheatUnits the units that have a reheat coil (only they get reheat faults)
+     * @param kind the kind of unit: its fault types are dealt round-robin
+     */
+    public static List<FaultEpisode> plan(List<String> unitIris, Set<String> reheatUnits, FaultType.Kind kind,
+            Season season, long seed, double faultyShare) {
         if (!(faultyShare >= 0 && faultyShare <= 1)) {
             throw new IllegalArgumentException("faulty share must be in [0, 1]");
         }
@@ -38,7 +52,8 @@ public final class FaultPlanner {
             throw new IllegalArgumentException("season too short to plan faults (" + days + " days; need 15)");
         }
         List<String> units = new ArrayList<>(unitIris.stream().distinct().sorted().toList());
-        SeededRandom rng = SeededRandom.forStream(seed, "fault-plan");
+        SeededRandom rng = SeededRandom.forStream(seed, kind == FaultType.Kind.FAN_COIL ? "fault-plan"
+                : "fault-plan|" + kind.name().toLowerCase(java.util.Locale.ROOT));
         // Fisher-Yates shuffle with our generator, so the choice is fixed by the seed alone.
         for (int i = units.size() - 1; i > 0; i--) {
             int j = rng.nextInt(i + 1);
@@ -46,14 +61,27 @@ public final class FaultPlanner {
             units.set(i, units.get(j));
             units.set(j, tmp);
         }
+        List<FaultType> types = FaultType.ofKind(kind);
         int count = (int) Math.round(faultyShare * units.size());
         if (faultyShare > 0) {
-            count = Math.max(count, Math.min(units.size(), FaultType.values().length));
+            count = Math.max(count, Math.min(units.size(), types.size()));
         }
-        FaultType[] types = FaultType.values();
         List<FaultEpisode> episodes = new ArrayList<>();
+        Set<String> taken = new java.util.HashSet<>();
         for (int k = 0; k < count; k++) {
-            FaultType type = types[k % types.length];
+            FaultType type = types.get(k % types.size());
+            // The next unit in shuffled order that can have this fault (reheat faults need a reheat coil).
+            String unit = null;
+            for (String u : units) {
+                if (!taken.contains(u) && (!type.needsReheat() || reheatUnits.contains(u))) {
+                    unit = u;
+                    break;
+                }
+            }
+            if (unit == null) {
+                continue;
+            }
+            taken.add(unit);
             long maxLength = Math.min(21, days - 9);
             long length = 5 + rng.nextInt((int) (maxLength - 5 + 1));
             long latestStartOffset = days - 2 - length;
@@ -64,7 +92,7 @@ public final class FaultPlanner {
             Instant end = startDay.plusDays(length).atTime(startHour, 0).atZone(season.zone()).toInstant();
             double severity = rng.uniform(type.demoSeverityMin(), type.demoSeverityMax());
             severity = Math.round(severity * 1000) / 1000.0; // as written to truth.csv, so the file is the truth
-            episodes.add(new FaultEpisode(units.get(k), type, start, end, severity));
+            episodes.add(new FaultEpisode(unit, type, start, end, severity));
         }
         episodes.sort(Comparator.comparing(FaultEpisode::unitIri));
         return List.copyOf(episodes);

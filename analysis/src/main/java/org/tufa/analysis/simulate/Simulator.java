@@ -32,7 +32,26 @@ public final class Simulator {
             Optional<FaultEpisode> fault = plan.faults().stream().filter(f -> f.unitIri().equals(iri)).findFirst();
             return FanCoilSimulation.run(iri, UnitParameters.draw(plan.seed(), iri), site, fault, plan.seed());
         }).toList();
-        return new SimulationResult(plan, List.copyOf(timestamps), oat, chw, hw, units);
+        if (plan.vavUnits().isEmpty()) {
+            return new SimulationResult(plan, List.copyOf(timestamps), oat, chw, hw, units);
+        }
+        // The VAV wing draws from streams of its own (air handler, boxes), so the fan coil units above are the
+        // same whether or not it is simulated.
+        AirHandlerConditions ahu = AirHandlerConditions.generate(site, plan.seed());
+        SeededRandom ahuNoise = SeededRandom.forStream(plan.seed(), "air-handler-noise");
+        float[] sat = sampleWithNoise(ahu.supplyAirC(), site, samples, ahuNoise);
+        float[] staticPa = new float[samples];
+        for (int s = 0; s < samples; s++) {
+            staticPa[s] = (float) (ahu.supplyStaticPa()[site.warmUpMinutes() + 15 * s] + 1.5 * ahuNoise.gaussian());
+        }
+        List<VavTrace> boxes = IntStream.range(0, plan.vavUnits().size()).parallel().mapToObj(i -> {
+            VavSeriesTargets box = plan.vavUnits().get(i);
+            Optional<FaultEpisode> fault = plan.faults().stream().filter(f -> f.unitIri().equals(box.unitIri()))
+                    .findFirst();
+            return VavSimulation.run(box.unitIri(), VavParameters.draw(plan.seed(), box.unitIri(), box.reheat()),
+                    site, ahu, fault, plan.seed());
+        }).toList();
+        return new SimulationResult(plan, List.copyOf(timestamps), oat, chw, hw, units, sat, staticPa, boxes);
     }
 
     private static float[] sampleWithNoise(double[] perMinute, SiteConditions site, int samples,

@@ -5,7 +5,9 @@ import org.tufa.common.InputException;
 /**
  * Converts an SI value of a role to its target's unit and formats it with fixed precision, without locale
  * (decimal point, no grouping), trailing zeros dropped: temperatures 3 decimals, percent 2, fractions 4, binary 0/1.
- * Temperature conversions: F = C * 9/5 + 32, K = C + 273.15 (NIST SP 811, appendix B).
+ * Temperature conversions: F = C * 9/5 + 32, K = C + 273.15 (NIST SP 811, appendix B). Airflow in L/s (1 decimal),
+ * 1 ft3/min = 0.471 947 4 L/s, 1 m3/s = 1000 L/s; static pressure in Pa (1 decimal), 1 inch of water
+ * (conventional) = 249.0889 Pa (NIST SP 811 (2008), appendix B.8).
  */
 public record ValueWriter(double scale, double offset, int decimals) {
 
@@ -27,6 +29,21 @@ public record ValueWriter(double scale, double offset, int decimals) {
                     case "UNITLESS", "FRACTION", "NUM", "ONE" -> new ValueWriter(0.01, 0, 4);
                     default -> throw new InputException("series " + target.seriesId() + " (" + role + "): unit "
                             + target.qudtUnitIri() + " does not fit a valve command; use PERCENT or UNITLESS");
+                };
+            case AIRFLOW:
+                return switch (unit) {
+                    case "", "L-PER-SEC" -> new ValueWriter(1, 0, 1);
+                    case "FT3-PER-MIN" -> new ValueWriter(1 / 0.4719474, 0, 1);
+                    case "M3-PER-SEC" -> new ValueWriter(0.001, 0, 5);
+                    default -> throw new InputException("series " + target.seriesId() + " (" + role + "): unit "
+                            + target.qudtUnitIri() + " is not an airflow unit; use L-PER-SEC, FT3-PER-MIN or M3-PER-SEC");
+                };
+            case PRESSURE:
+                return switch (unit) {
+                    case "", "PA" -> new ValueWriter(1, 0, 1);
+                    case "IN_H2O" -> new ValueWriter(1 / 249.0889, 0, 4);
+                    default -> throw new InputException("series " + target.seriesId() + " (" + role + "): unit "
+                            + target.qudtUnitIri() + " is not a pressure unit; use PA or IN_H2O");
                 };
             case BINARY:
                 return switch (unit) {

@@ -52,7 +52,7 @@ final class CsvSampleTable implements SampleTable {
     @Override
     public void real(double value) throws IOException {
         next();
-        out.write(number(value));
+        out.write(SampleTable.csvNumber(value));
     }
 
     @Override
@@ -70,16 +70,5 @@ final class CsvSampleTable implements SampleTable {
     @Override
     public void close() throws IOException {
         out.close();
-    }
-
-    /** A decimal that parses back to the same double (Double.toString); inf/-inf/nan as numpy and pandas read them. */
-    static String number(double v) {
-        if (Double.isNaN(v)) {
-            return "nan";
-        }
-        if (Double.isInfinite(v)) {
-            return v > 0 ? "inf" : "-inf";
-        }
-        return Double.toString(v);
     }
 }

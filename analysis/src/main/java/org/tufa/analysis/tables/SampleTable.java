@@ -22,6 +22,20 @@ public interface SampleTable extends AutoCloseable {
                 : new CsvSampleTable(file, columns);
     }
 
+    /**
+     * A double as tufa's CSV files write it: a decimal that parses back to the same double (Double.toString);
+     * inf, -inf and nan as numpy and pandas read them.
+     */
+    static String csvNumber(double v) {
+        if (Double.isNaN(v)) {
+            return "nan";
+        }
+        if (Double.isInfinite(v)) {
+            return v > 0 ? "inf" : "-inf";
+        }
+        return Double.toString(v);
+    }
+
     /** A TIME value: the instant in epoch seconds, and its ISO-8601 text with offset (what CSV writes). */
     void time(long epochSecond, String text) throws IOException;
 

@@ -23,12 +23,17 @@ import org.tufa.vocabulary.Namespaces;
 class CoverageTest {
     private static final String BLDG = "https://quillmoor.example.org/building#";
 
-    /** Per unit, per role of fcu-modes (column order): the point's local name, '-' missing, ambiguous(candidates). */
+    /**
+     * Per unit, per role of fcu-modes (column order): the point's local name, '-' missing, ambiguous(candidates).
+     * Asked for by name, fcu-modes does not apply to the reheat box, which is listed without a profile.
+     */
     static final String EXPECTED = """
             FCU_101 Fan_Coil_Unit cooling=true heating=true
               discharge_air_temperature=FCU101_DAT@unit
               zone_air_temperature=FCU101_ZNT@unit
               zone_temperature_setpoint=FCU101_ZNTSP@unit
+              zone_cooling_temperature_setpoint=-
+              zone_heating_temperature_setpoint=-
               cooling_valve_command=FCU101_CHWV_Cmd@part
               heating_valve_command=FCU101_HWV_Cmd@part
               fan_status=FCU101_FanSts@unit
@@ -40,6 +45,8 @@ class CoverageTest {
               discharge_air_temperature=FCU102_SAT@unit
               zone_air_temperature=Z102_ZNT@zone
               zone_temperature_setpoint=FCU102_SP@unit
+              zone_cooling_temperature_setpoint=-
+              zone_heating_temperature_setpoint=-
               cooling_valve_command=FCU102_CLG@unit
               heating_valve_command=FCU102_HTG@unit
               fan_status=FCU102_Fan_OnOff@part
@@ -51,6 +58,8 @@ class CoverageTest {
               discharge_air_temperature=-
               zone_air_temperature=R103a_ZNT@zone
               zone_temperature_setpoint=-
+              zone_cooling_temperature_setpoint=-
+              zone_heating_temperature_setpoint=-
               cooling_valve_command=FCU103_CV_Cmd@part
               heating_valve_command=-
               fan_status=FCU103_FanSpd@unit
@@ -62,6 +71,8 @@ class CoverageTest {
               discharge_air_temperature=FCU104_DAT@unit
               zone_air_temperature=FCU104_ZNT@unit
               zone_temperature_setpoint=-
+              zone_cooling_temperature_setpoint=-
+              zone_heating_temperature_setpoint=-
               cooling_valve_command=-
               heating_valve_command=-
               fan_status=-
@@ -73,6 +84,8 @@ class CoverageTest {
               discharge_air_temperature=FCU105_DAT@unit
               zone_air_temperature=ambiguous(FCU105_ZNT_A,FCU105_ZNT_B)@unit
               zone_temperature_setpoint=-
+              zone_cooling_temperature_setpoint=-
+              zone_heating_temperature_setpoint=-
               cooling_valve_command=FCU105_CHWV_Cmd@part
               heating_valve_command=-
               fan_status=-
@@ -80,17 +93,7 @@ class CoverageTest {
               hot_water_supply_temperature=-
               outdoor_air_temperature=QH_OAT@building
               occupancy=-
-            VAV_201 Variable_Air_Volume_Box_With_Reheat cooling=false heating=true
-              discharge_air_temperature=VAV201_DAT@unit
-              zone_air_temperature=VAV201_ZNT@unit
-              zone_temperature_setpoint=-
-              cooling_valve_command=-
-              heating_valve_command=VAV201_RHV_Cmd@part
-              fan_status=-
-              chilled_water_supply_temperature=CHW_Loop_SupplyTemp@upstream
-              hot_water_supply_temperature=-
-              outdoor_air_temperature=QH_OAT@building
-              occupancy=-
+            VAV_201 Variable_Air_Volume_Box_With_Reheat (no profile)
             """;
 
     private static Model model;
@@ -106,6 +109,9 @@ class CoverageTest {
         StringBuilder sb = new StringBuilder();
         for (UnitCoverage u : coverage.units()) {
             sb.append(local(u.unit())).append(' ').append(local(u.unitClass()));
+            if (u.profile().isEmpty()) {
+                sb.append(" (no profile)");
+            }
             u.modes().forEach((m, ok) -> sb.append(' ').append(m).append('=').append(ok));
             sb.append('\n');
             for (RoleMatch m : u.roles().values()) {
@@ -134,9 +140,31 @@ class CoverageTest {
     void everyRoleFoundWhereTheModelPutsItAndNothingInvented() {
         FleetCoverage c = Coverage.assess(model, standard, standard.profiles().profile("fcu-modes"), Set.of());
         assertEquals(EXPECTED, render(c));
-        assertEquals(3, c.analyzableCount());
+        assertEquals(2, c.analyzableCount());
         assertEquals(2, c.modeCount("cooling"));
-        assertEquals(3, c.modeCount("heating"));
+        assertEquals(2, c.modeCount("heating"));
+    }
+
+    @Test
+    void automaticChoiceGivesTheReheatBoxAVavProfileInItsOwnWords() {
+        FleetCoverage c = Coverage.assess(model, standard, Set.of());
+        assertTrue(c.automatic());
+        UnitCoverage vav = unit(c, "VAV_201");
+        assertEquals("vav-hot-water-reheat", vav.profileName(), "its class says reheat and it has a reheat valve");
+        assertEquals(Profile.VAV, vav.unitKind());
+        assertEquals(BLDG + "VAV201_RHV_Cmd", vav.point("reheat_valve_command").orElseThrow().iri());
+        assertEquals(Place.ON_PART, vav.roles().get("reheat_valve_command").place());
+        assertFalse(vav.roles().containsKey("cooling_valve_command"), "fan coil words stay with fan coil units");
+        String reason = CoverageSummary.reason(c, vav);
+        assertTrue(reason.contains("reheat lacks airflow"), reason);
+        assertFalse(reason.contains("cooling_valve_command"), reason);
+        // The fan coil units get the same points as with fcu-modes named.
+        FleetCoverage named = Coverage.assess(model, standard, standard.profiles().profile("fcu-modes"), Set.of());
+        for (UnitCoverage u : named.units()) {
+            if (u.profile().isPresent()) {
+                assertEquals(u.roles(), unit(c, local(u.unit())).roles(), u.unit());
+            }
+        }
     }
 
     @Test
@@ -171,7 +199,7 @@ class CoverageTest {
         assertEquals(MatchStatus.MISSING, cooling.status());
         assertEquals(List.of(BLDG + "FCU104_V1", BLDG + "FCU104_V2"),
                 cooling.untagged().stream().map(PointRef::iri).toList());
-        assertEquals(List.of("zone_temperature_setpoint", "cooling_valve_command", "heating_valve_command",
+        assertEquals(List.of("zone_setpoint", "cooling_valve_command", "heating_valve_command",
                 "fan_status", "hot_water_supply_temperature", "occupancy"), fcu104.missing());
     }
 
@@ -212,7 +240,10 @@ class CoverageTest {
     @Test
     void aUserProfileInATurtleFileNeedsNoJava() {
         Vocabulary withMine = Vocabulary.load(List.of(Fixtures.resource("user-profile.ttl")));
-        assertEquals(List.of("cooling-only", "dat-watch", "fcu-modes"), withMine.profiles().names());
+        assertEquals(List.of("cooling-only", "dat-watch", "fcu-modes", "vav-cooling-only", "vav-electric-reheat",
+                "vav-hot-water-reheat", "vav-parallel-fan", "vav-series-fan"), withMine.profiles().names());
+        assertFalse(withMine.profiles().automatic().stream().anyMatch(p -> p.name().equals("dat-watch")),
+                "a profile without tufa:appliesTo is used only when named");
         FleetCoverage c = Coverage.assess(model, withMine, withMine.profiles().profile("dat-watch"), Set.of());
         assertEquals(List.of("FCU_101", "FCU_102", "FCU_104", "FCU_105", "VAV_201"),
                 c.units().stream().filter(UnitCoverage::analyzable).map(u -> local(u.unit())).toList());
@@ -234,16 +265,20 @@ class CoverageTest {
     void csvHasOneRowPerUnitWithRoleColumns() {
         FleetCoverage c = Coverage.assess(model, standard, standard.profiles().profile("fcu-modes"), Set.of());
         List<String> lines = CoverageFiles.csv(c).lines().toList();
-        assertEquals("unit,label,unit_class,discharge_air_temperature,zone_air_temperature,zone_temperature_setpoint,"
+        assertEquals("unit,label,unit_class,profile,unit_kind,discharge_air_temperature,zone_air_temperature,"
+                + "zone_temperature_setpoint,zone_cooling_temperature_setpoint,zone_heating_temperature_setpoint,"
                 + "cooling_valve_command,heating_valve_command,fan_status,chilled_water_supply_temperature,"
                 + "hot_water_supply_temperature,outdoor_air_temperature,occupancy,analyzable,missing,"
                 + "cooling_analyzable,heating_analyzable,nominal_airflow_m3s", lines.get(0));
         assertEquals(7, lines.size());
         String fcu105 = lines.get(5);
         assertTrue(fcu105.startsWith(BLDG + "FCU_105,FCU-105,"), fcu105);
-        assertTrue(fcu105.contains("," + BLDG + "FCU105_DAT,ambiguous,,"), fcu105);
-        assertTrue(fcu105.endsWith(",false,zone_temperature_setpoint;heating_valve_command;fan_status;"
+        assertTrue(fcu105.contains(",fcu-modes,fan_coil," + BLDG + "FCU105_DAT,ambiguous,,"), fcu105);
+        assertTrue(fcu105.endsWith(",false,zone_setpoint;heating_valve_command;fan_status;"
                 + "hot_water_supply_temperature;occupancy,false,false,"), fcu105);
+        String vav = lines.get(6);
+        assertTrue(vav.startsWith(BLDG + "VAV_201,VAV-201,"
+                + Namespaces.BRICK + "Variable_Air_Volume_Box_With_Reheat,,,,,,"), "no profile, no roles: " + vav);
         String json = CoverageFiles.json(c);
         assertTrue(json.contains("\"candidates\": ["), json);
         assertTrue(json.contains(BLDG + "FCU105_ZNT_B"), json);

@@ -24,8 +24,19 @@ final class Fixtures {
      * in the module directory (analysis/), whose parent is the repository root.
      */
     static Optional<Path> fullBrick() {
+        return shared("vocab/Brick.ttl");
+    }
+
+    /**
+     * A published Brick example model in ../shared/brick-examples (third-party, see its README.md), when present.
+     */
+    static Optional<Path> brickExample(String name) {
+        return shared("brick-examples/" + name);
+    }
+
+    private static Optional<Path> shared(String relative) {
         Path root = Path.of("").toAbsolutePath().getParent();
-        Path brick = root.resolve("../shared/vocab/Brick.ttl").normalize();
-        return Files.isRegularFile(brick) ? Optional.of(brick) : Optional.empty();
+        Path file = root.resolve("../shared/" + relative).normalize();
+        return Files.isRegularFile(file) ? Optional.of(file) : Optional.empty();
     }
 }

@@ -132,7 +132,7 @@ class EvaluationTest {
         String table = out.toString();
         assertTrue(table.contains("all_faults") && table.contains("1/2 +1"), table);
         assertTrue(table.contains("goal: every injected episode detected (>= 2 h flagged): 1/2 (NOT met); 1 more on "
-                + "units the coverage check excluded (not analysable)"), table);
+                + "units not analysed (coverage excluded them, or no detection for their kind yet)"), table);
         assertTrue(table.contains("goal: < 2 % of healthy-unit hours flagged: 14.3% (NOT met)"), table);
         assertTrue(Files.exists(dir.resolve("evaluation.csv")));
         List<String> episodes = Files.readAllLines(dir.resolve("evaluation_episodes.csv"));

@@ -80,7 +80,8 @@ class FleetAnalysisTest {
         assertTrue(inside >= 0.25 * episode, "flagged " + inside + " h of a " + episode + " h episode");
         for (UnitOutcome u : r.units()) {
             if (u != faulty) {
-                assertTrue(u.faultHours() <= 0.05 * 45 * 24, u.unit() + " flagged " + u.faultHours() + " h");
+                assertTrue(u.faultHours() <= 0.05 * 45 * 24, u.unit() + " flagged " + u.faultHours() + " h: "
+                        + u.findings().stream().map(f -> f.kind() + " " + f.start() + " " + f.end() + " " + f.evidence()).toList());
             }
         }
     }

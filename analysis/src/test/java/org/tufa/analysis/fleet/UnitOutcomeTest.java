@@ -25,7 +25,7 @@ class UnitOutcomeTest {
         int[] counts = new int[OperatingMode.values().length];
         counts[OperatingMode.COOLING.code()] = n;
         return new UnitAnalysis.Result(START, STEP, new ModeSplit(codes, counts, false), loadKw, new byte[n],
-                List.of(), findings);
+                List.of(), findings, List.of());
     }
 
     static Finding finding(String kind, int from, int to) {
@@ -49,7 +49,7 @@ class UnitOutcomeTest {
         List<Finding> findings = List.of(finding("fault_cluster", 2, 6), finding("cooling_without_cooling", 4, 10),
                 finding("out_of_band_low", 15, 17));
         UnitOutcome u = new UnitOutcome("urn:example:u1", "FCU-1", "FCU-1", UnitOutcome.ANALYZED, "", List.of(),
-                result(load, findings), findings);
+                result(load, findings)).withoutDetail().decided(findings, 0, List.of(), load);
         assertEquals(2.5, u.faultHours(), 1e-12);
         assertEquals(4.5, u.faultEnergyKwh(), 1e-12);
         assertEquals(3.0, findings.stream().mapToDouble(Finding::hours).sum(), 1e-12, "the naive sum differs");
@@ -59,9 +59,8 @@ class UnitOutcomeTest {
     void unitWithoutFindingsOrResultHasNoFaultHours() {
         double[] load = new double[8];
         UnitOutcome none = new UnitOutcome("u", "u", "u", UnitOutcome.ANALYZED, "", List.of(),
-                result(load, List.of()), List.of());
-        UnitOutcome skipped = new UnitOutcome("u", "u", "u", UnitOutcome.SKIPPED, "no data", List.of(), null,
-                List.of());
+                result(load, List.of())).withoutDetail().decided(List.of(), 0, List.of(), null);
+        UnitOutcome skipped = new UnitOutcome("u", "u", "u", UnitOutcome.SKIPPED, "no data", List.of(), null);
         assertEquals(0.0, none.faultHours());
         assertEquals(0.0, skipped.faultHours());
     }

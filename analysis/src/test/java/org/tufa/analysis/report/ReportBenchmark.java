@@ -42,7 +42,11 @@ public final class ReportBenchmark {
             List<Future<?>> done = new java.util.ArrayList<>();
             for (int i = 0; i < units.size(); i++) {
                 int k = i;
-                done.add(pool.submit(() -> pages.accept(units.get(k), fleet.signals().get(k))));
+                done.add(pool.submit(() -> {
+                    pages.analysed(fleet.analysed().get(k), fleet.signals().get(k));
+                    pages.decided(units.get(k), units.get(k).findings().isEmpty() ? null : fleet.signals().get(k),
+                            fleet.loads().get(k));
+                }));
             }
             for (Future<?> f : done) {
                 f.get();

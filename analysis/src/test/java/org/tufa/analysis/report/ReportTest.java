@@ -47,7 +47,9 @@ class ReportTest {
         UnitPages pages = new UnitPages(out, SyntheticFleet.ZONE);
         List<UnitOutcome> units = fleet.result().units();
         for (int i = 0; i < units.size(); i++) {
-            pages.accept(units.get(i), fleet.signals().get(i));
+            pages.analysed(fleet.analysed().get(i), fleet.signals().get(i));
+            pages.decided(units.get(i), units.get(i).findings().isEmpty() ? null : fleet.signals().get(i),
+                    fleet.loads().get(i));
         }
         FleetPage.write(FleetPage.reportDir(out), fleet.result(), fleet.coverage(), SyntheticFleet.ZONE);
         // The files the fleet page points readers without JavaScript to.
@@ -183,7 +185,7 @@ class ReportTest {
     @Test
     void faultClustersShowActualAndExpectedArrowsInTheCaption() throws IOException {
         boolean anyFault = false;
-        for (UnitOutcome u : fleet.result().units()) {
+        for (UnitOutcome u : fleet.analysed()) {
             if (u.result() == null) {
                 continue;
             }

@@ -16,6 +16,7 @@ import org.tufa.analysis.coverage.Profile;
 import org.tufa.analysis.coverage.Role;
 import org.tufa.analysis.coverage.RoleMatch;
 import org.tufa.analysis.coverage.UnitCoverage;
+import org.tufa.analysis.decision.FleetDecision;
 import org.tufa.analysis.features.UnitSignals;
 import org.tufa.analysis.fleet.AnalysisSettings;
 import org.tufa.analysis.fleet.FleetAnalysis;
@@ -49,8 +50,12 @@ final class SyntheticFleet {
     static final List<String> ROLES = List.of("zone_air_temperature", "discharge_air_temperature",
             "zone_temperature_setpoint", "cooling_valve_command", "heating_valve_command", "fan_status");
 
-    /** The fleet: outcomes with the signals each was computed from (null when not analysed). */
-    record Fleet(FleetAnalysis.Result result, FleetCoverage coverage, List<UnitSignals> signals) {
+    /**
+     * The fleet: the decided outcomes, the outcomes straight from the analysis (with their detailed results), the
+     * signals each was computed from (null when not analysed) and each unit's load.
+     */
+    record Fleet(FleetAnalysis.Result result, FleetCoverage coverage, List<UnitOutcome> analysed,
+                 List<UnitSignals> signals, List<double[]> loads) {
     }
 
     private SyntheticFleet() {
@@ -106,23 +111,42 @@ final class SyntheticFleet {
                     : List.of();
             boolean any = r.modeResults().stream().anyMatch(ModeResult::analyzed);
             outcomes.add(new UnitOutcome(u.unitIri(), label, folder, any ? UnitOutcome.ANALYZED : UnitOutcome.SKIPPED,
-                    any ? "" : "no mode could be clustered", notes, r, r.findings()));
+                    any ? "" : "no mode could be clustered", notes, r));
             signals.add(s);
         }
         String skipped = "https://example.org/elm#FCU-99";
         coverage.add(coverage(skipped, "FCU-99", null, true));
         outcomes.add(new UnitOutcome(skipped, "FCU-99", "FCU-99", UnitOutcome.SKIPPED,
-                "missing discharge_air_temperature", List.of(), null, List.of()));
+                "missing discharge_air_temperature", List.of(), null));
         signals.add(null);
-        Profile profile = new Profile("fcu-modes", "https://tufa.example.org/ns#FcuModes", "", List.of(),
-                ROLES.stream().map(r -> new Role(r, "https://tufa.example.org/ns#" + r, ROLES.indexOf(r), List.of()))
-                        .toList());
-        FleetCoverage fleet = new FleetCoverage(profile, List.of("https://brickschema.org/schema/Brick#FCU"),
-                coverage, Map.of());
-        FleetAnalysis.Result result = new FleetAnalysis.Result(outcomes,
-                new IngestReport(List.of(), List.of(), List.of(), List.of()), new StageTimes());
-        return new Fleet(result, fleet, signals);
+        // The fleet stage, listing every candidate (confidence 0 and up) so the pages show findings of each kind.
+        List<FleetDecision.UnitEvidence> evidence = new ArrayList<>();
+        for (UnitOutcome o : outcomes) {
+            if (o.result() != null && o.status().equals(UnitOutcome.ANALYZED)) {
+                evidence.add(new FleetDecision.UnitEvidence(o.unit(), o.result().evidence()));
+            }
+        }
+        FleetDecision.Decision decision = FleetDecision.fit(evidence, settings.decision(), settings.causes(),
+                settings.dayZone(), settings.maxEpisodeWindowDays());
+        List<UnitOutcome> decided = new ArrayList<>();
+        List<double[]> loads = new ArrayList<>();
+        for (UnitOutcome o : outcomes) {
+            double[] load = o.result() == null ? null : o.result().loadKw();
+            decided.add(o.withoutDetail().decided(decision.findings().getOrDefault(o.unit(), List.of()), 0,
+                    List.of(), load));
+            loads.add(load);
+        }
+        FleetCoverage fleet = new FleetCoverage(List.of(PROFILE), true,
+                List.of("https://brickschema.org/schema/Brick#FCU"), coverage, Map.of(), false);
+        FleetAnalysis.Result result = new FleetAnalysis.Result(decided, decision.fleet(), decision.nulls(),
+                decision.tests(), 0, new IngestReport(List.of(), List.of(), List.of(), List.of()), new StageTimes());
+        return new Fleet(result, fleet, outcomes, signals, loads);
     }
+
+    private static final Profile PROFILE = new Profile("fcu-modes", "https://tufa.example.org/ns#FcuModes", "",
+            Profile.FAN_COIL, List.of("https://brickschema.org/schema/Brick#FCU"), false, 0, List.of(), List.of(),
+            List.of(), ROLES.stream().map(r -> new Role(r, "https://tufa.example.org/ns#" + r, ROLES.indexOf(r),
+                    List.of())).toList());
 
     private static UnitCoverage coverage(String unit, String label, String ambiguousRole, boolean noDischarge) {
         Map<String, RoleMatch> roles = new LinkedHashMap<>();
@@ -140,8 +164,8 @@ final class SyntheticFleet {
                 roles.put(role, new RoleMatch(role, MatchStatus.FOUND, Optional.of(p), List.of(p), null, List.of()));
             }
         }
-        return new UnitCoverage(unit, label, "https://brickschema.org/schema/Brick#FCU", roles, Optional.empty(),
-                Map.of("cooling", !noDischarge), List.of());
+        return new UnitCoverage(unit, label, "https://brickschema.org/schema/Brick#FCU", Optional.of(PROFILE), roles,
+                Optional.empty(), Map.of("cooling", !noDischarge), List.of());
     }
 
     private static double[] d(float[] f) {

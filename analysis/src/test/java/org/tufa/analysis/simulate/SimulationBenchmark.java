@@ -73,11 +73,13 @@ public final class SimulationBenchmark {
         return b;
     }
 
-    private static String unitFor(String role) {
+    static String unitFor(String role) {
         return switch (SimulationRoles.quantityOf(role)) {
             case TEMPERATURE -> "http://qudt.org/vocab/unit/DEG_C";
             case COMMAND -> "http://qudt.org/vocab/unit/PERCENT";
             case BINARY -> "";
+            case AIRFLOW -> "http://qudt.org/vocab/unit/L-PER-SEC";
+            case PRESSURE -> "http://qudt.org/vocab/unit/PA";
         };
     }
 }

@@ -21,10 +21,13 @@ import java.util.SortedSet;
  * @param unit the QUDT unit local name
  * @param airflow the equipment's nominal airflow
  * @param ignoredTokens tokens that meant nothing to the dictionary
+ * @param runnerUp the best rival class of a tag-matched point (a different concept, see TagClassResolver)
+ * @param runnerUpScore its score (0 when there is none)
  */
 public record Assignment(String ruleLabel, String ruleId, String className, double score, SortedSet<String> tags,
         Optional<Equipment> equipment, Optional<Part> part, List<Link> locations, List<Link> feeds, List<Link> fedBy,
-        Optional<String> unit, Optional<Airflow> airflow, List<String> ignoredTokens) {
+        Optional<String> unit, Optional<Airflow> airflow, List<String> ignoredTokens, Optional<String> runnerUp,
+        double runnerUpScore) {
 
     /** An equipment id and its Brick class. */
     public record Equipment(String id, String className) {

@@ -17,6 +17,7 @@ import java.util.regex.Pattern;
 import org.tufa.mapper.points.ExportUnits;
 import org.tufa.mapper.points.PointList;
 import org.tufa.mapper.points.PointRecord;
+import org.tufa.mapper.rules.ClassRef;
 import org.tufa.mapper.rules.Dictionary;
 import org.tufa.mapper.rules.Expectation;
 import org.tufa.mapper.rules.Rule;
@@ -37,26 +38,23 @@ import org.tufa.vocabulary.TagClassResolver;
  */
 public final class Mapper {
 
-    /** Tags that say what role a point plays; a point without one gets its object type's tags. */
-    static final Set<String> ROLE_TAGS = Set.of("Sensor", "Setpoint", "Command", "Status", "Alarm", "Parameter");
-
     private final RuleSet rules;
     private final BrickVocabulary vocabulary;
     private final TagClassResolver pointResolver;
     private final Map<String, int[]> byPrefix;
     private final int[] prefixLengths;
     private final int[] unprefixed;
-    /** Per rule: named groups of the name, description and units patterns. */
-    private final List<String[][]> groupNames;
+    /** Part qualifiers per (part class, when tags): a pure function, memoised. */
+    private final java.util.concurrent.ConcurrentHashMap<String, Set<String>> qualifierCache =
+            new java.util.concurrent.ConcurrentHashMap<>();
 
-    private Mapper(RuleSet rules, BrickVocabulary vocabulary) {
+    private Mapper(RuleSet rules, BrickVocabulary vocabulary, TagClassResolver pointResolver) {
         this.rules = rules;
         this.vocabulary = vocabulary;
-        this.pointResolver = TagClassResolver.fit(vocabulary, "Point");
+        this.pointResolver = pointResolver;
         Map<String, List<Integer>> prefixes = new HashMap<>();
         List<Integer> none = new ArrayList<>();
         TreeSet<Integer> lengths = new TreeSet<>();
-        List<String[][]> groups = new ArrayList<>();
         for (Rule r : rules.rules()) {
             if (r.literalPrefix().isPresent()) {
                 prefixes.computeIfAbsent(r.literalPrefix().get(), k -> new ArrayList<>()).add(r.index());
@@ -64,24 +62,22 @@ public final class Mapper {
             } else {
                 none.add(r.index());
             }
-            String[][] g = new String[4][];
-            int k = 0;
-            for (Optional<Pattern> p : List.of(r.name(), r.description(), r.units(), r.device())) {
-                g[k++] = p.map(pp -> groupNamesOf(pp).toArray(String[]::new)).orElse(new String[0]);
-            }
-            groups.add(g);
         }
         Map<String, int[]> idx = new HashMap<>();
         prefixes.forEach((k, v) -> idx.put(k, v.stream().mapToInt(Integer::intValue).toArray()));
         this.byPrefix = idx;
         this.prefixLengths = lengths.stream().mapToInt(Integer::intValue).toArray();
         this.unprefixed = none.stream().mapToInt(Integer::intValue).toArray();
-        this.groupNames = groups;
     }
 
     /** Prepares a mapper (pre-filter index, class resolver) for a rule set. */
     public static Mapper fit(RuleSet rules, BrickVocabulary vocabulary) {
-        return new Mapper(rules, vocabulary);
+        return new Mapper(rules, vocabulary, TagClassResolver.fit(vocabulary, "Point"));
+    }
+
+    /** The same with a point-class resolver already fitted to {@code vocabulary} (shared across many rule sets). */
+    public static Mapper fit(RuleSet rules, BrickVocabulary vocabulary, TagClassResolver pointResolver) {
+        return new Mapper(rules, vocabulary, pointResolver);
     }
 
     /** Maps every row of a point list and checks the rule file's expectations. */
@@ -125,7 +121,14 @@ public final class Mapper {
             if (o.unknownUnits() != null) {
                 unitWarnings.putIfAbsent(o.unknownUnits(), "line " + p.line());
             }
-            out.add(new PointMapping(p, status, reason, o.assignment(), occurrence));
+            out.add(new PointMapping(p, status, reason, o.assignment(), occurrence, o.status()));
+        }
+        long roleless = out.stream().filter(m -> m.assignment().isPresent() && m.assignment().get().score() < 1
+                && m.assignment().get().tags().stream().noneMatch(RuleSet.ROLE_TAGS::contains)).count();
+        if (roleless > 0 && rules.defaultRole().isEmpty()) {
+            warnings.add(roleless + " tag-matched point(s) got no role (Sensor, Setpoint, Command, ...) from their name "
+                    + "or object type, so sensor and setpoint classes compete; an export without object types wants "
+                    + "'default-role Sensor' (or type-tags lines)");
         }
         if (duplicateNames > 0) {
             warnings.add(duplicateNames + " point name(s) occur on more than one row (same device); every row is kept "
@@ -176,17 +179,30 @@ public final class Mapper {
 
     /** Per-call mutable state: one reusable Matcher per rule pattern. */
     private final class Context {
-        final Matcher[] name = new Matcher[rules.rules().size()];
-        final Matcher[] description = new Matcher[rules.rules().size()];
-        final Matcher[] units = new Matcher[rules.rules().size()];
-        final Matcher[] device = new Matcher[rules.rules().size()];
+        final Matcher[][] matchers = new Matcher[rules.rules().size()][];
+        final Matcher[] skips = new Matcher[rules.skips().size()];
         int[] candidates = new int[16];
 
-        Matcher matcher(Matcher[] cache, int i, Pattern p, String text) {
-            Matcher m = cache[i];
+        Matcher matcher(int rule, int k, Pattern p, String text) {
+            Matcher[] row = matchers[rule];
+            if (row == null) {
+                row = new Matcher[rules.rules().get(rule).matches().size()];
+                matchers[rule] = row;
+            }
+            Matcher m = row[k];
             if (m == null) {
                 m = p.matcher(text);
-                cache[i] = m;
+                row[k] = m;
+                return m;
+            }
+            return m.reset(text);
+        }
+
+        Matcher skip(int k, String text) {
+            Matcher m = skips[k];
+            if (m == null) {
+                m = rules.skips().get(k).pattern().matcher(text);
+                skips[k] = m;
                 return m;
             }
             return m.reset(text);
@@ -203,6 +219,12 @@ public final class Mapper {
         if (p.name().isEmpty()) {
             return Outcome.of(Status.REJECTED, "empty point name; fill in the name column or delete the row");
         }
+        for (int k = 0; k < rules.skips().size(); k++) {
+            if (ctx.skip(k, p.name()).find()) {
+                RuleSet.Skip skip = rules.skips().get(k);
+                return Outcome.of(Status.SKIPPED, "skip " + skip.label() + ": " + skip.reason());
+            }
+        }
         int n = candidates(p.name(), ctx);
         for (int c = 0; c < n; c++) {
             Rule r = rules.rules().get(ctx.candidates[c]);
@@ -211,7 +233,7 @@ public final class Mapper {
                 continue;
             }
             Outcome win = evaluate(r, p, groups);
-            if (r.compete().isPresent() && win.assignment().isPresent()) {
+            if (r.compete().isPresent() && win.assignment().isPresent() && win.status() != Status.UNCLASSIFIED) {
                 for (Rule other : rules.rules()) {
                     if (other == r || !other.compete().equals(r.compete())) {
                         continue;
@@ -221,7 +243,7 @@ public final class Mapper {
                         continue;
                     }
                     Outcome o2 = evaluate(other, p, g2);
-                    if (o2.assignment().isEmpty()) {
+                    if (o2.assignment().isEmpty() || o2.status() == Status.UNCLASSIFIED) {
                         continue;
                     }
                     Assignment a = win.assignment().get();
@@ -272,52 +294,63 @@ public final class Mapper {
         return n;
     }
 
-    /** Named-group values when the rule matches the point, else null. */
+    private static String field(PointRecord p, Rule.Field f) {
+        return switch (f) {
+            case NAME -> p.name();
+            case DESCRIPTION -> p.description();
+            case UNITS -> p.units();
+            case DEVICE -> p.device();
+        };
+    }
+
+    /** Named-group values when the rule matches the point (every match line holds), else null. */
     private Map<String, String> match(Rule r, PointRecord p, Context ctx) {
         if (!r.types().isEmpty() && !r.types().contains(p.objectType())) {
             return null;
         }
-        int i = r.index();
-        Matcher mn = null;
-        Matcher md = null;
-        Matcher mu = null;
-        Matcher mv = null;
-        if (r.name().isPresent()) {
-            mn = ctx.matcher(ctx.name, i, r.name().get(), p.name());
-            if (!mn.find()) {
+        List<Rule.FieldMatch> ms = r.matches();
+        Matcher[] found = null;
+        for (int k = 0; k < ms.size(); k++) {
+            Rule.FieldMatch fm = ms.get(k);
+            Matcher m = ctx.matcher(r.index(), k, fm.pattern(), field(p, fm.field()));
+            boolean hit = m.find();
+            if (hit == fm.negated()) {
                 return null;
             }
-        }
-        if (r.description().isPresent()) {
-            md = ctx.matcher(ctx.description, i, r.description().get(), p.description());
-            if (!md.find()) {
-                return null;
-            }
-        }
-        if (r.units().isPresent()) {
-            mu = ctx.matcher(ctx.units, i, r.units().get(), p.units());
-            if (!mu.find()) {
-                return null;
-            }
-        }
-        if (r.device().isPresent()) {
-            mv = ctx.matcher(ctx.device, i, r.device().get(), p.device());
-            if (!mv.find()) {
-                return null;
+            if (!fm.groups().isEmpty()) {
+                if (found == null) {
+                    found = new Matcher[ms.size()];
+                }
+                found[k] = m;
             }
         }
         Map<String, String> groups = new HashMap<>();
-        String[][] names = groupNames.get(i);
-        Matcher[] ms = {mn, md, mu, mv};
-        for (int k = 0; k < 4; k++) {
-            for (String g : names[k]) {
-                String v = ms[k].group(g);
-                if (v != null) {
-                    groups.putIfAbsent(g, v);
+        if (found != null) {
+            for (int k = 0; k < ms.size(); k++) {
+                if (found[k] == null) {
+                    continue;
+                }
+                for (String g : ms.get(k).groups()) {
+                    String v = found[k].group(g);
+                    if (v != null) {
+                        groups.putIfAbsent(g, v);
+                    }
                 }
             }
         }
         return groups;
+    }
+
+    private Outcome unclassified(Rule r, String why, Optional<Assignment.Equipment> equipment, SortedSet<String> tags,
+            List<String> unknown) {
+        String tokens = unknown.isEmpty() ? "" : "; tokens not in the dictionary: " + String.join(" ", unknown);
+        if (equipment.isEmpty()) {
+            return Outcome.of(Status.UNCLASSIFIED, "rule " + r.label() + " matched but " + why + tokens);
+        }
+        Assignment a = new Assignment(r.label(), r.id(), "Point", 0, tags, equipment, Optional.empty(), List.of(),
+                List.of(), List.of(), Optional.empty(), Optional.empty(), unknown, Optional.empty(), 0);
+        return new Outcome(Status.UNCLASSIFIED, "rule " + r.label() + " matched but " + why + tokens,
+                Optional.of(a), null);
     }
 
     private Outcome evaluate(Rule r, PointRecord p, Map<String, String> groups) {
@@ -336,59 +369,100 @@ public final class Mapper {
                 default -> null;
             };
         };
-        Dictionary.Lookup lookup = r.dictionary().lookup(r.tagSource().render(values), vocabulary);
+        String tagText = r.tagSource().render(values);
+        for (Pattern strip : r.strip()) {
+            tagText = strip.matcher(tagText).replaceAll(" ");
+        }
+        Dictionary.Lookup lookup = r.dictionary().lookup(tagText, vocabulary);
         SortedSet<String> tags = new TreeSet<>(lookup.tags());
         tags.addAll(r.extraTags());
-        if (r.pointClass().isPresent()) {
-            tags.addAll(vocabulary.associatedTags(r.pointClass().get()));
-        }
 
         Optional<Assignment.Equipment> equipment = Optional.empty();
         Optional<Assignment.Part> part = Optional.empty();
         if (r.equipment().isPresent()) {
-            String id = r.equipment().get().id().render(values);
+            Rule.EquipmentSpec spec = r.equipment().get();
+            String id = spec.id().render(values);
             if (id.isBlank()) {
-                return Outcome.of(Status.UNMAPPED, "rule " + r.label() + " matched but its equipment id '"
-                        + r.equipment().get().id().source() + "' came out empty");
+                return Outcome.of(Status.UNCLASSIFIED, "rule " + r.label() + " matched but its equipment id '"
+                        + spec.id().source() + "' came out empty");
             }
-            equipment = Optional.of(new Assignment.Equipment(id, r.equipment().get().className()));
+            Optional<String> eqClass = spec.className().resolve(values);
+            if (eqClass.isEmpty()) {
+                return Outcome.of(Status.UNCLASSIFIED, "rule " + r.label() + " matched but '"
+                        + spec.className().keyText(values) + "' is not in table " + spec.className().table());
+            }
+            equipment = Optional.of(new Assignment.Equipment(id, eqClass.get()));
+        }
+        Optional<String> fixedClass = Optional.empty();
+        if (r.pointClass().isPresent()) {
+            ClassRef ref = r.pointClass().get();
+            fixedClass = ref.resolve(values);
+            if (fixedClass.isEmpty()) {
+                return unclassified(r, "'" + ref.keyText(values) + "' is not in table " + ref.table(), equipment,
+                        tags, lookup.unknownTokens());
+            }
+            tags.addAll(vocabulary.associatedTags(fixedClass.get()));
+        }
+        if (equipment.isPresent()) {
             Optional<Rule.PartSpec> spec = choosePart(r, tags);
             if (spec.isPresent()) {
-                String local = spec.get().id().render(values);
-                part = Optional.of(new Assignment.Part(id + "/" + local, local, spec.get().className()));
-                if (r.pointClass().isEmpty()) {
-                    tags.removeAll(spec.get().qualifiers());
+                Optional<String> partClass = spec.get().className().resolve(values);
+                if (partClass.isPresent()) {
+                    String local = spec.get().id().render(values);
+                    String id = equipment.get().id();
+                    part = Optional.of(new Assignment.Part(id + "/" + local, local, partClass.get()));
+                    if (fixedClass.isEmpty()) {
+                        tags.removeAll(qualifiers(partClass.get(), spec.get().when()));
+                    }
                 }
             }
         }
 
         String className;
         double score;
-        if (r.pointClass().isPresent()) {
-            className = r.pointClass().get();
+        Optional<String> runnerUp = Optional.empty();
+        double runnerUpScore = 0;
+        Status status = Status.MAPPED;
+        String classNote = "";
+        if (fixedClass.isPresent()) {
+            className = fixedClass.get();
             score = 1.0;
         } else {
             if (tags.isEmpty()) {
-                return Outcome.of(Status.UNMAPPED, "rule " + r.label() + " matched but '"
-                        + r.tagSource().render(values) + "' gives no tags; tokens not in the dictionary: "
-                        + String.join(" ", lookup.unknownTokens()));
+                return unclassified(r, "'" + tagText + "' gives no tags", equipment, tags, lookup.unknownTokens());
             }
-            if (tags.stream().noneMatch(ROLE_TAGS::contains)) {
+            if (tags.stream().noneMatch(RuleSet.ROLE_TAGS::contains)) {
                 tags.addAll(rules.typeTags().getOrDefault(p.objectType(), List.of()));
+            }
+            if (tags.stream().noneMatch(RuleSet.ROLE_TAGS::contains)) {
+                tags.addAll(rules.defaultRole());
             }
             tags.add("Point");
             var res = pointResolver.resolve(tags);
-            String unknown = lookup.unknownTokens().isEmpty() ? ""
-                    : "; tokens not in the dictionary: " + String.join(" ", lookup.unknownTokens());
             if (res.isEmpty() || res.get().score() < rules.minScore()) {
-                return Outcome.of(Status.UNMAPPED, "rule " + r.label() + " matched but tags " + tags
-                        + (res.isEmpty() ? " fit no Brick point class"
+                return unclassified(r, "tags " + tags + (res.isEmpty() ? " fit no Brick point class"
                         : " fit no class well enough (best " + res.get().className() + String.format(
-                        java.util.Locale.ROOT, " %.2f < min-score %.2f)", res.get().score(), rules.minScore()))
-                        + unknown);
+                        java.util.Locale.ROOT, " %.2f < min-score %.2f)", res.get().score(), rules.minScore())),
+                        equipment, tags, lookup.unknownTokens());
+            }
+            if (res.get().className().equals("Point")) {
+                return unclassified(r, "tags " + tags + " say only that it is a point", equipment, tags,
+                        lookup.unknownTokens());
             }
             className = res.get().className();
             score = res.get().score();
+            runnerUp = res.get().runnerUp();
+            runnerUpScore = res.get().runnerUpScore();
+            if (runnerUp.isPresent() && res.get().margin() < rules.margin()) {
+                status = Status.AMBIGUOUS;
+                classNote = String.format(java.util.Locale.ROOT, "%s %.2f and %s %.2f are too close to call "
+                        + "(margin %.2f); tags %s", className, score, runnerUp.get(), runnerUpScore, rules.margin(),
+                        tags);
+            }
+            if (res.get().viaDeprecated().isPresent()) {
+                String dep = "tags match " + res.get().viaDeprecated().get() + ", deprecated; written as " + className;
+                classNote = classNote.isEmpty() ? dep : classNote + "; " + dep;
+            }
         }
 
         String unknownUnits = null;
@@ -419,8 +493,10 @@ public final class Mapper {
         List<Assignment.Link> feeds = links(r.feeds(), values);
         List<Assignment.Link> fedBy = links(r.fedBy(), values);
         Optional<Assignment.Airflow> airflow = Optional.empty();
-        String note = lookup.unknownTokens().isEmpty() ? ""
-                : "ignored tokens: " + String.join(" ", lookup.unknownTokens());
+        String note = classNote;
+        if (!lookup.unknownTokens().isEmpty()) {
+            note = (note.isEmpty() ? "" : note + "; ") + "ignored tokens: " + String.join(" ", lookup.unknownTokens());
+        }
         if (r.airflow().isPresent()) {
             String v = r.airflow().get().value().render(values);
             try {
@@ -433,8 +509,25 @@ public final class Mapper {
             note = (note.isEmpty() ? "" : note + "; ") + "units '" + unknownUnits + "' not recognised";
         }
         Assignment a = new Assignment(r.label(), r.id(), className, score, tags, equipment, part, locations, feeds,
-                fedBy, unit, airflow, lookup.unknownTokens());
-        return new Outcome(Status.MAPPED, note, Optional.of(a), unknownUnits);
+                fedBy, unit, airflow, lookup.unknownTokens(), runnerUp, runnerUpScore);
+        return new Outcome(status, note, Optional.of(a), unknownUnits);
+    }
+
+    /**
+     * Tags that say which part a point hangs on rather than what the point is: the part class's own tags and the
+     * {@code when} tags, minus Equipment and minus the tag naming the part's kind (the last word of the class
+     * name: Valve for Chilled_Water_Valve, Fan for Fan). Brick has no "chilled water valve command" class; the
+     * point is a Valve_Position_Command and the part carries "chilled water".
+     */
+    private Set<String> qualifiers(String partClass, Set<String> when) {
+        return qualifierCache.computeIfAbsent(partClass + "\u0000" + String.join(" ", new TreeSet<>(when)), k -> {
+            Set<String> q = new TreeSet<>(when);
+            q.addAll(vocabulary.associatedTags(partClass));
+            q.remove("Equipment");
+            String[] words = BrickVocabulary.className(partClass).split("_");
+            q.remove(words[words.length - 1]);
+            return Set.copyOf(q);
+        });
     }
 
     private Optional<Rule.PartSpec> choosePart(Rule r, Set<String> tags) {
@@ -458,18 +551,10 @@ public final class Mapper {
         List<Assignment.Link> out = new ArrayList<>(specs.size());
         for (Rule.LinkSpec s : specs) {
             String id = s.id().render(values);
-            if (!id.isBlank()) {
-                out.add(new Assignment.Link(s.className(), id));
+            Optional<String> cls = s.className().resolve(values);
+            if (!id.isBlank() && cls.isPresent()) {
+                out.add(new Assignment.Link(cls.get(), id));
             }
-        }
-        return out;
-    }
-
-    private static List<String> groupNamesOf(Pattern p) {
-        List<String> out = new ArrayList<>();
-        Matcher m = Pattern.compile("\\(\\?<([a-zA-Z][a-zA-Z0-9]*)>").matcher(p.pattern());
-        while (m.find()) {
-            out.add(m.group(1));
         }
         return out;
     }

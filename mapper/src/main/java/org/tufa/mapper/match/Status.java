@@ -4,10 +4,16 @@ import java.util.Locale;
 
 /** What happened to one input row. */
 public enum Status {
-    /** A rule gave it a Brick class (and equipment, when the rule names one). */
+    /** A rule gave it a Brick class with a clear lead over any rival (and equipment, when the rule names one). */
     MAPPED,
-    /** No rule matched, or the matching rule's tags fit no class well enough. */
+    /** A rule took it, but the best class and a different runner-up scored within the margin: a person decides. */
+    AMBIGUOUS,
+    /** A rule took it, but its tags give no class (only brick:Point, or nothing scoring min-score). */
+    UNCLASSIFIED,
+    /** No rule matched. */
     UNMAPPED,
+    /** A {@code skip} line left it out on purpose, with its reason. */
+    SKIPPED,
     /** Two competing rules matched with different classes or equipment. */
     CONFLICT,
     /** Its name occurs on more than one row; every occurrence is kept and mapped as if alone. */
@@ -18,5 +24,10 @@ public enum Status {
     /** Lower-case word used in reports. */
     public String label() {
         return name().toLowerCase(Locale.ROOT);
+    }
+
+    /** Does this outcome need a person (a rule to write, a class to choose)? */
+    public boolean unsettled() {
+        return this == AMBIGUOUS || this == UNCLASSIFIED || this == UNMAPPED || this == CONFLICT;
     }
 }

@@ -21,6 +21,7 @@ import org.tufa.mapper.match.Assignment;
 import org.tufa.mapper.match.MappingResult;
 import org.tufa.mapper.match.PointMapping;
 import org.tufa.mapper.points.PointRecord;
+import org.tufa.vocabulary.BrickVocabulary;
 import org.tufa.vocabulary.Namespaces;
 
 /**
@@ -50,6 +51,8 @@ public final class ModelBuilder {
     private final SortedMap<String, SortedSet<String>> classesById = new TreeMap<>();
     private final SortedMap<String, String> airflowById = new TreeMap<>();
     private final List<String> warnings = new ArrayList<>();
+    /** Whether a RealEstateCore class (Brick 1.4's replacement for its location classes) was written. */
+    private boolean usesRec;
     /** Equipment-level statements already written (equipment id + what), so each is added once. */
     private final java.util.Set<String> done = new java.util.HashSet<>();
     /** Class and predicate nodes, made once (point and equipment IRIs are not cached: each is used a few times). */
@@ -85,6 +88,9 @@ public final class ModelBuilder {
         model.setNsPrefix("ref", REF);
         model.setNsPrefix("unit", Namespaces.UNIT);
         model.setNsPrefix("tufa", TUFA);
+        if (usesRec) {
+            model.setNsPrefix("rec", Namespaces.REC);
+        }
         model.setNsPrefix("rdfs", RDFS.getURI());
         model.setNsPrefix("xsd", "http://www.w3.org/2001/XMLSchema#");
         return new BuiltModel(model, warnings);
@@ -125,15 +131,16 @@ public final class ModelBuilder {
             return;
         }
         Assignment a = m.assignment().get();
-        add(point, RDF.type.asNode(), uri(BRICK + a.className()));
+        add(point, RDF.type.asNode(), uri(BrickVocabulary.iri(a.className())));
         add(point, uri(TUFA + "mappedBy"), text(a.ruleLabel()));
         a.unit().ifPresent(u -> add(point, uri(BRICK + "hasUnit"), uri(Namespaces.UNIT + u)));
         if (a.equipment().isEmpty()) {
-            // A classified point that belongs to no equipment (a roof weather sensor, a site meter) is a point of
-            // the building: Brick lets a location have points, and consumers looking for building-wide points
-            // (the outdoor air temperature) find it there.
-            add(building, uri(BRICK + "hasPoint"), point);
-            add(point, uri(BRICK + "isPointOf"), building);
+            // A classified point that belongs to no equipment (a roof weather sensor, a site meter, a room sensor)
+            // is a point of its location, or of the building: Brick lets a location have points, and consumers
+            // looking for building-wide points (the outdoor air temperature) find them there.
+            Node place = locationChain(a.locations(), building);
+            add(place, uri(BRICK + "hasPoint"), point);
+            add(point, uri(BRICK + "isPointOf"), place);
             return;
         }
         Assignment.Equipment eq = a.equipment().get();
@@ -159,16 +166,7 @@ public final class ModelBuilder {
         }
         typed(equipment, eq.id(), eq.className());
 
-        Node parent = building;
-        for (Assignment.Link loc : a.locations()) {
-            Node l = uri(iris.location(loc.className(), loc.id()));
-            typed(l, "location " + loc.className() + " " + loc.id(), loc.className());
-            add(l, RDFS.label.asNode(), text(loc.id()));
-            add(l, uri(BRICK + "isPartOf"), parent);
-            add(parent, uri(BRICK + "hasPart"), l);
-            parent = l;
-        }
-        add(equipment, uri(BRICK + "hasLocation"), parent);
+        add(equipment, uri(BRICK + "hasLocation"), locationChain(a.locations(), building));
         for (Assignment.Link f : a.feeds()) {
             Node t = uri(iris.equipment(f.id()));
             typed(t, f.id(), f.className());
@@ -199,9 +197,25 @@ public final class ModelBuilder {
         }
     }
 
+    /** Writes a rule's location chain (outermost first, the first part of the building); returns the innermost. */
+    private Node locationChain(List<Assignment.Link> chain, Node building) {
+        Node parent = building;
+        for (Assignment.Link loc : chain) {
+            Node l = uri(iris.location(loc.className(), loc.id()));
+            typed(l, "location " + loc.className() + " " + loc.id(), loc.className());
+            add(l, RDFS.label.asNode(), text(loc.id()));
+            add(l, uri(BRICK + "isPartOf"), parent);
+            add(parent, uri(BRICK + "hasPart"), l);
+            parent = l;
+        }
+        return parent;
+    }
+
     private void typed(Node n, String id, String className) {
         classesById.computeIfAbsent(id, k -> new TreeSet<>()).add(className);
-        add(n, RDF.type.asNode(), uri(BRICK + className));
+        String iri = BrickVocabulary.iri(className);
+        usesRec |= iri.startsWith(Namespaces.REC);
+        add(n, RDF.type.asNode(), uri(iri));
         if (!id.startsWith("location ")) {
             add(n, RDFS.label.asNode(), text(id));
         }

@@ -16,13 +16,15 @@ import org.tufa.mapper.match.PointMapping;
 
 /**
  * The mapping report: a CSV with exactly one row per input row, in input order. Columns: line, point, status
- * (mapped, unmapped, conflict, duplicate, rejected), reason, rule ("file:line"), class, equipment, part.
+ * (mapped, ambiguous, unclassified, unmapped, skipped, conflict, duplicate, rejected), reason, rule ("file:line"),
+ * class, equipment, part, score (the tag-match score, 1 for a class the rule names), runner_up and
+ * runner_up_score (the best rival class of a tag-matched point, when there is one).
  */
 public final class MappingReport {
 
     /** The header row. */
     public static final List<String> HEADER = List.of("line", "point", "status", "reason", "rule", "class",
-            "equipment", "part");
+            "equipment", "part", "score", "runner_up", "runner_up_score");
 
     private MappingReport() {
     }
@@ -43,6 +45,11 @@ public final class MappingReport {
         }
     }
 
+    /** A score with three decimals, the same on every machine. */
+    static String score(double s) {
+        return String.format(java.util.Locale.ROOT, "%.3f", s);
+    }
+
     /** Writes the report to a writer. */
     public static void write(MappingResult result, Writer out) throws IOException {
         CSVFormat format = CSVFormat.RFC4180.builder().setRecordSeparator('\n').get();
@@ -53,7 +60,9 @@ public final class MappingReport {
             p.printRecord(m.point().line(), m.point().name(), m.status().label(), m.reason(),
                     a.map(Assignment::ruleLabel).orElse(""), a.map(Assignment::className).orElse(""),
                     a.map(Assignment::equipmentId).orElse(""),
-                    a.flatMap(Assignment::part).map(Assignment.Part::localId).orElse(""));
+                    a.flatMap(Assignment::part).map(Assignment.Part::localId).orElse(""),
+                    a.map(x -> score(x.score())).orElse(""), a.flatMap(Assignment::runnerUp).orElse(""),
+                    a.filter(x -> x.runnerUp().isPresent()).map(x -> score(x.runnerUpScore())).orElse(""));
         }
         p.flush();
     }

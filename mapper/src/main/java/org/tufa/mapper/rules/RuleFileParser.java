@@ -36,10 +36,10 @@ public final class RuleFileParser {
     /** Fields a template may name besides the rule's regex groups. */
     public static final Set<String> BUILT_INS = Set.of("name", "description", "units", "type", "device", "series");
 
-    static final List<String> TOP_KEYWORDS = List.of("building", "base-iri", "abbr", "type-tags", "unit-for", "part",
-            "min-score", "expect", "rule");
+    static final List<String> TOP_KEYWORDS = List.of("building", "base-iri", "abbr", "type-tags", "default-role",
+            "unit-for", "part", "min-score", "margin", "strip", "skip", "table", "expect", "rule");
     static final List<String> RULE_KEYWORDS = List.of("match", "class", "tags", "equipment", "part", "location",
-            "feeds", "fed-by", "unit", "unit-for", "airflow", "compete", "abbr", "expect");
+            "feeds", "fed-by", "unit", "unit-for", "airflow", "compete", "abbr", "strip", "expect");
 
     /** Default object-type tags: a hardware input senses, an output commands (BACnet usage, see notes §7). */
     static final Map<String, List<String>> DEFAULT_TYPE_TAGS = Map.of("AI", List.of("Sensor"), "AO",
@@ -49,6 +49,8 @@ public final class RuleFileParser {
     private static final Pattern GROUP_NAME = Pattern.compile("\\(\\?<([a-zA-Z][a-zA-Z0-9]*)>");
     private static final Pattern TRAILING_COMMENT = Pattern.compile("\\s#");
     private static final Pattern UNIT_NAME = Pattern.compile("[A-Za-z][A-Za-z0-9_\\-]*");
+    /** A table look-up in a class position: TABLE[{group}]. */
+    private static final Pattern TABLE_REF = Pattern.compile("([A-Za-z][A-Za-z0-9_\\-]*)\\[(.+)\\]");
 
     private final Path file;
     private final String fileName;
@@ -60,14 +62,22 @@ public final class RuleFileParser {
     private final List<Rule.PartSpec> globalParts = new ArrayList<>();
     private final List<Expectation> expectations = new ArrayList<>();
     private final List<RuleBuilder> ruleBuilders = new ArrayList<>();
+    private final List<RuleSet.Skip> skips = new ArrayList<>();
+    private final Map<String, Map<String, String>> tables = new TreeMap<>();
+    private final Map<String, Integer> tableLines = new TreeMap<>();
+    private final List<Pattern> strip = new ArrayList<>();
+    private final Set<String> defaultRole = new TreeSet<>();
+    private final Dictionary builtIn;
     private String building;
     private Optional<String> baseIri = Optional.empty();
     private double minScore = 0.5;
+    private double margin = RuleSet.DEFAULT_MARGIN;
 
-    private RuleFileParser(Path file, BrickVocabulary vocabulary) {
+    private RuleFileParser(Path file, BrickVocabulary vocabulary, Dictionary builtIn) {
         this.file = file;
         this.fileName = file.getFileName() == null ? file.toString() : file.getFileName().toString();
         this.vocabulary = vocabulary;
+        this.builtIn = builtIn;
     }
 
     /** Reads and checks a rule file. */
@@ -93,7 +103,7 @@ public final class RuleFileParser {
 
     /** Parses rule-file text ({@code file} is used in messages and labels). */
     public static RuleSet parse(Path file, String text, BrickVocabulary vocabulary) {
-        return new RuleFileParser(file, vocabulary).run(text);
+        return new RuleFileParser(file, vocabulary, TradeAbbreviations.dictionary(vocabulary)).run(text);
     }
 
     private RuleSet run(String text) {
@@ -151,13 +161,13 @@ public final class RuleFileParser {
         if (building == null) {
             throw InputException.in(file, "no 'building NAME' line; add one (e.g. 'building Harbourview Annex')");
         }
-        Dictionary dictionary = Dictionary.of(abbreviations, null);
+        Dictionary dictionary = Dictionary.of(abbreviations, builtIn);
         List<Rule> rules = new ArrayList<>();
         for (RuleBuilder b : ruleBuilders) {
             rules.add(b.build(dictionary));
         }
-        return new RuleSet(file, building, baseIri, rules, dictionary, typeTags, unitDefaults, globalParts, minScore,
-                expectations, warnings);
+        return new RuleSet(file, building, baseIri, rules, dictionary, typeTags, List.copyOf(defaultRole),
+                unitDefaults, globalParts, minScore, margin, skips, strip, expectations, warnings);
     }
 
     private void topLevel(int ln, String keyword, String rest) {
@@ -178,7 +188,39 @@ public final class RuleFileParser {
                 }
                 baseIri = Optional.of(rest);
             }
-            case "abbr" -> abbreviations.add(abbreviation(ln, rest));
+            case "abbr" -> abbreviations.addAll(abbreviation(ln, rest));
+            case "default-role" -> {
+                List<String> tags = tagList(ln, rest);
+                for (String t : tags) {
+                    if (!RuleSet.ROLE_TAGS.contains(t)) {
+                        throw error(ln, "'default-role' takes role tags (" + String.join(", ", RuleSet.ROLE_TAGS)
+                                + "), not '" + t + "'");
+                    }
+                }
+                defaultRole.addAll(tags);
+            }
+            case "margin" -> {
+                try {
+                    margin = Double.parseDouble(rest);
+                } catch (NumberFormatException e) {
+                    margin = -1;
+                }
+                if (!(margin >= 0 && margin < 1)) {
+                    throw error(ln, "'margin' needs a number in [0, 1), e.g. 'margin 0.1' (0: only ties are "
+                            + "ambiguous)");
+                }
+            }
+            case "strip" -> strip.add(regex(ln, rest));
+            case "skip" -> {
+                int b = rest.indexOf(" because ");
+                if (b <= 0 || rest.substring(b + 9).isBlank()) {
+                    throw error(ln, "'skip' needs 'REGEX because REASON', e.g. 'skip _Request$ because request "
+                            + "points are not modelled'");
+                }
+                skips.add(new RuleSet.Skip(regex(ln, rest.substring(0, b).strip()), rest.substring(b + 9).strip(),
+                        fileName + ":" + ln));
+            }
+            case "table" -> table(ln, rest);
             case "type-tags" -> {
                 int eq = rest.indexOf('=');
                 if (eq < 0) {
@@ -197,7 +239,7 @@ public final class RuleFileParser {
                 unitDefaults.add(Map.entry(tag(ln, w[0]), unit(ln, w[1])));
             }
             case "part" -> {
-                Rule.PartSpec p = part(ln, rest);
+                Rule.PartSpec p = part(ln, rest, null);
                 if (p.when().isEmpty()) {
                     throw error(ln, "a part outside a rule needs 'when Tag...' (which points it applies to); "
                             + "or indent it under a rule");
@@ -235,23 +277,34 @@ public final class RuleFileParser {
                 int sp = indexOfWhitespace(rest);
                 String what = sp < 0 ? rest : rest.substring(0, sp);
                 String arg = sp < 0 ? "" : rest.substring(sp).strip();
+                boolean negated = what.equals("not");
+                if (negated) {
+                    int sp2 = indexOfWhitespace(arg);
+                    what = sp2 < 0 ? arg : arg.substring(0, sp2);
+                    arg = sp2 < 0 ? "" : arg.substring(sp2).strip();
+                }
                 if (arg.isEmpty()) {
-                    throw error(ln, "'match " + what + "' needs a value");
+                    throw error(ln, "'match " + (negated ? "not " : "") + what + "' needs a value");
                 }
                 switch (what) {
-                    case "name" -> r.name = once(ln, r.name, regex(ln, arg), "match name");
-                    case "description" -> r.description = once(ln, r.description, regex(ln, arg),
-                            "match description");
-                    case "units" -> r.units = once(ln, r.units, regex(ln, arg), "match units");
-                    case "device" -> r.device = once(ln, r.device, regex(ln, arg), "match device");
+                    case "name", "description", "units", "device" -> {
+                        Pattern pattern = regex(ln, arg);
+                        Rule.Field field = Rule.Field.valueOf(what.toUpperCase(Locale.ROOT));
+                        r.matches.add(new Rule.FieldMatch(field, pattern, negated,
+                                negated ? List.of() : List.copyOf(groupNames(pattern))));
+                    }
                     case "type" -> {
+                        if (negated) {
+                            throw error(ln, "'match not type' is not supported; list the types the rule takes");
+                        }
                         for (String t : arg.split("[\\s,]+")) {
                             r.types.add(ObjectTypes.normalise(t).orElseThrow(() -> error(ln, "'" + t
                                     + "' is not a BACnet object type; use one of " + ObjectTypes.KNOWN)));
                         }
                     }
                     default -> throw error(ln, "'match " + what + "': match what? write 'match name REGEX', "
-                            + "'match description REGEX', 'match units REGEX', 'match device REGEX' or 'match type AI AV ...'");
+                            + "'match description REGEX', 'match units REGEX', 'match device REGEX', "
+                            + "'match type AI AV ...', or 'match not name REGEX' to exclude");
                 }
             }
             case "class" -> {
@@ -264,9 +317,10 @@ public final class RuleFileParser {
                     r.tagSource = template(ln, src.isEmpty() ? "{name}" : src);
                     r.templates.add(Map.entry(r.tagSource, ln));
                 } else if (rest.isEmpty() || rest.contains(" ")) {
-                    throw error(ln, "'class' needs one Brick class name, or 'tags {group}' to resolve it from tags");
+                    throw error(ln, "'class' needs one Brick class name, 'TABLE[{group}]', or 'tags {group}' to "
+                            + "resolve it from tags");
                 } else {
-                    r.pointClass = Optional.of(brickClass(ln, rest));
+                    r.pointClass = Optional.of(classRef(ln, rest, r));
                 }
             }
             case "tags" -> r.extraTags.addAll(tagList(ln, rest));
@@ -281,10 +335,10 @@ public final class RuleFileParser {
                 }
                 Template t = template(ln, w[0]);
                 r.templates.add(Map.entry(t, ln));
-                r.equipment = Optional.of(new Rule.EquipmentSpec(t, brickClass(ln, w[1])));
+                r.equipment = Optional.of(new Rule.EquipmentSpec(t, classRef(ln, w[1], r)));
             }
             case "part" -> {
-                Rule.PartSpec p = part(ln, rest);
+                Rule.PartSpec p = part(ln, rest, r);
                 r.templates.add(Map.entry(p.id(), ln));
                 r.parts.add(p);
             }
@@ -296,7 +350,7 @@ public final class RuleFileParser {
                 }
                 Template t = template(ln, w[1]);
                 r.templates.add(Map.entry(t, ln));
-                Rule.LinkSpec link = new Rule.LinkSpec(brickClass(ln, w[0]), t);
+                Rule.LinkSpec link = new Rule.LinkSpec(classRef(ln, w[0], r), t);
                 (keyword.equals("location") ? r.locations : keyword.equals("feeds") ? r.feeds : r.fedBy).add(link);
             }
             case "unit" -> r.unit = once(ln, r.unit, unit(ln, rest), "unit");
@@ -332,7 +386,8 @@ public final class RuleFileParser {
                 }
                 r.compete = once(ln, r.compete, rest, "compete");
             }
-            case "abbr" -> r.abbreviations.add(abbreviation(ln, rest));
+            case "abbr" -> r.abbreviations.addAll(abbreviation(ln, rest));
+            case "strip" -> r.strip.add(regex(ln, rest));
             case "expect" -> expect(ln, rest);
             default -> {
                 if (TOP_KEYWORDS.contains(keyword)) {
@@ -352,16 +407,70 @@ public final class RuleFileParser {
         return Optional.of(value);
     }
 
-    private Dictionary.Entry abbreviation(int ln, String rest) {
+    /**
+     * One {@code abbr} line: a phrase of one or more tokens and its tags; with {@code = -} every token listed is
+     * ignored on its own ({@code abbr PGM DAC UIP = -} ignores three tokens).
+     */
+    private List<Dictionary.Entry> abbreviation(int ln, String rest) {
         int eq = rest.lastIndexOf('=');
         if (eq < 0) {
-            throw error(ln, "'abbr' needs 'TOKEN... = Tag Tag...' (or 'TOKEN = -' to ignore the token)");
+            throw error(ln, "'abbr' needs 'TOKEN... = Tag Tag...' (or 'TOKEN... = -' to ignore the tokens)");
         }
         List<String> key = Tokenizer.keys(rest.substring(0, eq));
         if (key.isEmpty()) {
             throw error(ln, "'abbr' has no token before '='");
         }
-        return new Dictionary.Entry(key, tagList(ln, rest.substring(eq + 1)), ln);
+        List<String> tags = tagList(ln, rest.substring(eq + 1));
+        if (tags.isEmpty()) {
+            List<Dictionary.Entry> out = new ArrayList<>();
+            for (String k : key) {
+                out.add(new Dictionary.Entry(List.of(k), List.of(), ln));
+            }
+            return out;
+        }
+        return List.of(new Dictionary.Entry(key, tags, ln));
+    }
+
+    /** {@code table NAME KEY=Class KEY=Class ...}: classes by key, for TABLE[{group}] in class positions. */
+    private void table(int ln, String rest) {
+        String[] w = rest.split("\\s+");
+        if (w.length < 2 || !w[0].matches("[A-Za-z][A-Za-z0-9_\\-]*") || w[0].contains("=")) {
+            throw error(ln, "'table' needs 'NAME KEY=Class KEY=Class ...', e.g. 'table FANS SF=Supply_Fan "
+                    + "RF=Return_Fan'");
+        }
+        Map<String, String> entries = tables.computeIfAbsent(w[0], k -> new TreeMap<>());
+        tableLines.putIfAbsent(w[0], ln);
+        for (int i = 1; i < w.length; i++) {
+            int eq = w[i].indexOf('=');
+            if (eq <= 0 || eq == w[i].length() - 1) {
+                throw error(ln, "table entry '" + w[i] + "' should be KEY=Class (no spaces around '=')");
+            }
+            String key = w[i].substring(0, eq).toUpperCase(Locale.ROOT);
+            String cls = brickClass(ln, w[i].substring(eq + 1));
+            String before = entries.put(key, cls);
+            if (before != null && !before.equals(cls)) {
+                throw error(ln, "table " + w[0] + " gives key '" + w[i].substring(0, eq) + "' two classes ("
+                        + before + ", " + cls + "); keep one");
+            }
+        }
+    }
+
+    /** A class position: a Brick class, or TABLE[{group}] (a table declared above). */
+    private ClassRef classRef(int ln, String word, RuleBuilder r) {
+        Matcher m = TABLE_REF.matcher(word);
+        if (m.matches() && !word.contains(":")) {
+            Map<String, String> entries = tables.get(m.group(1));
+            if (entries == null) {
+                throw error(ln, "no table '" + m.group(1) + "' above this line; declare it first with 'table "
+                        + m.group(1) + " KEY=Class ...'" + suggest(m.group(1), List.copyOf(tables.keySet())));
+            }
+            Template key = template(ln, m.group(2));
+            if (r != null) {
+                r.templates.add(Map.entry(key, ln));
+            }
+            return ClassRef.lookup(m.group(1), key, entries);
+        }
+        return ClassRef.of(brickClass(ln, word));
     }
 
     private List<String> tagList(int ln, String text) {
@@ -388,17 +497,42 @@ public final class RuleFileParser {
         if (ci.isPresent()) {
             return ci.get();
         }
-        throw error(ln, vocabulary.unknownTagMessage(name));
+        throw error(ln, vocabulary.unknownTagMessage(name) + "; pass --vocabulary with a newer Brick file if the "
+                + "tag is real");
     }
 
+    /**
+     * A class name checked against the vocabulary. A class Brick deprecated in favour of another Brick class is
+     * replaced by it, with a warning (Brick 1.3.0 swapped supply/return for leaving/entering on water points; 1.3.0
+     * replaced Zone_Air_Temperature_Setpoint by Target_Zone_Air_Temperature_Setpoint); one whose replacement lies
+     * outside Brick (1.4.0: Floor -> rec:Level) is kept, and the warning says how to write the replacement.
+     */
     private String brickClass(int ln, String word) {
+        if (vocabulary.isReplacementClass(word)) {
+            return org.tufa.vocabulary.Namespaces.compact(word).orElse(word);
+        }
         String name = BrickVocabulary.className(word);
         if (!vocabulary.isClass(name)) {
-            throw error(ln, vocabulary.unknownClassMessage(name) + "; pass --vocabulary with a full Brick file if "
-                    + "the class is real");
+            String extra = name.contains(":") ? "; classes outside Brick that can be written: "
+                    + String.join(", ", vocabulary.replacementClasses()) : "";
+            throw error(ln, vocabulary.unknownClassMessage(name) + extra + "; pass --vocabulary with a newer Brick "
+                    + "file if the class is real");
         }
-        vocabulary.deprecation(name).ifPresent(d -> warnings.add(fileName + ":" + ln + ": class " + name + " is "
-                + d.describe() + "; accepted as written"));
+        Optional<org.tufa.vocabulary.Deprecation> dep = vocabulary.deprecation(name);
+        if (dep.isEmpty()) {
+            return name;
+        }
+        String version = dep.get().version().isEmpty() ? "" : " in Brick " + dep.get().version();
+        Optional<String> current = vocabulary.current(name);
+        if (current.isPresent()) {
+            warnings.add(fileName + ":" + ln + ": class " + name + " is deprecated" + version + "; written as "
+                    + current.get() + " (its replacement)");
+            return current.get();
+        }
+        String replacement = org.tufa.vocabulary.Namespaces.compact(dep.get().replacementIri())
+                .orElse(dep.get().replacementIri());
+        warnings.add(fileName + ":" + ln + ": class " + name + " is deprecated" + version
+                + (replacement.isEmpty() ? "" : "; write " + replacement + " to follow Brick") + "; accepted as written");
         return name;
     }
 
@@ -415,34 +549,19 @@ public final class RuleFileParser {
         return w;
     }
 
-    private Rule.PartSpec part(int ln, String rest) {
+    private Rule.PartSpec part(int ln, String rest, RuleBuilder r) {
         String[] w = rest.split("\\s+");
         if (w.length < 2 || w.length == 3 || w.length > 2 && !w[2].equals("when")) {
             throw error(ln, "'part' needs 'ID Class [when Tag...]', e.g. 'part CHWV Chilled_Water_Valve when "
                     + "Cool Valve'");
         }
         Template id = template(ln, w[0]);
-        String cls = brickClass(ln, w[1]);
+        ClassRef cls = classRef(ln, w[1], r);
         Set<String> when = new TreeSet<>();
         for (int i = 3; i < w.length; i++) {
             when.add(tag(ln, w[i]));
         }
-        return new Rule.PartSpec(id, cls, when, qualifiers(cls, when), ln);
-    }
-
-    /**
-     * Tags that say which part a point hangs on rather than what the point is: the part class's own tags and the
-     * {@code when} tags, minus Equipment and minus the tag naming the part's kind (the last word of the class
-     * name: Valve for Chilled_Water_Valve, Fan for Fan). Brick has no "chilled water valve command" class; the
-     * point is a Valve_Position_Command and the part carries "chilled water".
-     */
-    Set<String> qualifiers(String partClass, Set<String> when) {
-        Set<String> q = new TreeSet<>(when);
-        q.addAll(vocabulary.associatedTags(partClass));
-        q.remove("Equipment");
-        String[] words = partClass.split("_");
-        q.remove(words[words.length - 1]);
-        return q;
+        return new Rule.PartSpec(id, cls, when, ln);
     }
 
     private Pattern regex(int ln, String text) {
@@ -610,12 +729,10 @@ public final class RuleFileParser {
         final String id;
         final int line;
         final int index;
-        Optional<Pattern> name = Optional.empty();
-        Optional<Pattern> description = Optional.empty();
-        Optional<Pattern> units = Optional.empty();
-        Optional<Pattern> device = Optional.empty();
+        final List<Rule.FieldMatch> matches = new ArrayList<>();
+        final List<Pattern> strip = new ArrayList<>();
         final Set<String> types = new TreeSet<>();
-        Optional<String> pointClass = Optional.empty();
+        Optional<ClassRef> pointClass = Optional.empty();
         Template tagSource = Template.parse("{name}");
         int classLine;
         final List<String> extraTags = new ArrayList<>();
@@ -638,15 +755,15 @@ public final class RuleFileParser {
         }
 
         Rule build(Dictionary fileDictionary) {
-            if (name.isEmpty() && description.isEmpty()) {
+            if (matches.stream().noneMatch(m -> !m.negated()
+                    && (m.field() == Rule.Field.NAME || m.field() == Rule.Field.DESCRIPTION))) {
                 throw error(line, "rule '" + id + "' has no 'match name REGEX' or 'match description REGEX' line; "
                         + "add one so the rule knows which points it takes");
             }
             Set<String> groups = new java.util.LinkedHashSet<>();
-            name.ifPresent(p -> groups.addAll(groupNames(p)));
-            description.ifPresent(p -> groups.addAll(groupNames(p)));
-            units.ifPresent(p -> groups.addAll(groupNames(p)));
-            device.ifPresent(p -> groups.addAll(groupNames(p)));
+            for (Rule.FieldMatch m : matches) {
+                groups.addAll(m.groups());
+            }
             for (Map.Entry<Template, Integer> t : templates) {
                 for (String slot : t.getKey().slots()) {
                     if (!groups.contains(slot) && !BUILT_INS.contains(slot)) {
@@ -657,10 +774,10 @@ public final class RuleFileParser {
                     }
                 }
             }
-            if (equipment.isEmpty() && (!parts.isEmpty() || !locations.isEmpty() || !feeds.isEmpty()
-                    || !fedBy.isEmpty() || airflow.isPresent())) {
-                throw error(line, "rule '" + id + "' has parts, locations, feeds or airflow but no 'equipment' "
-                        + "line; add the equipment they belong to");
+            if (equipment.isEmpty() && (!parts.isEmpty() || !feeds.isEmpty() || !fedBy.isEmpty()
+                    || airflow.isPresent())) {
+                throw error(line, "rule '" + id + "' has parts, feeds or airflow but no 'equipment' line; add the "
+                        + "equipment they belong to (a location alone is fine: the points are then put there)");
             }
             Set<String> seen = new HashSet<>();
             for (Rule.PartSpec p : parts) {
@@ -670,10 +787,16 @@ public final class RuleFileParser {
             }
             Dictionary dict = abbreviations.isEmpty() ? fileDictionary : Dictionary.of(abbreviations, fileDictionary);
             String label = fileName + ":" + line;
-            return new Rule(id, label, index, name, description, units, device, Set.copyOf(types), pointClass, tagSource,
+            // every positive name pattern must match, so any one's literal prefix filters: take the longest
+            Optional<String> prefix = matches.stream().filter(m -> !m.negated() && m.field() == Rule.Field.NAME)
+                    .map(m -> literalPrefix(m.pattern())).flatMap(Optional::stream)
+                    .max(java.util.Comparator.comparingInt(String::length));
+            List<Pattern> strips = new ArrayList<>(strip);
+            strips.addAll(RuleFileParser.this.strip);
+            return new Rule(id, label, index, List.copyOf(matches), Set.copyOf(types), pointClass, tagSource,
                     List.copyOf(extraTags), equipment, List.copyOf(parts), List.copyOf(locations), List.copyOf(feeds),
-                    List.copyOf(fedBy), unit, List.copyOf(unitDefaults), airflow, compete, dict,
-                    name.flatMap(RuleFileParser::literalPrefix));
+                    List.copyOf(fedBy), unit, List.copyOf(unitDefaults), airflow, compete, dict, List.copyOf(strips),
+                    prefix);
         }
     }
 

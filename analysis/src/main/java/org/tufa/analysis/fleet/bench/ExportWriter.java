@@ -97,6 +97,8 @@ final class ExportWriter {
             case TEMPERATURE -> unit.isEmpty() || unit.equals("DEG_C");
             case COMMAND -> unit.isEmpty() || unit.equals("PERCENT");
             case BINARY -> true;
+            case AIRFLOW -> unit.isEmpty() || unit.equals("L-PER-SEC");
+            case PRESSURE -> unit.isEmpty() || unit.equals("PA");
         };
         if (!si) {
             throw new IllegalArgumentException("series " + t.seriesId() + ": the export writer writes SI only, not "
@@ -106,6 +108,7 @@ final class ExportWriter {
             case TEMPERATURE -> 3;
             case COMMAND -> 2;
             case BINARY -> -1;
+            case AIRFLOW, PRESSURE -> 1;
         };
         return new Column(t.seriesId(), values, decimals);
     }
