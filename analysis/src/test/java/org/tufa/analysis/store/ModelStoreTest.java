@@ -199,7 +199,8 @@ class ModelStoreTest {
                         HttpResponse.BodyHandlers.ofString());
                 assertFalse(refused.statusCode() == 200 && refused.body().contains("\"s\""), refused.body());
                 boolean connected;
-                try (var ignored = trap.accept()) {
+                try {
+                    trap.accept().close();
                     connected = true;
                 } catch (SocketTimeoutException e) {
                     connected = false;
