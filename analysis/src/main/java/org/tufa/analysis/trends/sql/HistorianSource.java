@@ -178,6 +178,8 @@ public final class HistorianSource implements TrendSource {
         }
         p.setProperty("ApplicationName", "tufa");
         p.setProperty("connectTimeout", "10");
+        // Binary results from the first query on (the driver otherwise sends text until a query has run 5 times).
+        p.setProperty("prepareThreshold", "-1");
         p.setProperty("loginTimeout", "15");
         // Read-only sessions: tufa never writes to a historian.
         p.setProperty("readOnly", "true");
@@ -199,8 +201,8 @@ public final class HistorianSource implements TrendSource {
             String table = e.getKey();
             String where = settings.layout() == HistorianSettings.Layout.LONG
                     ? " WHERE t." + columns.series() + " = w.id" + bounds(" AND ") : bounds(" WHERE ");
-            String sql = "SELECT w.id, (SELECT floor(extract(epoch FROM min(t." + columns.time() + ")))::int8 FROM "
-                    + table + " t" + where + "), (SELECT floor(extract(epoch FROM max(t." + columns.time()
+            String sql = "SELECT w.id, (SELECT floor(date_part('epoch', min(t." + columns.time() + ")))::int8 FROM "
+                    + table + " t" + where + "), (SELECT floor(date_part('epoch', max(t." + columns.time()
                     + ")))::int8 FROM " + table + " t" + where + ") FROM unnest(?::text[]) AS w(id)";
             try (PreparedStatement ps = c.prepareStatement(sql)) {
                 int k = bindBounds(ps, 1);
@@ -374,8 +376,13 @@ public final class HistorianSource implements TrendSource {
                 r.cellsWithSamples(), r.cellsHeld());
     }
 
+    /**
+     * Epoch seconds (local ones for a timestamp without zone), truncated as the file reader truncates fractions.
+     * date_part gives a double; extract gives a numeric, which on the 500-unit year made each unit's query 2.5
+     * times as slow on the server.
+     */
     private String timeExpression() {
-        return "floor(extract(epoch FROM t." + columns.time() + "))::int8";
+        return "floor(date_part('epoch', t." + columns.time() + "))::int8";
     }
 
     private String valueExpression() {
