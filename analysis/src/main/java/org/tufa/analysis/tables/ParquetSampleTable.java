@@ -7,6 +7,7 @@ import java.util.HashMap;
 import java.util.List;
 import org.apache.hadoop.conf.Configuration;
 import org.apache.parquet.column.ParquetProperties;
+import org.apache.parquet.hadoop.metadata.ColumnPath;
 import org.apache.parquet.conf.ParquetConfiguration;
 import org.apache.parquet.conf.PlainParquetConfiguration;
 import org.apache.parquet.hadoop.ParquetFileWriter;
@@ -54,26 +55,34 @@ final class ParquetSampleTable implements SampleTable {
         this.columns = List.copyOf(columns);
         this.row = new Row(columns.size());
         Files.deleteIfExists(file);
-        MessageType schema = schema(columns);
-        Builder builder = new Builder(new LocalOutputFile(file), schema, this.columns)
-                .withConf(new PlainParquetConfiguration())
-                .withCodecFactory(new GzipCodecs())
-                .withCompressionCodec(CompressionCodecName.GZIP)
-                .withWriterVersion(ParquetProperties.WriterVersion.PARQUET_2_0)
-                .withWriteMode(ParquetFileWriter.Mode.OVERWRITE);
-        // A dictionary pays for mode names and cluster labels. Times and measured doubles are nearly all distinct: on
-        // the demo summer a dictionary for the doubles gave the same 24 MB and only cost time. Min/max statistics
-        // are kept for the time column (readers skip pages by time with them), not for the others: they cost
-        // writing time and no reader of these tables filters on a feature's range.
-        builder.withPageWriteChecksumEnabled(false).withSizeStatisticsEnabled(false).withStatisticsEnabled(false);
-        for (SampleColumn c : columns) {
-            builder.withDictionaryEncoding(c.name(), c.kind() == SampleColumn.Kind.TEXT
-                    || c.kind() == SampleColumn.Kind.INTEGER);
-            if (c.kind() == SampleColumn.Kind.TIME) {
-                builder.withStatisticsEnabled(c.name(), true);
+        // parquet-java interns column paths in a static map that is not thread-safe, and looks the per-column
+        // settings up by those paths: two writers built at once on two threads could lose the dictionary settings
+        // and write other (equally valid) bytes. Building writers one at a time keeps the files the same bytes
+        // whatever the thread count.
+        ParquetWriter<Row> writer;
+        synchronized (ColumnPath.class) {
+            MessageType schema = schema(columns);
+            Builder builder = new Builder(new LocalOutputFile(file), schema, this.columns)
+                    .withConf(new PlainParquetConfiguration())
+                    .withCodecFactory(new GzipCodecs())
+                    .withCompressionCodec(CompressionCodecName.GZIP)
+                    .withWriterVersion(ParquetProperties.WriterVersion.PARQUET_2_0)
+                    .withWriteMode(ParquetFileWriter.Mode.OVERWRITE);
+            // A dictionary pays for mode names and cluster labels. Times and measured doubles are nearly all
+            // distinct: on the demo summer a dictionary for the doubles gave the same 24 MB and only cost time.
+            // Min/max statistics are kept for the time column (readers skip pages by time with them), not for the
+            // others: they cost writing time and no reader of these tables filters on a feature's range.
+            builder.withPageWriteChecksumEnabled(false).withSizeStatisticsEnabled(false).withStatisticsEnabled(false);
+            for (SampleColumn c : columns) {
+                builder.withDictionaryEncoding(c.name(), c.kind() == SampleColumn.Kind.TEXT
+                        || c.kind() == SampleColumn.Kind.INTEGER);
+                if (c.kind() == SampleColumn.Kind.TIME) {
+                    builder.withStatisticsEnabled(c.name(), true);
+                }
             }
+            writer = builder.build();
         }
-        this.writer = builder.build();
+        this.writer = writer;
     }
 
     static MessageType schema(List<SampleColumn> columns) {
@@ -135,7 +144,9 @@ final class ParquetSampleTable implements SampleTable {
 
     @Override
     public void close() throws IOException {
-        writer.close();
+        synchronized (ColumnPath.class) { // the footer's column paths go through the same static map
+            writer.close();
+        }
     }
 
     /** Hands rows to parquet-java's record consumer, column by column. */

@@ -68,6 +68,12 @@ public final class SampleTableReader {
      * @throws InputException when the file is missing, unreadable or lacks the columns
      */
     public static TimedTexts read(Path file, String timeColumn, String textColumn) {
+        synchronized (org.apache.parquet.hadoop.metadata.ColumnPath.class) { // see ParquetSampleTable
+            return readLocked(file, timeColumn, textColumn);
+        }
+    }
+
+    private static TimedTexts readLocked(Path file, String timeColumn, String textColumn) {
         if (!Files.isRegularFile(file)) {
             throw InputException.in(file, "file not found; pass the directory the analysis wrote");
         }
