@@ -30,7 +30,9 @@ import org.tufa.analysis.report.FleetPage;
 import org.tufa.analysis.report.UnitPages;
 import org.tufa.analysis.tables.SampleFormat;
 import org.tufa.analysis.trends.TimeOptions;
+import java.nio.file.Files;
 import org.tufa.common.InputException;
+import org.tufa.common.OutputFiles;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
@@ -82,11 +84,11 @@ public final class AnalyzeCommand implements Callable<Integer> {
     @Option(names = "--to", paramLabel = "TIME", description = "End of the window, exclusive.")
     String to;
 
-    @Option(names = "--interval", paramLabel = "DURATION", defaultValue = "PT15M",
-            description = "Resampling step, ISO-8601 duration (default: ${DEFAULT-VALUE}).")
+    @Option(names = "--interval", paramLabel = "DURATION", defaultValue = "PT15M", converter = DurationConverter.class,
+            description = "Resampling step: ISO 8601 (PT15M) or 15min, 1h (default: ${DEFAULT-VALUE}).")
     Duration interval;
 
-    @Option(names = "--max-gap", paramLabel = "DURATION", defaultValue = "PT1H",
+    @Option(names = "--max-gap", paramLabel = "DURATION", defaultValue = "PT1H", converter = DurationConverter.class,
             description = "Longest gap a value is held across (default: ${DEFAULT-VALUE}).")
     Duration maxGap;
 
@@ -122,8 +124,12 @@ public final class AnalyzeCommand implements Callable<Integer> {
             description = "Candidate-cause table to use instead of the one shipped with tufa.")
     Path causes;
 
-    @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: all cores).")
-    int threads = Runtime.getRuntime().availableProcessors();
+    @Option(names = "--threads", paramLabel = "N",
+            description = "Worker threads, 1 to " + MAX_THREADS + " (default: all cores).")
+    int threads = Math.min(MAX_THREADS, Runtime.getRuntime().availableProcessors());
+
+    /** More workers than this only add memory (each holds one unit's signals): no machine tufa runs on needs them. */
+    static final int MAX_THREADS = 256;
 
     @Option(names = "--strict", description = "Stop at the first unparsable trend value instead of counting it.")
     boolean strict;
@@ -155,6 +161,10 @@ public final class AnalyzeCommand implements Callable<Integer> {
             throw new InputException("--interval, --max-gap, --from or --to: " + e.getMessage());
         }
         AnalysisSettings defaults = AnalysisSettings.defaults();
+        if (threads < 1 || threads > MAX_THREADS) {
+            throw new InputException("--threads " + threads + ": give 1 to " + MAX_THREADS
+                    + " worker threads (this machine has " + Runtime.getRuntime().availableProcessors() + " cores)");
+        }
         if (!(valveOpen >= 0 && valveOpen < 100) || !(fanOn > 0 && fanOn <= 1) || settling < 0) {
             throw new InputException("--valve-open must be 0..100, --fan-on in (0, 1] and --settling >= 0; got "
                     + valveOpen + ", " + fanOn + ", " + settling);
@@ -183,6 +193,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
                 .withDecision(new AnalysisSettings.DecisionSettings(minConfidence, d.minPeerDeviation(),
                         d.minPeers(), d.fleetWideP(), d.minFleetUnits()));
         TrendInput input = TrendInput.of(trends, historian, dbLogin);
+        checkOutputs(input);
         HeapWatch heap = HeapWatch.start();
         FleetModelOptions.Assessed assessed = fleet.assess();
         if (assessed.coverage().units().isEmpty()) {
@@ -199,7 +210,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
             sinks.add(new UnitPages(out, zone)); // charts and unit pages render in the worker threads
         }
         FleetAnalysis.Result result = FleetAnalysis.run(assessed.coverage(), input.opener(assessed.coverage()), time,
-                settings, Math.max(1, threads), sinks, bar::update);
+                settings, threads, sinks, bar::update);
         CoverageFiles.write(assessed.coverage(), out);
         List<Path> inputs = new ArrayList<>();
         if (fleet.model != null) {
@@ -224,17 +235,90 @@ public final class AnalyzeCommand implements Callable<Integer> {
         boolean anyDetection = assessed.coverage().units().stream().anyMatch(u -> u.analyzable()
                 && u.unitKind().equals(org.tufa.analysis.coverage.Profile.FAN_COIL));
         if (result.ingest().samplesKept() == 0 && anyDetection) {
-            // Nothing matched: almost always trend names that are not the model's series ids.
-            List<String> seen = result.ingest().unknownSeries();
-            stderr.println("tufa: no trend sample belongs to a point of the model: the trends' point names (long "
-                    + "files) or column headers (wide files) must be the points' ref:hasTimeseriesId values (or "
-                    + "their labels when the model has none)" + (seen.isEmpty() ? "" : "; the trends hold e.g. "
-                    + String.join(", ", seen.subList(0, Math.min(3, seen.size())))));
+            stderr.println("tufa: " + nothingKept(result.ingest(), time));
             stderr.flush();
-            return ExitCodes.CHECK_FAILED;
+            return result.ingest().unknownSeriesSamples() >= Math.max(result.ingest().unparsableTimestamps(),
+                    result.ingest().samplesOutsideWindow()) && result.ingest().unknownSeriesSamples() > 0
+                    ? ExitCodes.CHECK_FAILED : ExitCodes.INPUT_ERROR;
         }
         stderr.flush();
         return ExitCodes.OK;
+    }
+
+    /**
+     * Refuses, before anything is read or written, an --out that is a file and inputs that the run would overwrite:
+     * a file named like one of the fleet files in DIR, or anything under DIR/units or DIR/report.
+     */
+    private void checkOutputs(TrendInput input) {
+        OutputFiles.checkFolder("--out", out);
+        Map<String, Path> inputs = new LinkedHashMap<>(fleet.inputs());
+        if (causes != null) {
+            inputs.put("--causes", causes);
+        }
+        for (Path t : input.files()) {
+            if (Files.isDirectory(t)) {
+                if (OutputFiles.canonical(t).equals(OutputFiles.canonical(out))) {
+                    throw InputException.in(t, "--trends names the --out folder; the run writes its CSV files there "
+                            + "and would read them back as trends: keep trends and outputs in separate folders");
+                }
+                try (var listing = Files.list(t)) {
+                    listing.filter(Files::isRegularFile).sorted().forEach(f -> inputs.put("--trends " + f, f));
+                } catch (java.io.IOException e) {
+                    throw InputException.in(t, "cannot list the folder (" + OutputFiles.reason(e) + ")");
+                }
+            } else {
+                inputs.put("--trends " + t, t);
+            }
+        }
+        Map<String, Path> outputs = new LinkedHashMap<>();
+        for (String name : List.of("fleet.csv", "findings.csv", "ranking.csv", "run.json", CoverageFiles.CSV_FILE,
+                CoverageFiles.JSON_FILE)) {
+            outputs.put("--out (" + name + ")", out.resolve(name));
+        }
+        OutputFiles.checkDistinct(inputs, outputs);
+        for (String sub : List.of("units", "report")) {
+            Path below = OutputFiles.canonical(out.resolve(sub));
+            inputs.forEach((option, file) -> {
+                if (file != null && OutputFiles.canonical(file).startsWith(below)) {
+                    throw InputException.in(file, option.split(" ")[0] + " lies in " + out.resolve(sub)
+                            + ", which the run rewrites; move the input out of the output folder");
+                }
+            });
+        }
+    }
+
+    /**
+     * Why not a single sample was kept, by the largest reason: unreadable time stamps, a window outside the data,
+     * or series ids that are not the model's (the only one that is not an input error: exit code 3).
+     */
+    static String nothingKept(org.tufa.analysis.trends.IngestReport ingest, TimeOptions time) {
+        if (ingest.rows() == 0) {
+            return "the trend files hold no data rows, only headers; pass the files with the data";
+        }
+        long stamps = ingest.unparsableTimestamps();
+        long outside = ingest.samplesOutsideWindow();
+        long unknown = ingest.unknownSeriesSamples();
+        if (unknown > 0 && unknown >= stamps && unknown >= outside) {
+            List<String> seen = ingest.unknownSeries();
+            return "no trend sample belongs to a point of the model: the trends' point names (long files) or "
+                    + "column headers (wide files) must be the points' ref:hasTimeseriesId values (or their labels "
+                    + "when the model has none)" + (seen.isEmpty() ? "" : "; the trends hold e.g. " + String.join(
+                            ", ", seen.subList(0, Math.min(3, seen.size())).stream()
+                                    .map(org.tufa.common.Printable::excerpt).toList()));
+        }
+        if (stamps > 0 && stamps >= outside) {
+            List<String> examples = ingest.problemExamples(1);
+            return "no time stamp of the trends could be read (" + stamps + " rows)" + (examples.isEmpty() ? ""
+                    : ", e.g. " + examples.get(0)) + "; write ISO 8601 stamps (2031-07-01T08:15:00-04:00, or local "
+                    + "2031-07-01 08:15 with --timezone)";
+        }
+        if (outside > 0) {
+            return "all " + outside + " samples of the model's series lie outside the window"
+                    + (time.from() == null ? "" : " --from " + time.from()) + (time.to() == null ? "" : " --to "
+                    + time.to()) + (ingest.firstStamp() == null ? "" : "; the trends run from " + ingest.firstStamp()
+                    + " to " + ingest.lastStamp()) + ": choose --from/--to within that span";
+        }
+        return "no trend sample was kept: " + org.tufa.analysis.fleet.FleetReport.ingestLines(ingest).get(0);
     }
 
     private ZoneId zone() {

@@ -2,6 +2,7 @@ package org.tufa.cli;
 
 import java.nio.file.Path;
 import java.util.List;
+import java.util.Map;
 import java.util.concurrent.Callable;
 import org.tufa.analysis.coverage.CoverageFiles;
 import org.tufa.analysis.coverage.CoverageSummary;
@@ -33,6 +34,13 @@ public final class CoverageCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         var stdout = spec.commandLine().getOut();
+        if (maxListed < 0) {
+            throw new org.tufa.common.InputException("--list " + maxListed
+                    + ": give how many units to list, 0 or more (0 lists none)");
+        }
+        org.tufa.common.OutputFiles.checkFolder("--out", out);
+        org.tufa.common.OutputFiles.checkDistinct(fleet.inputs(), Map.of("--out (coverage.csv)",
+                out.resolve(CoverageFiles.CSV_FILE), "--out (coverage.json)", out.resolve(CoverageFiles.JSON_FILE)));
         FleetModelOptions.Assessed assessed = fleet.assess();
         FleetCoverage coverage = assessed.coverage();
         CoverageSummary.lines(coverage, assessed.prefixes(), maxListed).forEach(stdout::println);

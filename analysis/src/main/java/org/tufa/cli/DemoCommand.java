@@ -7,7 +7,6 @@ import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.nio.file.StandardCopyOption;
 import java.util.List;
 import java.util.concurrent.Callable;
 import org.tufa.analysis.simulate.DemoTrends;
@@ -107,7 +106,7 @@ public final class DemoCommand implements Callable<Integer> {
         SimulationResult result = Simulator.run(plan);
         Files.createDirectories(dir);
         List<Path> written = DemoTrends.write(dir, result, DemoTrends.Layout.WIDE);
-        Files.writeString(stamp, id, StandardCharsets.UTF_8);
+        org.tufa.common.OutputFiles.writeString(stamp, id);
         stdout.println("Simulated " + targets.units().size() + " fan coil units and " + targets.vavUnits().size()
                 + " VAV boxes with " + plan.faults().size() + " fault episodes; wrote " + String.join(", ", written.stream().map(Path::toString).toList()));
     }
@@ -130,7 +129,7 @@ public final class DemoCommand implements Callable<Integer> {
             if (in == null) {
                 throw new IllegalStateException("demo resource missing from the jar: " + RESOURCES + name);
             }
-            Files.copy(in, target, StandardCopyOption.REPLACE_EXISTING);
+            org.tufa.common.OutputFiles.write(target, in::transferTo);
             return target;
         } catch (IOException e) {
             throw new UncheckedIOException("cannot write " + target + ": " + e.getMessage(), e);

@@ -40,8 +40,18 @@ public final class EvaluateCommand implements Callable<Integer> {
         if (!(minHours >= 0)) {
             throw new InputException("--min-hours: must be a number >= 0, got " + minHours);
         }
-        Evaluation.Result result = Evaluation.fit(EvaluationFiles.read(findings, truth), minHours);
+        java.util.Map<String, Path> outputs = new java.util.LinkedHashMap<>();
+        outputs.put("--findings (" + EvaluationReport.SUMMARY_FILE + ")", findings.resolve(EvaluationReport.SUMMARY_FILE));
+        outputs.put("--findings (" + EvaluationReport.EPISODES_FILE + ")",
+                findings.resolve(EvaluationReport.EPISODES_FILE));
+        org.tufa.common.OutputFiles.checkDistinct(java.util.Map.of("--truth", truth), outputs);
+        org.tufa.analysis.evaluate.EvaluationInput input = EvaluationFiles.read(findings, truth);
+        Evaluation.Result result = Evaluation.fit(input, minHours);
         EvaluationReport.table(result).forEach(spec.commandLine().getOut()::println);
+        if (input.repeatedEpisodes() > 0) {
+            spec.commandLine().getOut().println("note: " + input.repeatedEpisodes() + " row(s) of " + truth
+                    + " repeat an earlier episode (same unit, fault, start and end); each episode is counted once");
+        }
         EvaluationReport.writeSummary(findings.resolve(EvaluationReport.SUMMARY_FILE), result);
         EvaluationReport.writeEpisodes(findings.resolve(EvaluationReport.EPISODES_FILE), result);
         spec.commandLine().getOut().flush();

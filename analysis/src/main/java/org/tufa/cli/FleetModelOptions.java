@@ -49,6 +49,16 @@ public final class FleetModelOptions {
     public record Assessed(FleetCoverage coverage, PrefixMapping prefixes) {
     }
 
+    /** The files these options read, by option, for {@link org.tufa.common.OutputFiles#checkDistinct}. */
+    public java.util.Map<String, Path> inputs() {
+        java.util.Map<String, Path> in = new java.util.LinkedHashMap<>();
+        in.put("--model", model);
+        for (int i = 0; i < vocabularies.size(); i++) {
+            in.put("--vocabulary " + vocabularies.get(i), vocabularies.get(i));
+        }
+        return in;
+    }
+
     public Assessed assess() {
         if (store == null) {
             if (model == null) {

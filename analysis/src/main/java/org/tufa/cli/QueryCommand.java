@@ -57,6 +57,11 @@ public final class QueryCommand implements Callable<Integer> {
     @Option(names = "--vocabulary", paramLabel = "FILE", description = "Extra vocabulary, e.g. a newer Brick release (all of Brick 1.4.4 is built in).")
     List<Path> vocabularies = new ArrayList<>();
 
+    @Option(names = "--allow-service", paramLabel = "IRI",
+            description = "Let SERVICE reach this one SPARQL endpoint (exact IRI; repeatable). Without it a query "
+                    + "never leaves the machine.")
+    List<String> allowedServices = new ArrayList<>();
+
     @Override
     public Integer call() {
         SparqlQueries.Format chosen = switch (format.toLowerCase(java.util.Locale.ROOT)) {
@@ -65,9 +70,17 @@ public final class QueryCommand implements Callable<Integer> {
             case "json" -> SparqlQueries.Format.JSON;
             default -> throw new InputException("--format " + format + ": use table, csv or json");
         };
+        for (String iri : allowedServices) {
+            if (!iri.matches("https?://[^\\s<>\"{}|\\\\^`]+")) {
+                throw new InputException("--allow-service '" + org.tufa.common.Printable.excerpt(iri)
+                        + "': name an http:// or https:// SPARQL endpoint IRI");
+            }
+        }
+        java.util.Set<String> allowed = java.util.Set.copyOf(allowedServices);
         Query query = source.file != null
-                ? SparqlQueries.parse(read(source.file), source.file.toString())
-                : SparqlQueries.parse(source.text, "-e");
+                ? SparqlQueries.parse(read(source.file), source.file.toString(), allowed)
+                : SparqlQueries.parse(source.text, "-e", allowed);
+        boolean servicesAllowed = !allowed.isEmpty();
         String answer;
         if (store == null) {
             if (model == null) {
@@ -75,7 +88,8 @@ public final class QueryCommand implements Callable<Integer> {
             }
             Vocabulary vocabulary = Vocabulary.load(vocabularies);
             var data = ModelLoader.load(model);
-            answer = SparqlQueries.run(vocabulary.unionWith(data), Vocabulary.prefixesFor(data), query, chosen);
+            answer = SparqlQueries.run(vocabulary.unionWith(data), Vocabulary.prefixesFor(data), query, chosen,
+                    servicesAllowed);
         } else {
             if (model != null) {
                 throw new InputException("--model and --store: give one of them, not both");
@@ -83,7 +97,7 @@ public final class QueryCommand implements Callable<Integer> {
             try (ModelStore s = ModelStore.open(store, false)) {
                 java.util.function.BiFunction<org.apache.jena.rdf.model.Model, org.apache.jena.rdf.model.Model,
                         String> run = (data, stored) -> SparqlQueries.run(Vocabulary.of(stored, vocabularies)
-                        .unionWith(data), Vocabulary.prefixesFor(data), query, chosen);
+                        .unionWith(data), Vocabulary.prefixesFor(data), query, chosen, servicesAllowed);
                 answer = graph != null ? s.read(graph, run) : s.readAll(run);
             }
         }

@@ -46,14 +46,14 @@ record TrendInput(List<Path> files, HistorianSettings database, DatabaseLogin lo
     /** Opens the trends for a run on this coverage's units. */
     TrendSource.Opener opener(FleetCoverage coverage) {
         if (database == null) {
-            return (wanted, options) -> TrendStore.ingest(files, wanted, options);
+            return TrendStore.opener(files);
         }
         List<PointRef> points = new ArrayList<>();
         for (UnitCoverage u : coverage.units()) {
             u.roles().values().stream().map(RoleMatch::point).forEach(p -> p.ifPresent(points::add));
         }
         Set<String> elsewhere = ModelDatabases.storedElsewhere(points, database.modelDatabase(), database.origin());
-        return (wanted, options) -> HistorianSource.open(database, login, wanted, elsewhere, options);
+        return (wanted, ranges, options) -> HistorianSource.open(database, login, wanted, ranges, elsewhere, options);
     }
 
     /** What run.json records about the trends beyond the files' checksums: never a login. */

@@ -2,6 +2,8 @@ package org.tufa.cli;
 
 import java.io.PrintWriter;
 import org.tufa.common.InputException;
+import org.tufa.common.OutputFiles;
+import org.tufa.common.Printable;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 
@@ -40,9 +42,23 @@ public final class Tufa implements Runnable {
         CommandLine cli = new CommandLine(new Tufa());
         cli.setOut(out);
         cli.setErr(err);
+        // A wrong command line is one line too: what is wrong and where the help is, not the whole usage text.
+        cli.setParameterExceptionHandler((ex, args) -> {
+            CommandLine where = ex.getCommandLine();
+            err.println("tufa: " + Printable.line(firstLine(ex.getMessage())) + "; see '"
+                    + where.getCommandSpec().qualifiedName() + " --help'");
+            return ExitCodes.USAGE;
+        });
         cli.setExecutionExceptionHandler((ex, commandLine, parseResult) -> {
             if (ex instanceof InputException) {
                 err.println("tufa: " + ex.getMessage());
+                return ExitCodes.INPUT_ERROR;
+            }
+            java.io.IOException io = ioCause(ex);
+            if (io != null && !debug) {
+                // A file that cannot be read or written (a full disk, a lost mount) is not a bug in tufa.
+                err.println("tufa: cannot read or write a file (" + OutputFiles.reason(io) + "); check the paths, "
+                        + "the free disk space and the permissions");
                 return ExitCodes.INPUT_ERROR;
             }
             if (debug) {
@@ -53,6 +69,19 @@ public final class Tufa implements Runnable {
             return ExitCodes.INTERNAL_ERROR;
         });
         return cli;
+    }
+
+    private static java.io.IOException ioCause(Throwable e) {
+        for (Throwable t = e; t != null; t = t.getCause()) {
+            if (t instanceof java.io.IOException io) {
+                return io;
+            }
+        }
+        return null;
+    }
+
+    private static String firstLine(String message) {
+        return message == null ? "" : message.lines().findFirst().orElse("").strip();
     }
 
     /** Reads the version Maven wrote into the jar manifest. */

@@ -4,17 +4,19 @@ package org.tufa.common;
  * A problem with what the user gave us (a file, an option, a line of a rule file): never a bug in tufa.
  *
  * <p>The message is one line that names the place (file, line, column) and says what to do; the command line
- * prints it as it is and exits non-zero, without a stack trace.
+ * prints it as it is and exits non-zero, without a stack trace. Control characters that user text quoted in the
+ * message may carry (a line break in a header, the bytes of a binary file) are replaced by {@code ?}
+ * ({@link Printable#line}), so the message stays one printable line whatever the input.
  */
 public class InputException extends RuntimeException {
     private static final long serialVersionUID = 1L;
 
     public InputException(String message) {
-        super(message);
+        super(Printable.line(message));
     }
 
     public InputException(String message, Throwable cause) {
-        super(message, cause);
+        super(Printable.line(message), cause);
     }
 
     /** A problem at a place in a file: {@code file:line: message}. Line numbers start at 1. */

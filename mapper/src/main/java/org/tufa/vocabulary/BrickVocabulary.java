@@ -132,7 +132,7 @@ public final class BrickVocabulary {
         }
         Graph g = GraphFactory.createDefaultGraph();
         try {
-            RDFParser.source(file).parse(g);
+            org.tufa.common.OfflineRdf.offline(RDFParser.source(file)).parse(g);
         } catch (RiotException e) {
             String msg = String.valueOf(e.getMessage()).lines().findFirst().orElse("");
             throw InputException.in(file, "not a readable RDF file (" + msg + "); give a Brick .ttl file");
@@ -475,12 +475,12 @@ public final class BrickVocabulary {
 
     /** Up to 3 existing class names nearest to an unknown one (see {@link NameSuggester}). */
     public List<String> nearestClasses(String unknown) {
-        return NameSuggester.nearest(className(unknown), classes.keySet(), 3);
+        return NameSuggester.nearestAlways(className(unknown), classes.keySet(), 3);
     }
 
     /** Up to 3 existing tag names nearest to an unknown one. */
     public List<String> nearestTags(String unknown) {
-        return NameSuggester.nearest(tagName(unknown), tags, 3);
+        return NameSuggester.nearestAlways(tagName(unknown), tags, 3);
     }
 
     /** "unknown Brick class X; nearest: A, B, C" style hint, for error messages. */

@@ -30,7 +30,7 @@ public final class BundleBrick {
             System.exit(2);
         }
         String text = indexText(Path.of(args[0]));
-        Files.writeString(Path.of(args[1]), text, StandardCharsets.UTF_8);
+        org.tufa.common.OutputFiles.writeString(Path.of(args[1]), text);
         System.out.println(text.lines().filter(l -> l.startsWith("class\t")).count() + " classes, "
                 + text.lines().filter(l -> l.startsWith("tag\t")).count() + " tags -> " + args[1]);
     }

@@ -21,6 +21,19 @@ public final class NameSuggester {
 
     /** Up to {@code max} candidates nearest to {@code query}, best first; none scoring below 0.3. */
     public static List<String> nearest(String query, Collection<String> candidates, int max) {
+        return nearest(query, candidates, max, 0.3);
+    }
+
+    /**
+     * Up to {@code max} candidates nearest to {@code query}, best first, the nearest 0.3-scoring ones if any, else
+     * the nearest at all: a message that says "unknown" always has names to offer.
+     */
+    public static List<String> nearestAlways(String query, Collection<String> candidates, int max) {
+        List<String> near = nearest(query, candidates, max, 0.3);
+        return near.isEmpty() ? nearest(query, candidates, max, Double.NEGATIVE_INFINITY) : near;
+    }
+
+    private static List<String> nearest(String query, Collection<String> candidates, int max, double minScore) {
         String q = query.toLowerCase(Locale.ROOT);
         List<String> qTokens = tokens(q);
         record Scored(String name, double score) {
@@ -30,7 +43,7 @@ public final class NameSuggester {
             String lc = c.toLowerCase(Locale.ROOT);
             double edit = 1.0 - (double) levenshtein(q, lc) / Math.max(1, Math.max(q.length(), lc.length()));
             double score = 0.5 * tokenOverlap(qTokens, tokens(lc)) + 0.5 * edit;
-            if (score >= 0.3) {
+            if (score >= minScore) {
                 scored.add(new Scored(c, score));
             }
         }

@@ -9,33 +9,28 @@ import com.google.gson.JsonPrimitive;
 import java.io.IOException;
 import java.io.StringWriter;
 import java.io.UncheckedIOException;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVPrinter;
-import org.tufa.common.InputException;
 
 /** Writes {@code coverage.csv} and {@code coverage.json}: same content, JSON adds candidates and hints. */
 public final class CoverageFiles {
     /** The value of a role column when several points qualified. */
     public static final String AMBIGUOUS = "ambiguous";
+    public static final String CSV_FILE = "coverage.csv";
+    public static final String JSON_FILE = "coverage.json";
 
     private CoverageFiles() {
     }
 
     /** Writes both files into the directory (created if needed) and returns their paths. */
     public static List<Path> write(FleetCoverage coverage, Path dir) {
-        try {
-            Files.createDirectories(dir);
-        } catch (IOException e) {
-            throw InputException.in(dir, "cannot create the output directory (" + e.getMessage() + ")");
-        }
-        Path csv = dir.resolve("coverage.csv");
-        Path json = dir.resolve("coverage.json");
+        org.tufa.common.OutputFiles.ensureFolder(dir);
+        Path csv = dir.resolve(CSV_FILE);
+        Path json = dir.resolve(JSON_FILE);
         writeString(csv, csv(coverage));
         writeString(json, json(coverage));
         return List.of(csv, json);
@@ -61,7 +56,7 @@ public final class CoverageFiles {
         try (CSVPrinter printer = new CSVPrinter(out, format)) {
             printer.printRecord(header);
             for (UnitCoverage u : coverage.units()) {
-                List<String> row = new ArrayList<>(List.of(u.unit(), u.label(), u.unitClass(), u.profileName(),
+                List<String> row = new ArrayList<>(List.of(u.unit(), org.tufa.common.CsvCells.neutral(u.label()), u.unitClass(), u.profileName(),
                         u.unitKind()));
                 for (String role : roles) {
                     RoleMatch m = u.roles().get(role);
@@ -192,10 +187,6 @@ public final class CoverageFiles {
     }
 
     private static void writeString(Path file, String text) {
-        try {
-            Files.writeString(file, text, StandardCharsets.UTF_8);
-        } catch (IOException e) {
-            throw InputException.in(file, "cannot write (" + e.getMessage() + ")");
-        }
+        org.tufa.common.OutputFiles.writeString(file, text);
     }
 }

@@ -32,8 +32,8 @@ public final class ModelLoader {
         }
         Model model = ModelFactory.createDefaultModel();
         try (InputStream in = Files.newInputStream(file)) {
-            RDFParser.source(in).lang(lang).base(file.toUri().toString()).errorHandler(new FailFast(file))
-                    .parse(model.getGraph());
+            org.tufa.common.OfflineRdf.offline(RDFParser.source(in).lang(lang).base(file.toUri().toString())
+                    .errorHandler(new FailFast(file))).parse(model.getGraph());
         } catch (IOException e) {
             throw InputException.in(file, "cannot read (" + e.getMessage() + ")");
         } catch (RiotException e) {

@@ -41,13 +41,32 @@ public final class Evaluation {
     }
 
     /** Score of one truth episode. */
-    public record EpisodeScore(TruthEpisode episode, boolean analysed, double analysableHours, double flaggedHours,
-            boolean detected) {
+    public record EpisodeScore(TruthEpisode episode, boolean analysed, boolean inWindow, double analysableHours,
+            double flaggedHours, boolean detected) {
+        public EpisodeScore(TruthEpisode episode, boolean analysed, double analysableHours, double flaggedHours,
+                boolean detected) {
+            this(episode, analysed, true, analysableHours, flaggedHours, detected);
+        }
+
+        /** Whether the episode counts toward the detection goal: on an analysed unit, inside the analysed window. */
+        public boolean scored() {
+            return analysed && inWindow;
+        }
     }
 
     /** Totals of a group of episodes (one fault type, or all), or of the healthy units (episodes = 0). */
-    public record GroupScore(String scope, int units, int episodes, int detected, int notAnalysed,
+    public record GroupScore(String scope, int units, int episodes, int detected, int notAnalysed, int outsideWindow,
             double analysableHours, double flaggedHours) {
+        public GroupScore(String scope, int units, int episodes, int detected, int notAnalysed,
+                double analysableHours, double flaggedHours) {
+            this(scope, units, episodes, detected, notAnalysed, 0, analysableHours, flaggedHours);
+        }
+
+        /** Episodes the detection goal counts: on analysed units and inside the analysed window. */
+        public int scoredEpisodes() {
+            return episodes - notAnalysed - outsideWindow;
+        }
+
         /** Flagged hours over analysable hours; NaN when there are no analysable hours. */
         public double flaggedShare() {
             return analysableHours > 0 ? flaggedHours / analysableHours : Double.NaN;
@@ -66,7 +85,7 @@ public final class Evaluation {
         }
 
         public boolean allDetected() {
-            return allFaults.detected() == allFaults.episodes() - allFaults.notAnalysed();
+            return allFaults.detected() == allFaults.scoredEpisodes();
         }
 
         public boolean flaggedShareMet() {
@@ -101,6 +120,11 @@ public final class Evaluation {
             }
             List<FlaggedInterval> flags = input.findingsByUnit().getOrDefault(e.unit(), List.of());
             double step = samples.sampleHours();
+            if (!overlaps(e, samples, step)) {
+                // Nothing of it lies in the analysed window: not missed, not seen. Counted apart.
+                scores.add(new EpisodeScore(e, true, false, 0, 0, false));
+                continue;
+            }
             int analysable = 0;
             int flagged = 0;
             for (int i = 0; i < samples.timestamps().size(); i++) {
@@ -165,16 +189,29 @@ public final class Evaluation {
         Set<String> units = new TreeSet<>();
         int detected = 0;
         int notAnalysed = 0;
+        int outside = 0;
         double analysable = 0;
         double flagged = 0;
         for (EpisodeScore s : list) {
             units.add(s.episode().unit());
             detected += s.detected() ? 1 : 0;
             notAnalysed += s.analysed() ? 0 : 1;
+            outside += s.analysed() && !s.inWindow() ? 1 : 0;
             analysable += s.analysableHours();
             flagged += s.flaggedHours();
         }
-        return new GroupScore(scope, units.size(), list.size(), detected, notAnalysed, analysable, flagged);
+        return new GroupScore(scope, units.size(), list.size(), detected, notAnalysed, outside, analysable, flagged);
+    }
+
+    /** Whether the episode overlaps the unit's samples, each standing for {@code stepHours} from its time. */
+    private static boolean overlaps(TruthEpisode e, UnitSamples samples, double stepHours) {
+        if (samples.timestamps().isEmpty()) {
+            return false;
+        }
+        Instant first = samples.timestamps().stream().min(Instant::compareTo).orElseThrow();
+        Instant last = samples.timestamps().stream().max(Instant::compareTo).orElseThrow()
+                .plusSeconds(Math.round(stepHours * 3600));
+        return e.start().isBefore(last) && e.end().isAfter(first);
     }
 
     private static boolean flagged(List<FlaggedInterval> flags, Instant t) {

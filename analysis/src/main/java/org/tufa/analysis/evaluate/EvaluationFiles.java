@@ -16,6 +16,7 @@ import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
 import org.apache.commons.csv.CSVRecord;
 import org.tufa.analysis.tables.SampleTableReader;
+import org.tufa.common.CsvCells;
 import org.tufa.common.InputException;
 
 /**
@@ -44,7 +45,8 @@ public final class EvaluationFiles {
                 throw InputException.at(fleetFile, line, "column status: '" + status
                         + "' is not one of analyzed, skipped, failed");
             }
-            FleetUnit u = new FleetUnit(r.get("unit"), r.get("label"), r.get("folder"), status);
+            FleetUnit u = new FleetUnit(CsvCells.restore(r.get("unit")), CsvCells.restore(r.get("label")),
+                    CsvCells.restore(r.get("folder")), status);
             if (byUnit.put(u.unit(), u) != null) {
                 throw InputException.at(fleetFile, line, "unit " + u.unit() + " is listed twice");
             }
@@ -54,7 +56,7 @@ public final class EvaluationFiles {
         Path findingsFile = findingsDir.resolve("findings.csv");
         Map<String, List<FlaggedInterval>> findings = new TreeMap<>();
         forEachRecord(findingsFile, FINDINGS_HEADER, (r, line) -> {
-            String unit = r.get("unit");
+            String unit = CsvCells.restore(r.get("unit"));
             if (!byUnit.containsKey(unit)) {
                 throw InputException.at(findingsFile, line, "unit " + unit + " is not in " + fleetFile);
             }
@@ -106,12 +108,10 @@ public final class EvaluationFiles {
         }
 
         List<TruthEpisode> truth = new ArrayList<>();
+        java.util.Set<String> seen = new java.util.HashSet<>();
+        int[] repeated = {0};
         forEachRecord(truthFile, TRUTH_HEADER, (r, line) -> {
-            String unit = r.get("unit");
-            if (!byUnit.containsKey(unit)) {
-                throw InputException.at(truthFile, line, "unit " + unit + " is not in " + fleetFile
-                        + "; evaluate the findings of the same fleet the truth was made for");
-            }
+            String unit = resolveUnit(r.get("unit"), fleet, byUnit, truthFile, line, fleetFile);
             Instant start = time(truthFile, line, "start", r.get("start"));
             Instant end = time(truthFile, line, "end", r.get("end"));
             if (!end.isAfter(start)) {
@@ -127,6 +127,11 @@ public final class EvaluationFiles {
             if (r.get("fault").isBlank()) {
                 throw InputException.at(truthFile, line, "column fault is empty");
             }
+            // A row listed twice is one episode: scored once, counted in repeatedEpisodes.
+            if (!seen.add(unit + "\u0000" + r.get("fault") + "\u0000" + start + "\u0000" + end)) {
+                repeated[0]++;
+                return;
+            }
             truth.add(new TruthEpisode(unit, r.get("fault"), start, end, severity));
         });
         // The unit kinds, when the analysis wrote the coverage file beside fleet.csv (tufa analyze does).
@@ -136,7 +141,8 @@ public final class EvaluationFiles {
             forEachRecord(coverageFile, List.of("unit", "unit_kind"), (r, line) -> kinds.put(r.get("unit"),
                     r.get("unit_kind")));
         }
-        return new EvaluationInput(List.copyOf(fleet), findings, samples, List.copyOf(truth), kinds);
+        return new EvaluationInput(List.copyOf(fleet), findings, samples, List.copyOf(truth), kinds,
+                repeated[0]);
     }
 
     /** Whether the CSV file's header names the column (coverage files of older versions have no unit_kind). */
@@ -147,6 +153,37 @@ public final class EvaluationFiles {
         } catch (IOException e) {
             throw InputException.in(file, "cannot read: " + e.getMessage());
         }
+    }
+
+    /**
+     * The fleet unit a truth row names: its IRI, or else its local name (after the last '#', '/' or ':') or its
+     * label when exactly one unit of the fleet has it ({@code fcu-03} for {@code urn:x#fcu-03}).
+     */
+    static String resolveUnit(String name, List<FleetUnit> fleet, Map<String, FleetUnit> byUnit, Path truthFile,
+            long line, Path fleetFile) {
+        if (byUnit.containsKey(name)) {
+            return name;
+        }
+        for (java.util.function.Function<FleetUnit, String> key : List.<java.util.function.Function<FleetUnit,
+                String>>of(u -> localName(u.unit()), FleetUnit::label)) {
+            List<String> hits = fleet.stream().filter(u -> name.equals(key.apply(u))).map(FleetUnit::unit).toList();
+            if (hits.size() == 1) {
+                return hits.get(0);
+            }
+            if (hits.size() > 1) {
+                throw InputException.at(truthFile, line, "unit " + org.tufa.common.Printable.excerpt(name)
+                        + " matches " + hits.size() + " units of " + fleetFile + " (" + hits.get(0) + ", "
+                        + hits.get(1) + "); write the unit's full IRI");
+            }
+        }
+        throw InputException.at(truthFile, line, "unit " + org.tufa.common.Printable.excerpt(name) + " is not in "
+                + fleetFile + " (by IRI, local name or label); evaluate the findings of the same fleet the truth "
+                + "was made for");
+    }
+
+    static String localName(String iri) {
+        int cut = Math.max(iri.lastIndexOf('#'), Math.max(iri.lastIndexOf('/'), iri.lastIndexOf(':')));
+        return iri.substring(cut + 1);
     }
 
     private interface RecordHandler {

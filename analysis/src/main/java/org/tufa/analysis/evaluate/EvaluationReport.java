@@ -1,9 +1,5 @@
 package org.tufa.analysis.evaluate;
 
-import java.io.IOException;
-import java.io.UncheckedIOException;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.ZoneOffset;
 import java.util.ArrayList;
@@ -31,12 +27,14 @@ public final class EvaluationReport {
         Evaluation.GroupScore h = r.healthy();
         lines.add(String.format(Locale.ROOT, "%-28s %6d %9s %11.1f %10.1f %8s", h.scope(), h.units(), "-",
                 h.analysableHours(), h.flaggedHours(), percent(h.flaggedShare())));
-        lines.add("* detected / episodes on analysed units (+ episodes on units that could not be analysed)");
-        lines.add(String.format(Locale.ROOT, "goal: every injected episode detected (>= %s h flagged): %d/%d %s%s",
-                number(r.minHours()), r.allFaults().detected(),
-                r.allFaults().episodes() - r.allFaults().notAnalysed(), met(r.allDetected()),
+        lines.add("* detected / episodes on analysed units (+ episodes on units that could not be analysed)"
+                + (r.allFaults().outsideWindow() == 0 ? "" : " (~ episodes outside the analysed window)"));
+        lines.add(String.format(Locale.ROOT, "goal: every injected episode detected (>= %s h flagged): %d/%d %s%s%s",
+                number(r.minHours()), r.allFaults().detected(), r.allFaults().scoredEpisodes(), met(r.allDetected()),
                 r.allFaults().notAnalysed() == 0 ? "" : "; " + r.allFaults().notAnalysed()
-                        + " more on units not analysed (coverage excluded them, or no detection for their kind yet)"));
+                        + " more on units not analysed (coverage excluded them, or no detection for their kind yet)",
+                r.allFaults().outsideWindow() == 0 ? "" : "; " + r.allFaults().outsideWindow()
+                        + " outside the analysed time window (not counted)"));
         lines.add(String.format(Locale.ROOT, "goal: >= 70 %% of analysable fault hours flagged: %s %s",
                 percent(r.allFaults().flaggedShare()), met(r.flaggedShareMet())));
         lines.add(String.format(Locale.ROOT, "goal: < 2 %% of healthy-unit hours flagged: %s %s",
@@ -46,7 +44,8 @@ public final class EvaluationReport {
 
     private static String row(Evaluation.GroupScore g) {
         return String.format(Locale.ROOT, "%-28s %6d %9s %11.1f %10.1f %8s", g.scope(), g.units(),
-                g.detected() + "/" + (g.episodes() - g.notAnalysed()) + (g.notAnalysed() == 0 ? "" : " +" + g.notAnalysed()),
+                g.detected() + "/" + g.scoredEpisodes() + (g.notAnalysed() == 0 ? "" : " +" + g.notAnalysed())
+                        + (g.outsideWindow() == 0 ? "" : " ~" + g.outsideWindow()),
                 g.analysableHours(), g.flaggedHours(), percent(g.flaggedShare()));
     }
 
@@ -63,15 +62,17 @@ public final class EvaluationReport {
     }
 
     /**
-     * {@code evaluation.csv}: {@code scope,units,episodes,not_analysed,detected,analysable_hours,flagged_hours,
-     * flagged_share,goal,goal_met}; one row per fault type, then all_faults, then all_<kind>_faults per unit kind
-     * (when the fleet has several), then healthy_units. The share is empty when there are no analysable hours.
+     * {@code evaluation.csv}: {@code scope,units,episodes,not_analysed,outside_window,detected,analysable_hours,
+     * flagged_hours,flagged_share,goal,goal_met}; one row per fault type, then all_faults, then all_<kind>_faults per
+     * unit kind (when the fleet has several), then healthy_units. The share is empty when there are no analysable
+     * hours.
      */
     public static void writeSummary(Path file, Evaluation.Result r) {
         StringBuilder out = new StringBuilder(
-                "scope,units,episodes,not_analysed,detected,analysable_hours,flagged_hours,flagged_share,goal,goal_met\n");
+                "scope,units,episodes,not_analysed,outside_window,detected,analysable_hours,flagged_hours,flagged_share,goal,"
+                        + "goal_met\n");
         for (Evaluation.GroupScore g : r.byFault()) {
-            boolean met = g.detected() == g.episodes() - g.notAnalysed()
+            boolean met = g.detected() == g.scoredEpisodes()
                     && g.flaggedShare() >= Evaluation.GOAL_FLAGGED_SHARE;
             summaryRow(out, g, "all episodes detected; flagged share >= 0.70", met);
         }
@@ -88,40 +89,38 @@ public final class EvaluationReport {
     private static void summaryRow(StringBuilder out, Evaluation.GroupScore g, String goal, boolean met) {
         double share = g.flaggedShare();
         out.append(g.scope()).append(',').append(g.units()).append(',').append(g.episodes()).append(',')
-                .append(g.notAnalysed()).append(',').append(g.detected()).append(',').append(String.format(Locale.ROOT, "%.2f", g.analysableHours()))
+                .append(g.notAnalysed()).append(',').append(g.outsideWindow()).append(',').append(g.detected()).append(',').append(String.format(Locale.ROOT, "%.2f", g.analysableHours()))
                 .append(',').append(String.format(Locale.ROOT, "%.2f", g.flaggedHours())).append(',')
                 .append(Double.isNaN(share) ? "" : String.format(Locale.ROOT, "%.4f", share)).append(',')
                 .append(goal).append(',').append(met).append('\n');
     }
 
     /**
-     * {@code evaluation_episodes.csv}: {@code unit,fault,start,end,severity,analysed,analysable_hours,flagged_hours,
-     * detected}, in truth order; times in UTC.
+     * {@code evaluation_episodes.csv}: {@code unit,fault,start,end,severity,analysed,in_window,analysable_hours,
+     * flagged_hours,detected}, in truth order; times in UTC.
      */
     public static void writeEpisodes(Path file, Evaluation.Result r) {
         StringBuilder out = new StringBuilder(
-                "unit,fault,start,end,severity,analysed,analysable_hours,flagged_hours,detected\n");
+                "unit,fault,start,end,severity,analysed,in_window,analysable_hours,flagged_hours,detected\n");
         for (Evaluation.EpisodeScore s : r.episodes()) {
             TruthEpisode e = s.episode();
             out.append(csv(e.unit())).append(',').append(csv(e.fault())).append(',')
                     .append(e.start().atOffset(ZoneOffset.UTC)).append(',').append(e.end().atOffset(ZoneOffset.UTC))
                     .append(',').append(String.format(Locale.ROOT, "%.3f", e.severity())).append(',')
-                    .append(s.analysed()).append(',').append(String.format(Locale.ROOT, "%.2f", s.analysableHours()))
+                    .append(s.analysed()).append(',').append(s.inWindow()).append(',')
+                    .append(String.format(Locale.ROOT, "%.2f", s.analysableHours()))
                     .append(',').append(String.format(Locale.ROOT, "%.2f", s.flaggedHours())).append(',')
                     .append(s.detected()).append('\n');
         }
         write(file, out);
     }
 
-    private static String csv(String s) {
+    private static String csv(String text) {
+        String s = org.tufa.common.CsvCells.neutral(text);
         return s.contains(",") || s.contains("\"") ? '"' + s.replace("\"", "\"\"") + '"' : s;
     }
 
     private static void write(Path file, CharSequence text) {
-        try {
-            Files.writeString(file, text, StandardCharsets.UTF_8);
-        } catch (IOException e) {
-            throw new UncheckedIOException(e);
-        }
+        org.tufa.common.OutputFiles.writeString(file, text);
     }
 }

@@ -19,6 +19,7 @@ import org.tufa.analysis.episodes.ChannelEvidence;
 import org.tufa.analysis.features.UnitSignals;
 import org.tufa.analysis.findings.Finding;
 import org.tufa.analysis.trends.IngestReport;
+import org.tufa.analysis.trends.PlausibleRange;
 import org.tufa.analysis.trends.ResampledSeries;
 import org.tufa.analysis.trends.SeriesKind;
 import org.tufa.analysis.trends.TimeOptions;
@@ -66,12 +67,12 @@ public final class FleetAnalysis {
     /** Runs on trend files (CSV, long or wide, plain or gzip, or folders of them). */
     public static Result run(FleetCoverage coverage, List<Path> trends, TimeOptions timeOptions,
                              AnalysisSettings settings, int threads, List<UnitSink> sinks, Progress progress) {
-        return run(coverage, (wanted, options) -> TrendStore.ingest(trends, wanted, options), timeOptions, settings,
-                threads, sinks, progress);
+        return run(coverage, TrendStore.opener(trends), timeOptions, settings, threads, sinks, progress);
     }
 
     /**
-     * Runs on any trend source: the opener is given the series of every analysable unit and the time options.
+     * Runs on any trend source: the opener is given the series of every analysable unit, their plausible ranges
+     * (from the points' units) and the time options.
      */
     public static Result run(FleetCoverage coverage, TrendSource.Opener trends, TimeOptions timeOptions,
                              AnalysisSettings settings, int threads, List<UnitSink> sinks, Progress progress) {
@@ -80,15 +81,18 @@ public final class FleetAnalysis {
         units.sort(java.util.Comparator.comparing(UnitCoverage::unit));
         Map<String, UnitInputs> inputs = new LinkedHashMap<>();
         Map<String, SeriesKind> wanted = new java.util.TreeMap<>();
+        Map<String, PlausibleRange> ranges = new java.util.TreeMap<>();
         for (UnitCoverage u : units) {
             UnitInputs in = UnitInputs.of(u, settings.defaultAirflow());
             inputs.put(u.unit(), in);
             if (u.analyzable() && detects(u)) {
                 wanted.putAll(in.seriesKinds());
+                in.points().values().forEach(p -> PlausibleRange.forUnit(p.unitOfMeasureIri())
+                        .ifPresent(r -> ranges.putIfAbsent(p.timeseriesId(), r)));
             }
         }
         long t0 = System.nanoTime();
-        try (TrendSource store = trends.open(wanted, timeOptions)) {
+        try (TrendSource store = trends.open(wanted, ranges, timeOptions)) {
             times.add(StageTimes.Stage.READ, System.nanoTime() - t0);
             FolderNames names = new FolderNames();
             List<String> folders = new ArrayList<>();

@@ -5,7 +5,6 @@ import com.google.gson.JsonObject;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.UncheckedIOException;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.security.MessageDigest;
@@ -20,6 +19,8 @@ import java.util.stream.Collectors;
 import org.tufa.analysis.decision.FleetDecision;
 import org.tufa.analysis.findings.Finding;
 import org.tufa.analysis.findings.Shift;
+import org.tufa.analysis.trends.IngestReport;
+import org.tufa.common.OutputFiles;
 
 /**
  * The fleet-level files of a run: {@code fleet.csv}, {@code findings.csv}, {@code fleet_findings.csv},
@@ -44,7 +45,7 @@ public final class FleetOutputs {
     public static List<Path> write(Path dir, FleetAnalysis.Result result, ZoneId zone, Map<String, Object> parameters,
                                    List<Path> inputs) {
         try {
-            Files.createDirectories(dir);
+            OutputFiles.ensureFolder(dir);
             List<Path> out = new ArrayList<>();
             out.add(write(dir.resolve("fleet.csv"), fleet(result.units())));
             out.add(write(dir.resolve("findings.csv"), findings(result.units(), zone)));
@@ -57,8 +58,8 @@ public final class FleetOutputs {
         }
     }
 
-    private static Path write(Path file, String text) throws IOException {
-        Files.writeString(file, text, StandardCharsets.UTF_8);
+    private static Path write(Path file, String text) {
+        OutputFiles.writeString(file, text);
         return file;
     }
 
@@ -159,10 +160,61 @@ public final class FleetOutputs {
             files.add(f);
         }
         run.add("inputs", files);
+        run.add("ingest", ingestJson(result == null ? null : result.ingest()));
         if (result != null) {
             run.add("decision", decision(result));
         }
         return Json.write(run);
+    }
+
+    /** Every count of the ingest, per file and in total, with every unknown series id: nothing dropped unsaid. */
+    static JsonObject ingestJson(IngestReport ingest) {
+        JsonObject o = new JsonObject();
+        if (ingest == null) {
+            return o;
+        }
+        o.addProperty("rows", ingest.rows());
+        o.addProperty("samples_kept", ingest.samplesKept());
+        o.addProperty("outside_window", ingest.samplesOutsideWindow());
+        o.addProperty("unknown_series_values", ingest.unknownSeriesSamples());
+        o.addProperty("empty_values", ingest.emptyValues());
+        o.addProperty("unparsable_values", ingest.unparsableValues());
+        o.addProperty("non_finite_values", ingest.nonFiniteValues());
+        o.addProperty("implausible_values", ingest.implausibleValues());
+        o.addProperty("exact_duplicates", ingest.duplicateSamples());
+        o.addProperty("conflicting_duplicates", ingest.conflictingDuplicates());
+        o.addProperty("unreadable_time_stamps", ingest.unparsableTimestamps());
+        o.addProperty("malformed_rows", ingest.malformedRows());
+        o.addProperty("dst_repeated", ingest.dstRepeatedFirstPass() + ingest.dstRepeatedSecondPass());
+        o.addProperty("dst_skipped", ingest.dstSkipped());
+        JsonArray unknown = new JsonArray();
+        ingest.unknownSeries().forEach(unknown::add);
+        o.add("unknown_series", unknown);
+        JsonArray never = new JsonArray();
+        ingest.seriesNeverSeen().forEach(never::add);
+        o.add("series_without_data", never);
+        JsonArray files = new JsonArray();
+        for (var f : ingest.files()) {
+            JsonObject fo = new JsonObject();
+            fo.addProperty("path", f.file().toString());
+            fo.addProperty("format", f.format().toString().toLowerCase(java.util.Locale.ROOT));
+            fo.addProperty("rows", f.rows());
+            fo.addProperty("samples_stored", f.samplesKept());
+            fo.addProperty("outside_window", f.samplesOutsideWindow());
+            fo.addProperty("unknown_series_values", f.unknownSeriesSamples());
+            fo.addProperty("empty_values", f.emptyValues());
+            fo.addProperty("unparsable_values", f.unparsableValues());
+            fo.addProperty("non_finite_values", f.nonFiniteValues());
+            fo.addProperty("implausible_values", f.implausibleValues());
+            fo.addProperty("unreadable_time_stamps", f.unparsableTimestamps());
+            fo.addProperty("malformed_rows", f.malformedRows());
+            JsonArray examples = new JsonArray();
+            f.problemExamples().forEach(examples::add);
+            fo.add("problem_examples", examples);
+            files.add(fo);
+        }
+        o.add("files", files);
+        return o;
     }
 
     /** The fleet stage's figures: tests, findings listed and below confidence, every channel's null. */

@@ -9,6 +9,7 @@ import java.util.TreeMap;
 import org.tufa.analysis.decision.FleetDecision;
 import org.tufa.analysis.coverage.FleetCoverage;
 import org.tufa.analysis.findings.Finding;
+import org.tufa.analysis.trends.IngestReport;
 
 /** The console summary of a fleet run, as lines (the command prints them). */
 public final class FleetReport {
@@ -19,6 +20,49 @@ public final class FleetReport {
             + "equipment.";
 
     private FleetReport() {
+    }
+
+    /** Series ids and problem examples named on the console; run.json lists every unknown id. */
+    static final int NAMED = 3;
+
+    /**
+     * What the ingest did with every row: kept, and each reason a value was not kept (only the non-zero ones),
+     * with the first unknown series ids and the first problems.
+     */
+    public static List<String> ingestLines(IngestReport ingest) {
+        List<String> lines = new ArrayList<>();
+        List<String> dropped = new ArrayList<>();
+        add(dropped, ingest.samplesOutsideWindow(), "outside the time window");
+        if (ingest.unknownSeriesSamples() > 0) {
+            List<String> ids = ingest.unknownSeries();
+            dropped.add(ingest.unknownSeriesSamples() + " of " + ids.size() + " series no analysed unit reads ("
+                    + String.join(", ", ids.subList(0, Math.min(NAMED, ids.size())).stream()
+                            .map(org.tufa.common.Printable::excerpt).toList())
+                    + (ids.size() > NAMED ? ", ..." : "") + ")");
+        }
+        add(dropped, ingest.emptyValues(), "empty values");
+        add(dropped, ingest.unparsableValues(), "unparsable values");
+        add(dropped, ingest.nonFiniteValues(), "non-finite values");
+        add(dropped, ingest.implausibleValues(), "values implausible for their unit");
+        add(dropped, ingest.unparsableTimestamps(), "rows with unreadable time stamps");
+        add(dropped, ingest.malformedRows(), "rows with the wrong number of fields");
+        List<String> repeats = new ArrayList<>();
+        add(repeats, ingest.duplicateSamples(), "exact duplicates");
+        add(repeats, ingest.conflictingDuplicates(), "conflicting duplicates (averaged)");
+        lines.add(String.format(Locale.ROOT, "Trends: %d rows read, %d samples kept%s%s; %d repeated and %d skipped DST "
+                + "stamps", ingest.rows(), ingest.samplesKept(), repeats.isEmpty() ? "" : " (" + String.join(", ",
+                repeats) + ")", dropped.isEmpty() ? ", nothing dropped" : "; not kept: " + String.join(", ", dropped),
+                ingest.dstRepeatedFirstPass() + ingest.dstRepeatedSecondPass(), ingest.dstSkipped()));
+        for (String example : ingest.problemExamples(NAMED)) {
+            lines.add("  e.g. " + example);
+        }
+        return lines;
+    }
+
+    private static void add(List<String> parts, long count, String what) {
+        if (count > 0) {
+            parts.add(count + " " + what);
+        }
     }
 
     public static List<String> summary(FleetAnalysis.Result result, FleetCoverage coverage, Path out,
@@ -35,11 +79,7 @@ public final class FleetReport {
         lines.add(String.format(Locale.ROOT, "Units: %d found, %d analysed, %d skipped, %d failed",
                 result.units().size(), byStatus.getOrDefault(UnitOutcome.ANALYZED, 0),
                 byStatus.getOrDefault(UnitOutcome.SKIPPED, 0), byStatus.getOrDefault(UnitOutcome.FAILED, 0)));
-        var ingest = result.ingest();
-        lines.add(String.format(Locale.ROOT, "Trends: %d rows read, %d samples kept, %d unparsable values, "
-                + "%d repeated and %d skipped DST stamps", ingest.rows(), ingest.samplesKept(),
-                ingest.unparsableValues(), ingest.dstRepeatedFirstPass() + ingest.dstRepeatedSecondPass(),
-                ingest.dstSkipped()));
+        lines.addAll(ingestLines(result.ingest()));
         int total = byKind.values().stream().mapToInt(Integer::intValue).sum();
         int below = result.units().stream().mapToInt(UnitOutcome::belowConfidence).sum();
         long unitsWith = result.units().stream().filter(u -> !u.findings().isEmpty()).count();

@@ -1,9 +1,5 @@
 package org.tufa.analysis.fleet;
 
-import java.io.IOException;
-import java.io.UncheckedIOException;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.ZoneId;
 import java.util.ArrayList;
@@ -15,6 +11,7 @@ import org.tufa.analysis.modes.OperatingMode;
 import org.tufa.analysis.tables.SampleColumn;
 import org.tufa.analysis.tables.SampleFormat;
 import org.tufa.analysis.tables.SampleTable;
+import org.tufa.common.OutputFiles;
 
 /**
  * Writes one unit's files under {@code DIR/units/<folder>/}: {@code modes} (every sample's mode and band state),
@@ -63,45 +60,37 @@ public final class UnitFiles implements UnitSink {
     @Override
     public void decided(UnitOutcome o, org.tufa.analysis.features.UnitSignals signals, double[] loadKw) {
         Path dir = folder(o);
-        try {
-            Files.createDirectories(dir);
-            Files.writeString(dir.resolve("summary.json"), Json.unitSummary(o), StandardCharsets.UTF_8);
-        } catch (IOException e) {
-            throw new UncheckedIOException("cannot write " + dir + ": " + e.getMessage(), e);
-        }
+        OutputFiles.ensureFolder(dir);
+        OutputFiles.writeString(dir.resolve("summary.json"), Json.unitSummary(o));
     }
 
     /** The per-sample files, while the detailed result is in memory. */
     @Override
     public void analysed(UnitOutcome o, org.tufa.analysis.features.UnitSignals signals) {
         Path dir = folder(o);
-        try {
-            Files.createDirectories(dir);
-            if (o.result() == null) {
-                return;
+        OutputFiles.ensureFolder(dir);
+        if (o.result() == null) {
+            return;
+        }
+        UnitAnalysis.Result r = o.result();
+        String[] times = times(r);
+        long start = r.gridStart().getEpochSecond();
+        long step = r.interval().getSeconds();
+        SampleTable.write(dir, "modes", format, MODE_COLUMNS, t -> {
+            byte[] codes = r.modes().codes();
+            for (int i = 0; i < codes.length; i++) {
+                t.time(start + i * step, times[i]);
+                t.text(OperatingMode.ofCode(codes[i]).label());
+                byte b = r.bandState()[i];
+                t.flag(b == UnitAnalysis.Result.IN_BAND ? Boolean.TRUE
+                        : b == UnitAnalysis.Result.OUT_OF_BAND ? Boolean.FALSE : null);
+                t.endRow();
             }
-            UnitAnalysis.Result r = o.result();
-            String[] times = times(r);
-            long start = r.gridStart().getEpochSecond();
-            long step = r.interval().getSeconds();
-            try (SampleTable t = SampleTable.open(dir, "modes", format, MODE_COLUMNS)) {
-                byte[] codes = r.modes().codes();
-                for (int i = 0; i < codes.length; i++) {
-                    t.time(start + i * step, times[i]);
-                    t.text(OperatingMode.ofCode(codes[i]).label());
-                    byte b = r.bandState()[i];
-                    t.flag(b == UnitAnalysis.Result.IN_BAND ? Boolean.TRUE
-                            : b == UnitAnalysis.Result.OUT_OF_BAND ? Boolean.FALSE : null);
-                    t.endRow();
-                }
+        });
+        for (ModeResult m : r.modeResults()) {
+            if (m.analyzed()) {
+                writeMode(dir.resolve(m.mode()), m, times, start, step);
             }
-            for (ModeResult m : r.modeResults()) {
-                if (m.analyzed()) {
-                    writeMode(dir.resolve(m.mode()), m, times, start, step);
-                }
-            }
-        } catch (IOException e) {
-            throw new UncheckedIOException("cannot write " + dir + ": " + e.getMessage(), e);
         }
     }
 
@@ -114,9 +103,11 @@ public final class UnitFiles implements UnitSink {
                 if (g == null || !g.start().equals(r.gridStart()) || !g.interval().equals(r.interval())
                         || g.text().length != n) {
                     String[] text = new String[n];
+                    java.time.Instant start = r.gridStart();
+                    long step = r.interval().toNanos();
                     for (int i = 0; i < n; i++) {
                         // Parquet stores the instant; the text is needed only for CSV.
-                        text[i] = format == SampleFormat.CSV ? Csv.time(r.time(i), zone) : "";
+                        text[i] = format == SampleFormat.CSV ? Csv.time(start.plusNanos(step * i), zone) : "";
                     }
                     g = new GridTimes(r.gridStart(), r.interval(), text);
                     gridTimes = g;
@@ -126,14 +117,14 @@ public final class UnitFiles implements UnitSink {
         return g.text();
     }
 
-    private void writeMode(Path dir, ModeResult m, String[] times, long start, long step) throws IOException {
-        Files.createDirectories(dir);
+    private void writeMode(Path dir, ModeResult m, String[] times, long start, long step) {
+        OutputFiles.ensureFolder(dir);
         FeatureMatrix f = m.features();
         int[] sample = f.sampleIndex();
         List<SampleColumn> featureColumns = new ArrayList<>();
         featureColumns.add(SampleColumn.time("timestamp"));
         f.names().forEach(n -> featureColumns.add(SampleColumn.real(n)));
-        try (SampleTable t = SampleTable.open(dir, "features", format, featureColumns)) {
+        SampleTable.write(dir, "features", format, featureColumns, t -> {
             for (int i = 0; i < f.size(); i++) {
                 t.time(start + sample[i] * step, times[sample[i]]);
                 for (double v : f.rows()[i]) {
@@ -141,14 +132,14 @@ public final class UnitFiles implements UnitSink {
                 }
                 t.endRow();
             }
-        }
+        });
         PcaResult pca = m.pca();
         List<SampleColumn> scoreColumns = new ArrayList<>();
         scoreColumns.add(SampleColumn.time("timestamp"));
         for (int k = 1; k <= pca.componentCount(); k++) {
             scoreColumns.add(SampleColumn.real("pc" + k));
         }
-        try (SampleTable t = SampleTable.open(dir, "scores", format, scoreColumns)) {
+        SampleTable.write(dir, "scores", format, scoreColumns, t -> {
             double[][] scores = pca.scores();
             for (int i = 0; i < scores.length; i++) {
                 t.time(start + sample[i] * step, times[sample[i]]);
@@ -157,10 +148,10 @@ public final class UnitFiles implements UnitSink {
                 }
                 t.endRow();
             }
-        }
+        });
         OpticsResult o = m.optics();
         int[] order = o.ordering();
-        try (SampleTable t = SampleTable.open(dir, "reachability", format, REACHABILITY_COLUMNS)) {
+        SampleTable.write(dir, "reachability", format, REACHABILITY_COLUMNS, t -> {
             for (int k = 0; k < order.length; k++) {
                 int i = order[k];
                 t.integer(k);
@@ -170,6 +161,6 @@ public final class UnitFiles implements UnitSink {
                 t.integer(m.labels()[i]);
                 t.endRow();
             }
-        }
+        });
     }
 }

@@ -17,6 +17,12 @@ import org.apache.jena.riot.RDFDataMgr;
 import org.apache.jena.shared.PrefixMapping;
 import org.tufa.analysis.coverage.StandardPrefixes;
 import org.tufa.common.InputException;
+import org.tufa.common.Printable;
+import java.util.Set;
+import org.apache.jena.query.ARQ;
+import org.apache.jena.sparql.util.Context;
+import org.apache.jena.update.UpdateFactory;
+import org.apache.jena.update.UpdateRequest;
 
 /**
  * Parses and runs a user's SPARQL query against a model with the vocabulary beside it, so that
@@ -42,6 +48,17 @@ public final class SparqlQueries {
      * @throws InputException with {@code source:line: column C: message} when the query does not parse
      */
     public static Query parse(String text, String source) {
+        return parse(text, source, Set.of());
+    }
+
+    /**
+     * Parses a query and checks that it only reads the model ({@link QueryGuard}): no SERVICE except to the allowed
+     * endpoints, no FROM / FROM NAMED, no {@code java:} functions; an update (INSERT, DELETE, LOAD, ...) is refused
+     * with its own message.
+     *
+     * @param allowedServices endpoint IRIs the query may name in SERVICE (normally none)
+     */
+    public static Query parse(String text, String source, Set<String> allowedServices) {
         Query query = new Query();
         query.setPrefixMapping(StandardPrefixes.mapping());
         try {
@@ -57,11 +74,29 @@ public final class SparqlQueries {
                 line = Long.parseLong(at.group(1));
                 column = Long.parseLong(at.group(2));
             }
-            String message = AT_LINE.matcher(first).replaceAll("");
+            if (isUpdate(text)) {
+                throw new InputException(source + ": this is a SPARQL update (INSERT, DELETE, LOAD, CLEAR, ...); "
+                        + "updates are not supported: tufa query only reads the model, with SELECT, ASK, CONSTRUCT "
+                        + "or DESCRIBE");
+            }
+            String message = Printable.line(AT_LINE.matcher(first).replaceAll(""));
             String where = line > 0 ? ":" + line + ": column " + column + ": " : ": ";
             throw new InputException(source + where + message + "; fix the query there");
         }
+        QueryGuard.check(query, allowedServices, source);
         return query;
+    }
+
+    /** Whether the text parses as a SPARQL update; parsing runs nothing. */
+    private static boolean isUpdate(String text) {
+        try {
+            UpdateRequest request = new UpdateRequest();
+            request.setPrefixMapping(StandardPrefixes.mapping());
+            UpdateFactory.parse(request, text);
+            return true;
+        } catch (RuntimeException e) {
+            return false;
+        }
     }
 
     /**
@@ -70,10 +105,22 @@ public final class SparqlQueries {
      * @param modelPrefixes prefixes for shortening IRIs in table and Turtle output (the query's own are added)
      */
     public static String run(Model data, PrefixMapping modelPrefixes, Query query, Format format) {
+        return run(data, modelPrefixes, query, format, false);
+    }
+
+    /**
+     * Runs the query in a sandboxed context ({@link QueryGuard#sandbox}).
+     *
+     * @param servicesAllowed whether the user allowed SERVICE endpoints (checked at parse time)
+     */
+    public static String run(Model data, PrefixMapping modelPrefixes, Query query, Format format,
+            boolean servicesAllowed) {
         PrefixMapping prefixes = PrefixMapping.Factory.create().setNsPrefixes(modelPrefixes)
                 .setNsPrefixes(query.getPrefixMapping());
         ByteArrayOutputStream out = new ByteArrayOutputStream();
-        try (QueryExecution qe = QueryExecution.model(data).query(query).build()) {
+        Context context = ARQ.getContext().copy();
+        QueryGuard.sandbox(context, servicesAllowed);
+        try (QueryExecution qe = QueryExecution.model(data).query(query).context(context).build()) {
             if (query.isSelectType()) {
                 ResultSet rs = qe.execSelect();
                 switch (format) {
@@ -100,8 +147,11 @@ public final class SparqlQueries {
                 throw new InputException("query: only SELECT, ASK, CONSTRUCT and DESCRIBE are supported, not "
                         + query.queryType().toString().toLowerCase(Locale.ROOT));
             }
-        } catch (QueryException e) {
-            throw new InputException("query: cannot run (" + firstLine(e.getMessage()) + "); check the query");
+        } catch (InputException e) {
+            throw e;
+        } catch (QueryException | org.apache.jena.atlas.web.HttpException | IllegalArgumentException e) {
+            throw new InputException("query: cannot run (" + Printable.line(firstLine(e.getMessage()))
+                    + "); check the query");
         }
         return out.toString(StandardCharsets.UTF_8);
     }

@@ -9,10 +9,6 @@ import java.awt.Shape;
 import java.awt.geom.Ellipse2D;
 import java.awt.geom.Rectangle2D;
 import java.awt.image.BufferedImage;
-import java.io.IOException;
-import java.io.OutputStream;
-import java.io.UncheckedIOException;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.ZoneId;
 import java.util.List;
@@ -79,47 +75,49 @@ final class Charts {
     }
 
     /**
-     * Reachability plot: one bar per sample in OPTICS order, coloured by cluster, noise grey; below the bars, a
-     * bracket for each cluster's span of the ordering (the extracted xi clusters).
+     * Reachability plot: bars in OPTICS order (one per sample, or per column and cluster when thinned for display,
+     * {@link Thinning#reachabilityColumns}), coloured by cluster, noise grey; below the bars, a bracket for each
+     * cluster's span of the ordering (the extracted xi clusters).
      *
-     * @param reachability in ordering order; undefined (infinite) values are drawn at the top of the scale
-     * @param labels       cluster label in ordering order
-     * @param groups       labels to draw, in legend order
+     * @param bars   the bars; undefined (infinite) heights are drawn at the top of the scale
+     * @param labels cluster label of every sample in ordering order (for the brackets)
+     * @param groups labels to draw, in legend order
      */
-    static JFreeChart reachability(String title, double[] reachability, int[] labels, List<Group> groups) {
+    static JFreeChart reachability(String title, Thinning.Bars bars, int[] labels, List<Group> groups) {
         double top = 0;
-        for (double r : reachability) {
+        for (double r : bars.height()) {
             if (Double.isFinite(r)) {
                 top = Math.max(top, r);
             }
         }
         top = top == 0 ? 1 : top * 1.08;
         XYSeriesCollection data = new XYSeriesCollection();
-        XYBarRenderer bars = new XYBarRenderer(0.0);
-        bars.setBarPainter(new StandardXYBarPainter());
-        bars.setShadowVisible(false);
+        XYBarRenderer renderer = new XYBarRenderer(0.0);
+        renderer.setBarPainter(new StandardXYBarPainter());
+        renderer.setShadowVisible(false);
         // A hairline outline in the bar's own colour closes the sub-pixel gaps between neighbouring bars.
-        bars.setDrawBarOutline(true);
-        bars.setDefaultOutlineStroke(new BasicStroke(0.6f));
-        bars.setAutoPopulateSeriesOutlinePaint(false);
+        renderer.setDrawBarOutline(true);
+        renderer.setDefaultOutlineStroke(new BasicStroke(0.6f));
+        renderer.setAutoPopulateSeriesOutlinePaint(false);
         for (Group g : groups) {
             XYSeries s = new XYSeries(g.name(), false, true);
-            for (int i = 0; i < reachability.length; i++) {
-                if (labels[i] == g.label()) {
-                    double r = reachability[i];
-                    s.add(i, Double.isFinite(r) ? r : top);
+            for (int i = 0; i < bars.size(); i++) {
+                if (bars.label()[i] == g.label()) {
+                    double r = bars.height()[i];
+                    s.add(bars.x()[i], Double.isFinite(r) ? r : top);
                 }
             }
-            bars.setSeriesPaint(data.getSeriesCount(), Palette.cluster(g.label()));
-            bars.setSeriesOutlinePaint(data.getSeriesCount(), Palette.cluster(g.label()));
+            renderer.setSeriesPaint(data.getSeriesCount(), Palette.cluster(g.label()));
+            renderer.setSeriesOutlinePaint(data.getSeriesCount(), Palette.cluster(g.label()));
             data.addSeries(s);
         }
+        int n = labels.length;
         NumberAxis x = axis("OPTICS order (position of sample)");
-        x.setRange(-0.5, Math.max(1, reachability.length) - 0.5);
+        x.setRange(-0.5, Math.max(1, n) - 0.5);
         NumberAxis y = axis("reachability (standardised PCA-score units)");
         double foot = top * 0.09;
         y.setRange(-foot * (1 + groups.size() * 0.0), top * 1.02);
-        XYPlot plot = new XYPlot(new XYBarDataset(data, 1.0), x, y, bars);
+        XYPlot plot = new XYPlot(new XYBarDataset(data, bars.width()), x, y, renderer);
         style(plot);
         for (Group g : groups) {
             if (g.label() < 0) {
@@ -295,17 +293,19 @@ final class Charts {
             g.dispose();
         }
         ImageWriter writer = ImageIO.getImageWritersByFormatName("png").next();
-        try (OutputStream out = Files.newOutputStream(file);
-             ImageOutputStream stream = ImageIO.createImageOutputStream(out)) {
-            writer.setOutput(stream);
-            ImageWriteParam param = writer.getDefaultWriteParam();
-            // Quality 0.7 is a low deflate level in the JDK's PNG writer: on a summer strip chart it encoded in
-            // 10 ms instead of 18 ms with the default, and the file was smaller (61 kB vs 65 kB).
-            param.setCompressionMode(ImageWriteParam.MODE_EXPLICIT);
-            param.setCompressionQuality(0.7f);
-            writer.write(null, new IIOImage(PaletteImage.reduce(image), null, null), param);
-        } catch (IOException e) {
-            throw new UncheckedIOException("cannot write " + file + ": " + e.getMessage(), e);
+        BufferedImage palette = PaletteImage.reduce(image);
+        try {
+            org.tufa.common.OutputFiles.write(file, out -> {
+                try (ImageOutputStream stream = ImageIO.createImageOutputStream(out)) {
+                    writer.setOutput(stream);
+                    ImageWriteParam param = writer.getDefaultWriteParam();
+                    // Quality 0.7 is a low deflate level in the JDK's PNG writer: on a summer strip chart it
+                    // encoded in 10 ms instead of 18 ms with the default, and the file was smaller (61 kB vs 65 kB).
+                    param.setCompressionMode(ImageWriteParam.MODE_EXPLICIT);
+                    param.setCompressionQuality(0.7f);
+                    writer.write(null, new IIOImage(palette, null, null), param);
+                }
+            });
         } finally {
             writer.dispose();
         }

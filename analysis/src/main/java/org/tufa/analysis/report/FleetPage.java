@@ -2,7 +2,6 @@ package org.tufa.analysis.report;
 
 import java.io.IOException;
 import java.io.UncheckedIOException;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.ZoneId;
@@ -39,14 +38,10 @@ public final class FleetPage {
      * @param reportDir {@link #reportDir}
      */
     public static Path write(Path reportDir, FleetAnalysis.Result result, FleetCoverage coverage, ZoneId zone) {
-        try {
-            Files.createDirectories(reportDir);
-            Path index = reportDir.resolve("index.html");
-            Files.writeString(index, page(result, coverage, zone), StandardCharsets.UTF_8);
-            return index;
-        } catch (IOException e) {
-            throw new UncheckedIOException("cannot write " + reportDir + ": " + e.getMessage(), e);
-        }
+        org.tufa.common.OutputFiles.ensureFolder(reportDir);
+        Path index = reportDir.resolve("index.html");
+        org.tufa.common.OutputFiles.writeString(index, page(result, coverage, zone));
+        return index;
     }
 
     /** "N files, X.X MB" for a report folder: what the console says after writing it. */
@@ -114,9 +109,8 @@ public final class FleetPage {
                     .toList()))).append(".</p>\n");
         }
         var ingest = result.ingest();
-        b.append("<p class=\"small\">Trends: ").append(ingest.rows()).append(" rows read, ")
-                .append(ingest.samplesKept()).append(" samples kept, ").append(ingest.unparsableValues())
-                .append(" unparsable values, ").append(ingest.seriesNeverSeen().size())
+        String line = org.tufa.analysis.fleet.FleetReport.ingestLines(ingest).get(0);
+        b.append("<p class=\"small\">").append(Html.esc(line)).append("; ").append(ingest.seriesNeverSeen().size())
                 .append(" wanted series without data.</p>\n");
     }
 

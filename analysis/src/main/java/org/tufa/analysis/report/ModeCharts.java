@@ -14,7 +14,7 @@ import org.tufa.analysis.fleet.ModeResult;
 final class ModeCharts {
 
     /** File names (relative to the unit folder) and the biplot caption (HTML, escaped). */
-    record Drawn(String reachabilityFile, String biplotFile, String caption) {
+    record Drawn(String reachabilityFile, String biplotFile, String caption, int reachabilityColumnWidth) {
     }
 
     private ModeCharts() {
@@ -30,12 +30,13 @@ final class ModeCharts {
         for (int i = 0; i < order.length; i++) {
             labelsInOrder[i] = m.labels()[order[i]];
         }
-        Charts.writePng(Charts.reachability(unitName + ", " + m.mode() + ": reachability plot",
-                optics.reachabilityPlot(), labelsInOrder, groups), UnitPages.REACH_WIDTH, UnitPages.REACH_HEIGHT,
-                dir.resolve(reachFile));
+        Thinning.Bars bars = Thinning.reachabilityColumns(optics.reachabilityPlot(), labelsInOrder,
+                UnitPages.REACH_COLUMNS);
+        Charts.writePng(Charts.reachability(unitName + ", " + m.mode() + ": reachability plot", bars,
+                labelsInOrder, groups), UnitPages.REACH_WIDTH, UnitPages.REACH_HEIGHT, dir.resolve(reachFile));
         Biplot b = biplot(m, unitName, groups);
         Charts.writePng(b.chart(), UnitPages.BIPLOT_SIZE, UnitPages.BIPLOT_SIZE, dir.resolve(biplotFile));
-        return new Drawn(reachFile, biplotFile, b.caption());
+        return new Drawn(reachFile, biplotFile, b.caption(), (int) bars.width());
     }
 
     /** Cluster groups in drawing order: noise first (underneath), then normal, then the others. */

@@ -3,8 +3,9 @@ package org.tufa.analysis.report;
 import java.util.Arrays;
 
 /**
- * Reductions for display only (the analysis always uses every sample): block means for time-series strips and a
- * deterministic, cluster-aware subset of points for scatter plots. Pure functions.
+ * Reductions for display only (the analysis always uses every sample): block means for time-series strips, a
+ * deterministic, cluster-aware subset of points for scatter plots, and column maxima for reachability plots. Pure
+ * functions.
  */
 final class Thinning {
 
@@ -73,5 +74,58 @@ final class Thinning {
             seen[g]++;
         }
         return Arrays.copyOf(out, m);
+    }
+
+    /**
+     * Bars of a reachability plot: bar k spans ordering positions [x[k] - width / 2, x[k] + width / 2) and has the
+     * given height and cluster label. All bars share the width; a short last column reaches past the last position
+     * (the chart's axis ends there).
+     */
+    record Bars(double[] x, double[] height, int[] label, double width) {
+        int size() {
+            return x.length;
+        }
+    }
+
+    /**
+     * A reachability plot in at most {@code maxColumns} columns of equal width (consecutive ordering positions), one
+     * bar per cluster label present in a column, as tall as that label's largest reachability there. Bars rise from
+     * zero, so at this resolution the tallest bar of a column is all the full plot shows of it: the outline of
+     * peaks and valleys is kept exactly, only bars hidden behind taller neighbours are dropped. Up to maxColumns
+     * samples every sample keeps its own bar. Undefined (infinite) reachabilities stay infinite.
+     *
+     * @param plot   reachability in ordering order
+     * @param labels cluster label in ordering order (-1 noise)
+     */
+    static Bars reachabilityColumns(double[] plot, int[] labels, int maxColumns) {
+        if (maxColumns < 1) {
+            throw new IllegalArgumentException("maxColumns must be at least 1: " + maxColumns);
+        }
+        int n = plot.length;
+        int width = Math.max(1, (n + maxColumns - 1) / maxColumns);
+        int lo = Arrays.stream(labels).min().orElse(0);
+        int hi = Arrays.stream(labels).max().orElse(0);
+        double[] tallest = new double[hi - lo + 1];
+        Arrays.fill(tallest, Double.NaN);
+        double[] x = new double[n];
+        double[] height = new double[n];
+        int[] label = new int[n];
+        int bars = 0;
+        for (int from = 0; from < n; from += width) {
+            int to = Math.min(n, from + width);
+            for (int i = from; i < to; i++) {
+                int g = labels[i] - lo;
+                tallest[g] = Double.isNaN(tallest[g]) ? plot[i] : Math.max(tallest[g], plot[i]);
+            }
+            for (int g = 0; g < tallest.length; g++) {
+                if (!Double.isNaN(tallest[g])) {
+                    x[bars] = from + (width - 1) / 2.0;
+                    height[bars] = tallest[g];
+                    label[bars++] = g + lo;
+                    tallest[g] = Double.NaN;
+                }
+            }
+        }
+        return new Bars(Arrays.copyOf(x, bars), Arrays.copyOf(height, bars), Arrays.copyOf(label, bars), width);
     }
 }

@@ -1,9 +1,7 @@
 package org.tufa.analysis.report;
 
+import org.tufa.common.OutputFiles;
 import java.awt.Color;
-import java.io.IOException;
-import java.io.UncheckedIOException;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Duration;
@@ -38,6 +36,8 @@ public final class UnitPages implements UnitSink {
     static final int STRIP_HEIGHT = 520;
     static final int REACH_WIDTH = 720;
     static final int REACH_HEIGHT = 300;
+    /** Most columns of a reachability plot: two per pixel of its width (display only; every sample is clustered). */
+    static final int REACH_COLUMNS = 2 * REACH_WIDTH;
     static final int BIPLOT_SIZE = 600;
     /** Most points a biplot shows (display only; every sample is clustered). */
     static final int BIPLOT_POINTS = 2000;
@@ -75,11 +75,7 @@ public final class UnitPages implements UnitSink {
             return;
         }
         Path dir = folder(o);
-        try {
-            Files.createDirectories(dir);
-        } catch (IOException e) {
-            throw new UncheckedIOException("cannot write " + dir + ": " + e.getMessage(), e);
-        }
+        OutputFiles.ensureFolder(dir);
         String name = name(o);
         Map<String, ModeCharts.Drawn> charts = new java.util.TreeMap<>();
         for (ModeResult m : r.modeResults()) {
@@ -98,18 +94,13 @@ public final class UnitPages implements UnitSink {
     @Override
     public void decided(UnitOutcome o, UnitSignals signals, double[] loadKw) {
         Path dir = folder(o);
-        try {
-            Files.createDirectories(dir);
-            if (signals != null && o.summary() != null) {
-                Charts.writePng(strips(name(o), signals, loadKw, o.summary().interval(), o.findings()), STRIP_WIDTH,
-                        STRIP_HEIGHT, dir.resolve("strips.png"));
-            }
-            Map<String, ModeCharts.Drawn> charts = drawn.remove(o.folder());
-            Files.writeString(dir.resolve("index.html"), page(o, charts == null ? Map.of() : charts, dir),
-                    StandardCharsets.UTF_8);
-        } catch (IOException e) {
-            throw new UncheckedIOException("cannot write " + dir + ": " + e.getMessage(), e);
+        OutputFiles.ensureFolder(dir);
+        if (signals != null && o.summary() != null) {
+            Charts.writePng(strips(name(o), signals, loadKw, o.summary().interval(), o.findings()), STRIP_WIDTH,
+                    STRIP_HEIGHT, dir.resolve("strips.png"));
         }
+        Map<String, ModeCharts.Drawn> charts = drawn.remove(o.folder());
+        OutputFiles.writeString(dir.resolve("index.html"), page(o, charts == null ? Map.of() : charts, dir));
     }
 
     private static String name(UnitOutcome o) {
@@ -253,8 +244,12 @@ public final class UnitPages implements UnitSink {
         b.append("<figure><img src=\"").append(drawn.reachabilityFile()).append("\" width=\"").append(REACH_WIDTH)
                 .append("\" height=\"").append(REACH_HEIGHT).append("\" alt=\"Reachability plot, ")
                 .append(Html.esc(m.mode())).append("\">\n<figcaption>OPTICS reachability plot (Ankerst, Breunig, "
-                        + "Kriegel and Sander, SIGMOD 1999): one bar per clustered sample in processing order; "
-                        + "valleys are dense regions. Bars coloured by cluster, noise grey; the brackets under the "
+                        + "Kriegel and Sander, SIGMOD 1999): ")
+                .append(drawn.reachabilityColumnWidth() == 1 ? "one bar per clustered sample in processing order"
+                        : "clustered samples in processing order, " + drawn.reachabilityColumnWidth()
+                        + " per column, each column showing the largest reachability of each cluster in it (display"
+                        + " only: the outline of peaks and valleys is exact)")
+                .append("; valleys are dense regions. Bars coloured by cluster, noise grey; the brackets under the "
                         + "axis mark each extracted xi cluster's span of the ordering (C0 = normal, the largest). "
                         + "Distances are in standardised PCA-score units (features scaled to unit variance). "
                         + "Undefined reachability (first sample of a region) is drawn at the top.</figcaption>"

@@ -1,9 +1,8 @@
 package org.tufa.analysis.simulate;
 
-import java.io.BufferedWriter;
+import org.tufa.common.OutputFiles;
 import java.io.IOException;
 import java.io.UncheckedIOException;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.ZoneId;
@@ -60,7 +59,7 @@ public final class DemoTrends {
     public static void writeLong(Path file, SimulationResult result) {
         List<Column> columns = columns(result);
         String[] stamps = timestamps(result);
-        try (BufferedWriter w = Files.newBufferedWriter(file, StandardCharsets.UTF_8)) {
+        OutputFiles.writeText(file, w -> {
             w.write("timestamp,point,value\n");
             StringBuilder line = new StringBuilder(BUFFER);
             for (Column c : columns) {
@@ -76,16 +75,14 @@ public final class DemoTrends {
                 }
             }
             w.append(line);
-        } catch (IOException e) {
-            throw new UncheckedIOException(e);
-        }
+        });
     }
 
     /** Wide layout: {@code timestamp,<series id>,...}. */
     public static void writeWide(Path file, SimulationResult result) {
         List<Column> columns = columns(result);
         String[] stamps = timestamps(result);
-        try (BufferedWriter w = Files.newBufferedWriter(file, StandardCharsets.UTF_8)) {
+        OutputFiles.writeText(file, w -> {
             StringBuilder line = new StringBuilder(BUFFER);
             line.append("timestamp");
             for (Column c : columns) {
@@ -105,9 +102,7 @@ public final class DemoTrends {
                 }
             }
             w.append(line);
-        } catch (IOException e) {
-            throw new UncheckedIOException(e);
-        }
+        });
     }
 
     /** Ground truth: {@code unit,fault,start,end,severity}, one row per episode, sorted by unit then start. */
@@ -123,11 +118,7 @@ public final class DemoTrends {
             ValueWriter.appendFixed(out, f.severity(), 3);
             out.append('\n');
         }
-        try {
-            Files.writeString(file, out, StandardCharsets.UTF_8);
-        } catch (IOException e) {
-            throw new UncheckedIOException(e);
-        }
+        OutputFiles.writeString(file, out);
     }
 
     /** The ISO 8601 timestamp, with offset, of each sample. */

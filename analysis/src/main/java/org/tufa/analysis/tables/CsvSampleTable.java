@@ -2,9 +2,9 @@ package org.tufa.analysis.tables;
 
 import java.io.BufferedWriter;
 import java.io.IOException;
+import java.io.OutputStream;
+import java.io.OutputStreamWriter;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
-import java.nio.file.Path;
 import java.util.List;
 
 /**
@@ -16,8 +16,8 @@ final class CsvSampleTable implements SampleTable {
     private final BufferedWriter out;
     private boolean rowStarted;
 
-    CsvSampleTable(Path file, List<SampleColumn> columns) throws IOException {
-        this.out = Files.newBufferedWriter(file, StandardCharsets.UTF_8);
+    CsvSampleTable(OutputStream stream, List<SampleColumn> columns) throws IOException {
+        this.out = new BufferedWriter(new OutputStreamWriter(stream, StandardCharsets.UTF_8), 1 << 16);
         out.write(String.join(",", columns.stream().map(SampleColumn::name).toList()));
         out.write('\n');
     }
@@ -69,6 +69,6 @@ final class CsvSampleTable implements SampleTable {
 
     @Override
     public void close() throws IOException {
-        out.close();
+        out.flush(); // the stream is closed (and renamed into place) by SampleTable.write
     }
 }

@@ -1,8 +1,6 @@
 package org.tufa.analysis.tables;
 
 import java.io.IOException;
-import java.nio.file.Files;
-import java.nio.file.Path;
 import java.util.HashMap;
 import java.util.List;
 import org.apache.hadoop.conf.Configuration;
@@ -14,7 +12,7 @@ import org.apache.parquet.hadoop.ParquetFileWriter;
 import org.apache.parquet.hadoop.ParquetWriter;
 import org.apache.parquet.hadoop.api.WriteSupport;
 import org.apache.parquet.hadoop.metadata.CompressionCodecName;
-import org.apache.parquet.io.LocalOutputFile;
+import org.apache.parquet.io.OutputFile;
 import org.apache.parquet.io.api.Binary;
 import org.apache.parquet.io.api.RecordConsumer;
 import org.apache.parquet.schema.LogicalTypeAnnotation;
@@ -27,7 +25,7 @@ import org.apache.parquet.schema.Types;
  * dictionary encoding where it pays (mode names, cluster labels), gzip-compressed pages. Data pages of format
  * version 2, for their delta encoding of whole numbers: a time column on a 15-minute grid takes 0.01 byte a row
  * instead of 3.4 with version 1 pages and gzip (demo summer); pyarrow (pandas), DuckDB and Spark (3.3 and later)
- * read them. Written with parquet-java's record writer on a local file: no Hadoop.
+ * read them. Written with parquet-java's record writer on a plain stream ({@link StreamOutputFile}): no Hadoop.
  */
 final class ParquetSampleTable implements SampleTable {
 
@@ -51,10 +49,9 @@ final class ParquetSampleTable implements SampleTable {
         }
     }
 
-    ParquetSampleTable(Path file, List<SampleColumn> columns) throws IOException {
+    ParquetSampleTable(OutputFile file, List<SampleColumn> columns) throws IOException {
         this.columns = List.copyOf(columns);
         this.row = new Row(columns.size());
-        Files.deleteIfExists(file);
         // parquet-java interns column paths in a static map that is not thread-safe, and looks the per-column
         // settings up by those paths: two writers built at once on two threads could lose the dictionary settings
         // and write other (equally valid) bytes. Building writers one at a time keeps the files the same bytes
@@ -62,7 +59,7 @@ final class ParquetSampleTable implements SampleTable {
         ParquetWriter<Row> writer;
         synchronized (ColumnPath.class) {
             MessageType schema = schema(columns);
-            Builder builder = new Builder(new LocalOutputFile(file), schema, this.columns)
+            Builder builder = new Builder(file, schema, this.columns)
                     .withConf(new PlainParquetConfiguration())
                     .withCodecFactory(new GzipCodecs())
                     .withCompressionCodec(CompressionCodecName.GZIP)
@@ -205,7 +202,7 @@ final class ParquetSampleTable implements SampleTable {
         private final MessageType schema;
         private final List<SampleColumn> columns;
 
-        Builder(LocalOutputFile file, MessageType schema, List<SampleColumn> columns) {
+        Builder(OutputFile file, MessageType schema, List<SampleColumn> columns) {
             super(file);
             this.schema = schema;
             this.columns = columns;

@@ -3,23 +3,32 @@ package org.tufa.analysis.tables;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.util.List;
+import org.tufa.common.OutputFiles;
 
 /**
  * A per-sample table being written, one row at a time: call the value method of each column in column order, then
- * {@link #endRow}. Not thread-safe: one writer per file.
+ * {@link #endRow}. Not thread-safe: one writer per file. Closing it ends the table; the stream it writes to belongs
+ * to {@link #write}.
  */
 public interface SampleTable extends AutoCloseable {
 
     /**
-     * Opens {@code dir/<name>.<extension>} for writing, replacing it.
+     * Writes {@code dir/<name>.<extension>}, replacing it, through {@link OutputFiles}: to a temporary file beside it,
+     * renamed into place once complete, so a reader never sees half a table.
      *
-     * @throws IOException when the file cannot be created
+     * @param rows writes every row
+     * @throws org.tufa.common.InputException when the file cannot be written (naming it and why)
      */
-    static SampleTable open(Path dir, String name, SampleFormat format, List<SampleColumn> columns)
-            throws IOException {
+    static void write(Path dir, String name, SampleFormat format, List<SampleColumn> columns,
+                      OutputFiles.Content<SampleTable> rows) {
         Path file = dir.resolve(name + "." + format.extension());
-        return format == SampleFormat.PARQUET ? new ParquetSampleTable(file, columns)
-                : new CsvSampleTable(file, columns);
+        OutputFiles.write(file, out -> {
+            try (SampleTable t = format == SampleFormat.PARQUET
+                    ? new ParquetSampleTable(new StreamOutputFile(out, file.toString()), columns)
+                    : new CsvSampleTable(out, columns)) {
+                rows.writeTo(t);
+            }
+        });
     }
 
     /**

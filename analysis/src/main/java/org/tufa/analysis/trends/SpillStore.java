@@ -28,6 +28,8 @@ final class SpillStore implements AutoCloseable {
 
     private final Path file;
     private final FileChannel channel;
+    /** Deletes the file if the JVM stops before {@link #close} (SIGTERM, Ctrl-C); null once the file is unlinked. */
+    private final Thread cleanup;
     private final int chunkSamples;
     private final long baseEpochSecond;
     private final int[][] bufferTimes;
@@ -55,8 +57,26 @@ final class SpillStore implements AutoCloseable {
             this.channel = FileChannel.open(file, StandardOpenOption.READ, StandardOpenOption.WRITE,
                     StandardOpenOption.TRUNCATE_EXISTING);
         } catch (IOException e) {
-            throw new UncheckedIOException("cannot create a temp file in " + directory, e);
+            throw new org.tufa.common.InputException(directory + ": cannot create the trend spill file ("
+                    + org.tufa.common.OutputFiles.reason(e) + "); point java.io.tmpdir to a writable folder with space");
         }
+        // On POSIX systems an open file can be unlinked and still used: then no exit, not even SIGKILL, leaves it
+        // behind. Where that fails (Windows), a shutdown hook deletes it on a normal exit, Ctrl-C or SIGTERM.
+        Thread hook = null;
+        try {
+            Files.delete(file);
+        } catch (IOException e) {
+            hook = new Thread(() -> {
+                try {
+                    channel.close();
+                    Files.deleteIfExists(file);
+                } catch (IOException ignored) {
+                    // the JVM is stopping; nothing more can be done
+                }
+            }, "tufa-spill-cleanup");
+            Runtime.getRuntime().addShutdownHook(hook);
+        }
+        this.cleanup = hook;
     }
 
     long baseEpochSecond() {
@@ -176,6 +196,13 @@ final class SpillStore implements AutoCloseable {
     @Override
     public void close() {
         try {
+            if (cleanup != null) {
+                try {
+                    Runtime.getRuntime().removeShutdownHook(cleanup);
+                } catch (IllegalStateException stopping) {
+                    // the hook is running or about to: it deletes the file
+                }
+            }
             channel.close();
             Files.deleteIfExists(file);
         } catch (IOException e) {

@@ -37,6 +37,16 @@ final class TrendReader {
     private final Map<String, Integer> seriesIndex;
     private final String[] seriesIds;
     private final SeriesKind[] kinds;
+    /** Plausible range of each series, null when its unit has none. */
+    private final PlausibleRange[] ranges;
+    /** Time and value of each series' previous stored sample in reading order, for the duplicate check. */
+    private final long[] previousTime;
+    private final double[] previousValue;
+    /** Series whose samples did not come in time order: duplicates are looked for after reading. */
+    private final boolean[] outOfOrder;
+    /** Per series, the duplicates and conflicts counted while reading (the after-reading check recounts them). */
+    private final long[] seriesDuplicates;
+    private final long[] seriesConflicts;
     private final SpillStore spill;
     private final java.time.ZoneId zone;
     private final boolean strict;
@@ -56,6 +66,13 @@ final class TrendReader {
     private long unparsableValues;
     private long unparsableTimestamps;
     private long malformedRows;
+    private long emptyValues;
+    private long nonFiniteValues;
+    private long implausibleValues;
+    private long duplicateSamples;
+    private long conflictingDuplicates;
+    private long firstStamp;
+    private long lastStamp;
     private List<String> examples;
     private int[] fieldStarts = new int[64];
     private int[] fieldEnds = new int[64];
@@ -63,9 +80,17 @@ final class TrendReader {
     /** Whether the fields of the current line point into {@link #quotedLine} rather than the line buffer. */
     private boolean isQuoted;
 
-    TrendReader(String[] seriesIds, SeriesKind[] kinds, SpillStore spill, TimeOptions options) {
+    TrendReader(String[] seriesIds, SeriesKind[] kinds, PlausibleRange[] ranges, SpillStore spill,
+            TimeOptions options) {
         this.seriesIds = seriesIds;
         this.kinds = kinds;
+        this.ranges = ranges;
+        this.previousTime = new long[seriesIds.length];
+        this.previousValue = new double[seriesIds.length];
+        this.outOfOrder = new boolean[seriesIds.length];
+        this.seriesDuplicates = new long[seriesIds.length];
+        this.seriesConflicts = new long[seriesIds.length];
+        Arrays.fill(previousTime, Long.MIN_VALUE);
         this.spill = spill;
         this.zone = options.zone();
         this.strict = options.strict();
@@ -86,6 +111,21 @@ final class TrendReader {
         return unknownSeries;
     }
 
+    /** Whether the series' samples came out of time order (so duplicates may remain in the spill). */
+    boolean outOfOrder(int series) {
+        return outOfOrder[series];
+    }
+
+    /** Exact duplicates of the series counted while reading. */
+    long duplicatesCounted(int series) {
+        return seriesDuplicates[series];
+    }
+
+    /** Conflicting duplicates of the series counted while reading. */
+    long conflictsCounted(int series) {
+        return seriesConflicts[series];
+    }
+
     /** Earliest stored sample time of each series, Long.MAX_VALUE when none. */
     long[] firstTimes() {
         return firstTime;
@@ -99,6 +139,9 @@ final class TrendReader {
     FileReport read(Path path) {
         file = path;
         rows = kept = outsideWindow = unknownSamples = unparsableValues = unparsableTimestamps = malformedRows = 0;
+        emptyValues = nonFiniteValues = implausibleValues = duplicateSamples = conflictingDuplicates = 0;
+        firstStamp = Long.MAX_VALUE;
+        lastStamp = Long.MIN_VALUE;
         examples = new ArrayList<>();
         try (InputStream in = open(path)) {
             return readLines(new LineSource(in));
@@ -127,6 +170,19 @@ final class TrendReader {
         }
         byte[] b = lines.buffer();
         int headerStart = lines.start();
+        if (lines.end() - headerStart >= 2 && ((b[headerStart] & 0xff) == 0xFF && (b[headerStart + 1] & 0xff) == 0xFE
+                || (b[headerStart] & 0xff) == 0xFE && (b[headerStart + 1] & 0xff) == 0xFF)) {
+            throw InputException.in(file, "is UTF-16 encoded; save the trends as UTF-8 (or ASCII) CSV");
+        }
+        String utf16 = org.tufa.common.Printable.utf16WithoutBom(b, headerStart, lines.end());
+        if (utf16 != null) {
+            throw InputException.in(file, "looks " + utf16 + " encoded (no byte-order mark); save the trends as UTF-8 "
+                    + "(or ASCII) CSV");
+        }
+        if (org.tufa.common.Printable.looksBinary(b, headerStart, lines.end())) {
+            throw InputException.in(file, "is not a text CSV file (its first line holds binary data); pass trend "
+                    + "CSV files (.csv, or gzip-compressed .csv.gz)");
+        }
         // A UTF-8 byte order mark (EF BB BF), as some spreadsheet exports write, is not part of the first name.
         if (lines.end() - headerStart >= 3 && (b[headerStart] & 0xff) == 0xEF && (b[headerStart + 1] & 0xff) == 0xBB
                 && (b[headerStart + 2] & 0xff) == 0xBF) {
@@ -156,7 +212,8 @@ final class TrendReader {
                 ? readLong(lines, header.size(), timestampColumn, pointColumn, valueColumn)
                 : readWide(lines, header, timestampColumn);
         return new FileReport(file, format, rows, kept, outsideWindow, unknownSamples, unparsableValues,
-                unparsableTimestamps, malformedRows, examples, dst.first, dst.second, dst.skipped);
+                unparsableTimestamps, malformedRows, examples, dst.first, dst.second, dst.skipped, emptyValues,
+                nonFiniteValues, implausibleValues, duplicateSamples, conflictingDuplicates, firstStamp, lastStamp);
     }
 
     private List<String> parseHeader(String headerLine) {
@@ -244,10 +301,15 @@ final class TrendReader {
                 }
                 int s = trimStart(line, fieldStarts[j], fieldEnds[j]);
                 int e = trimEnd(line, s, fieldEnds[j]);
+                int series = columnSeries[j];
                 if (s == e) {
+                    if (series >= 0) {
+                        emptyValues++;
+                        strictOnly(lineNumber, j + 1, "the value of series " + seriesIds[series] + " is empty",
+                                "fill it in or remove the row");
+                    }
                     continue;
                 }
-                int series = columnSeries[j];
                 if (series < 0) {
                     unknownSamples++;
                 } else if (!inWindow) {
@@ -305,12 +367,15 @@ final class TrendReader {
                 lastPointSeries = series;
             }
             if (series < 0) {
-                if (vs < ve) {
-                    unknownSamples++;
-                }
+                // Counted and named, never refused, even in strict mode: an export holds many series no analysed
+                // unit reads (humidity, alarms), and the reader cannot tell them from series of no model.
+                unknownSamples++;
                 continue;
             }
             if (vs == ve) {
+                emptyValues++;
+                strictOnly(lineNumber, valueColumn + 1, "the value of series " + seriesIds[series] + " is empty",
+                        "fill it in or remove the row");
                 continue;
             }
             if (resolvers[series] == null && zone != null) {
@@ -333,16 +398,51 @@ final class TrendReader {
         return tally;
     }
 
-    /** Parses and stores one value, or counts it as unparsable. */
+    /**
+     * Parses and stores one value, or counts why not: unparsable, non-finite, outside the plausible range of its
+     * unit. A second sample of the series at the same time is stored and counted (an exact duplicate, or a
+     * conflict).
+     */
     private void store(int series, long time, byte[] line, int s, int e, long lineNumber, int column) {
         double value = kinds[series] == SeriesKind.BINARY ? ValueParser.binary(line, s, e) : ValueParser.number(line, s, e);
         if (Double.isNaN(value)) {
+            if (ValueParser.isNonFinite(line, s, e)) {
+                nonFiniteValues++;
+                problem(lineNumber, column, "value '" + text(line, s, e) + "' of series " + seriesIds[series]
+                        + " is not a finite number", "correct the value or leave the field empty");
+                return;
+            }
             unparsableValues++;
             String what = "value '" + text(line, s, e) + "' of series " + seriesIds[series] + " is not a number"
                     + (kinds[series] == SeriesKind.BINARY ? " nor true/false, on/off, active/inactive, run/stop" : "");
             problem(lineNumber, column, what, "correct the value or leave the field empty");
             return;
         }
+        PlausibleRange range = ranges[series];
+        if (range != null && !range.contains(value)) {
+            implausibleValues++;
+            problem(lineNumber, column, "value " + text(line, s, e) + " of series " + seriesIds[series]
+                    + " is outside the plausible range " + range.min() + ".." + range.max() + " of its unit",
+                    "correct the value or the point's unit");
+            return;
+        }
+        if (time == previousTime[series]) {
+            // Both are kept (averaged in their grid cell, as any two samples in one cell are), and counted.
+            if (Double.compare(value, previousValue[series]) == 0) {
+                duplicateSamples++;
+                seriesDuplicates[series]++;
+            } else {
+                conflictingDuplicates++;
+                seriesConflicts[series]++;
+                problem(lineNumber, column, "series " + seriesIds[series] + " has a second value (" + text(line, s, e)
+                        + ", the first was " + previousValue[series] + ") at " + java.time.Instant.ofEpochSecond(time)
+                        + "; both are kept and averaged", "remove one of the two rows");
+            }
+        } else if (time < previousTime[series]) {
+            outOfOrder[series] = true;
+        }
+        previousTime[series] = time;
+        previousValue[series] = value;
         spill.add(series, time, value);
         kept++;
         if (time < firstTime[series]) {
@@ -359,9 +459,14 @@ final class TrendReader {
         int e = trimEnd(line, s, fieldEnds[column]);
         if (!stamp.parse(line, s, e)) {
             unparsableTimestamps++;
-            problem(lineNumber, column + 1, "time stamp '" + text(line, s, e)
-                    + "' is neither ISO 8601 with an offset (2031-07-01T08:15:00-04:00) nor local (2031-07-01 08:15)",
-                    "correct the time stamp");
+            if (looksEpoch(line, s, e)) {
+                problem(lineNumber, column + 1, "time stamp '" + text(line, s, e) + "' looks like a Unix epoch time "
+                        + "(seconds or milliseconds since 1970); tufa reads ISO 8601 stamps such as "
+                        + "2031-07-01T08:15:00Z", "convert the time stamp column");
+            } else {
+                problem(lineNumber, column + 1, "time stamp '" + text(line, s, e) + "' is neither ISO 8601 with an "
+                        + "offset (2031-07-01T08:15:00-04:00) nor local (2031-07-01 08:15)", "correct the time stamp");
+            }
             return Long.MIN_VALUE;
         }
         long time = stamp.seconds;
@@ -372,6 +477,12 @@ final class TrendReader {
                         + " logged in (e.g. --timezone America/Toronto)");
             }
             time = resolver.toEpochSecond(time);
+        }
+        if (time < firstStamp) {
+            firstStamp = time;
+        }
+        if (time > lastStamp) {
+            lastStamp = time;
         }
         if (!spill.fits(time)) {
             unparsableTimestamps++;
@@ -461,6 +572,14 @@ final class TrendReader {
         problem(lineNumber, column, what, "fix the row so that it has one field per header column");
     }
 
+    /** A problem that is counted without an example, and refused in strict mode. */
+    private void strictOnly(long lineNumber, int column, String what, String todo) {
+        if (strict) {
+            throw new InputException(file + ":" + lineNumber + ":" + column + ": " + what + "; " + todo
+                    + " (or read without strict mode to count and skip such problems)");
+        }
+    }
+
     private void problem(long lineNumber, int column, String what, String todo) {
         String place = file + ":" + lineNumber + ":" + column;
         if (strict) {
@@ -491,6 +610,23 @@ final class TrendReader {
     }
 
     private static String abbreviate(String s) {
-        return s.length() <= 60 ? s : s.substring(0, 57) + "...";
+        return org.tufa.common.Printable.excerpt(s);
+    }
+
+    /** Nine to thirteen digits, optionally with a fraction: seconds or milliseconds since 1970. */
+    private static boolean looksEpoch(byte[] b, int s, int e) {
+        int digits = 0;
+        int p = s;
+        while (p < e && b[p] >= '0' && b[p] <= '9') {
+            digits++;
+            p++;
+        }
+        if (p < e && b[p] == '.') {
+            p++;
+            while (p < e && b[p] >= '0' && b[p] <= '9') {
+                p++;
+            }
+        }
+        return p == e && digits >= 9 && digits <= 13;
     }
 }

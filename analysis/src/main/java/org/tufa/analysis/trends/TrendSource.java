@@ -17,10 +17,12 @@ public interface TrendSource extends AutoCloseable {
     interface Opener {
         /**
          * @param wanted series ids to read, with how to resample each
+         * @param ranges plausible range per series id (from its unit): values outside are counted and not kept, or
+         *     refused in strict mode ({@link PlausibleRange}); series without one are checked for non-finite values only
          * @param options zone, grid, hold limit, window, strictness
          * @throws org.tufa.common.InputException when the source cannot be read (one line naming it)
          */
-        TrendSource open(Map<String, SeriesKind> wanted, TimeOptions options);
+        TrendSource open(Map<String, SeriesKind> wanted, Map<String, PlausibleRange> ranges, TimeOptions options);
     }
 
     /** Start of grid cell 0, the same for every series. */

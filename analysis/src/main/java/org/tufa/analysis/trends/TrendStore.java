@@ -50,6 +50,12 @@ public final class TrendStore implements TrendSource {
         this.gridLength = gridLength;
     }
 
+    /** Opens these trend files for a fleet run: {@link #ingest} with temp files in {@code java.io.tmpdir}. */
+    public static TrendSource.Opener opener(List<Path> inputs) {
+        return (wanted, ranges, options) -> ingest(inputs, wanted, ranges, options,
+                Path.of(System.getProperty("java.io.tmpdir")));
+    }
+
     /** Ingest with temp files in {@code java.io.tmpdir}. */
     public static TrendStore ingest(List<Path> inputs, Map<String, SeriesKind> wanted, TimeOptions options) {
         return ingest(inputs, wanted, options, Path.of(System.getProperty("java.io.tmpdir")));
@@ -67,11 +73,27 @@ public final class TrendStore implements TrendSource {
      */
     public static TrendStore ingest(List<Path> inputs, Map<String, SeriesKind> wanted, TimeOptions options,
             Path tempDirectory) {
+        return ingest(inputs, wanted, Map.of(), options, tempDirectory);
+    }
+
+    /**
+     * Reads every input once and keeps the wanted series, dropping (and counting) values outside each series'
+     * plausible range.
+     *
+     * @param ranges plausible range per series id (from its unit); series without one are only checked for
+     *     non-finite values
+     */
+    public static TrendStore ingest(List<Path> inputs, Map<String, SeriesKind> wanted,
+            Map<String, PlausibleRange> ranges, TimeOptions options, Path tempDirectory) {
         Objects.requireNonNull(options, "options");
         List<Path> files = expand(inputs);
         TreeMap<String, SeriesKind> sorted = new TreeMap<>(wanted);
         String[] ids = sorted.keySet().toArray(String[]::new);
         SeriesKind[] kinds = sorted.values().toArray(SeriesKind[]::new);
+        PlausibleRange[] seriesRanges = new PlausibleRange[ids.length];
+        for (int i = 0; i < ids.length; i++) {
+            seriesRanges[i] = ranges.get(ids[i]);
+        }
         Map<String, Integer> index = new TreeMap<>();
         for (int i = 0; i < ids.length; i++) {
             index.put(ids[i], i);
@@ -81,7 +103,7 @@ public final class TrendStore implements TrendSource {
         long base = options.from() != null ? options.from().getEpochSecond() : 946_684_800L;
         SpillStore spill = new SpillStore(tempDirectory, ids.length, chunkSamples, base);
         try {
-            TrendReader reader = new TrendReader(ids, kinds, spill, options);
+            TrendReader reader = new TrendReader(ids, kinds, seriesRanges, spill, options);
             List<FileReport> fileReports = new ArrayList<>();
             for (Path file : files) {
                 fileReports.add(reader.read(file));
@@ -89,6 +111,36 @@ public final class TrendStore implements TrendSource {
             spill.finish();
             long[] first = reader.firstTimes();
             long[] last = reader.lastTimes();
+            // Series whose samples came out of time order (two files covering the same days, say) may still hold
+            // repeated times the reader could not see: count them now (kept and averaged, like the others).
+            long laterDuplicates = 0;
+            long laterConflicts = 0;
+            for (int i = 0; i < ids.length; i++) {
+                if (!reader.outOfOrder(i)) {
+                    continue;
+                }
+                SpillStore.Samples samples = Resampler.sortedByTime(spill.read(i));
+                long[] t = samples.epochSeconds();
+                double[] v = samples.values();
+                // Every repeat of the series is found here; its counts replace those made while reading.
+                laterDuplicates -= reader.duplicatesCounted(i);
+                laterConflicts -= reader.conflictsCounted(i);
+                int runStart = 0;
+                for (int k = 1; k < t.length; k++) {
+                    if (t[k] != t[runStart]) {
+                        runStart = k;
+                    } else if (Double.compare(v[k], v[runStart]) == 0) {
+                        laterDuplicates++;
+                    } else {
+                        laterConflicts++;
+                        if (options.strict()) {
+                            throw new InputException("series " + ids[i] + " has two values at "
+                                    + Instant.ofEpochSecond(t[k]) + " (" + v[runStart] + " and " + v[k] + ") in the trend "
+                                    + "files; remove one (or read without strict mode: both are kept and averaged)");
+                        }
+                    }
+                }
+            }
             List<SeriesSpan> spans = new ArrayList<>();
             List<String> neverSeen = new ArrayList<>();
             long minTime = Long.MAX_VALUE;
@@ -104,14 +156,37 @@ public final class TrendStore implements TrendSource {
                 }
             }
             IngestReport report = new IngestReport(fileReports, new ArrayList<>(reader.unknownSeries()), spans,
-                    neverSeen);
+                    neverSeen, laterDuplicates, laterConflicts);
             TrendGrid grid = TrendGrid.of(options, minTime, maxTime);
+            checkGridDensity(grid.cells(), spans, options.interval());
             return new TrendStore(spill, index, kinds, report, grid.start(), grid.interval(),
                     options.maxGap().getSeconds(), grid.cells());
         } catch (RuntimeException e) {
             spill.close();
             throw e;
         }
+    }
+
+    /** Grid cells per series above which a grid much finer than the data is refused. */
+    static final long DENSE_GRID_CELLS = 100_000;
+
+    /**
+     * Refuses a grid far finer than the data (--interval PT1S on trends logged every 15 minutes): every sample
+     * would be repeated hundreds of times, and the clustering would run for hours on copies. Allowed: up to eight
+     * grid cells per sample of the densest series, or any grid under {@link #DENSE_GRID_CELLS} cells.
+     */
+    static void checkGridDensity(long cells, List<SeriesSpan> spans, Duration interval) {
+        long densest = spans.stream().mapToLong(SeriesSpan::samples).max().orElse(0);
+        if (cells <= DENSE_GRID_CELLS || densest == 0 || cells <= 8 * densest) {
+            return;
+        }
+        SeriesSpan d = spans.stream().filter(sp -> sp.samples() == densest).findFirst().orElseThrow();
+        long seconds = Math.max(1, Duration.between(d.first(), d.last()).getSeconds() / Math.max(1, densest - 1));
+        throw new InputException("--interval " + interval + " makes " + cells + " grid cells per series, but the "
+                + "densest series (" + d.id() + ") has " + densest + " samples, about one every "
+                + Duration.ofSeconds(seconds) + ": each sample would be repeated about " + cells / densest
+                + " times; choose an interval near the logging interval (e.g. --interval " + Duration.ofSeconds(
+                        Math.max(60, seconds / 60 * 60)) + ")");
     }
 
     /** Files to read: each input file as given; each folder's *.csv and *.csv.gz files, sorted by name. */

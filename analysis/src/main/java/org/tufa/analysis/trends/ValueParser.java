@@ -98,6 +98,35 @@ public final class ValueParser {
         return Double.isFinite(v) ? v : Double.NaN;
     }
 
+    /** {@link #isNonFinite(byte[], int, int)} on a value given as text (a database column of text type). */
+    public static boolean isNonFinite(String text) {
+        byte[] b = text.strip().getBytes(java.nio.charset.StandardCharsets.UTF_8);
+        return b.length > 0 && isNonFinite(b, 0, b.length);
+    }
+
+    /**
+     * Whether a value that {@link #number} refused is a non-finite number rather than text: NaN, Inf or Infinity
+     * (any case, optional sign), or a decimal number too large for a double (1e400).
+     */
+    static boolean isNonFinite(byte[] b, int start, int end) {
+        String t = new String(b, start, end - start, java.nio.charset.StandardCharsets.ISO_8859_1)
+                .toLowerCase(java.util.Locale.ROOT);
+        if (t.startsWith("+") || t.startsWith("-")) {
+            t = t.substring(1);
+        }
+        if (t.equals("nan") || t.equals("inf") || t.equals("infinity")) {
+            return true;
+        }
+        if (!t.matches("[0-9]*\\.?[0-9]*(e[+-]?[0-9]+)?") || t.isEmpty() || t.equals(".")) {
+            return false;
+        }
+        try {
+            return Double.isInfinite(Double.parseDouble(t));
+        } catch (NumberFormatException e) {
+            return false;
+        }
+    }
+
     /** A binary value: a number, or one of the binary words; NaN when neither. */
     static double binary(byte[] b, int start, int end) {
         byte first = b[start];

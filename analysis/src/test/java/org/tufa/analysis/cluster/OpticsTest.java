@@ -64,9 +64,10 @@ class OpticsTest {
 
     // Other sets: near-ties make the exact order implementation-dependent (scikit-learn rounds to 15 decimals and
     // uses a dot-product distance; on the 0.1-spaced grid 0.1 and 0.30000000000000004 - 0.2 tie only after its
-    // rounding), so compare core distances to 1e-12 and check the order by exact replay.
+    // rounding), so compare core distances to 1e-12 and check the order by exact replay. lattice3d (1,500 points on
+    // a 0.5 lattice, most of them duplicates) and walk1d (1,200 values rounded to 0.1) are the tie-heavy sets.
     @ParameterizedTest
-    @ValueSource(strings = {"grid", "blobs2d", "operating3d"})
+    @ValueSource(strings = {"grid", "blobs2d", "operating3d", "lattice3d", "walk1d"})
     void largerSetsAgreeWithScikitLearnAndReplayExactly(String name) {
         Fixtures.OpticsCase c = Fixtures.OpticsCase.load(name);
         OpticsResult r = Optics.fit(c.x(), c.minPts());
@@ -97,7 +98,8 @@ class OpticsTest {
         assertArrayEquals(new int[] {-1, 0, 1, -1, 3, 4, -1}, r.predecessor());
     }
 
-    // Property checks on random data with a fixed seed: both code paths, all dimensions, duplicates included.
+    // Property checks on random data with a fixed seed: unbounded and bounded maxEps, all dimensions, duplicates
+    // included; the ordering is replayed against the definitions (brute force, ClusterChecks).
     @ParameterizedTest
     @ValueSource(ints = {1, 2, 3, 5})
     void randomDataReplaysExactlyAndPathsAgree(int dim) {
@@ -120,6 +122,45 @@ class OpticsTest {
             assertArrayEquals(unbounded.predecessor(), wide.predecessor());
             OpticsResult bounded = Optics.fit(x, minPts, 1.5);
             ClusterChecks.assertValidOrdering(x, bounded, 0.0);
+        }
+    }
+
+    // The pass tufa used before the k-d tree ordering (ReferenceOptics, O(n^2)) against the new one: identical
+    // ordering, reachability, core distances and predecessors, bit for bit, on data shaped like the pipeline's
+    // (blobs with noise, smoothed trajectories with plateaus, rounded values with long runs of duplicates, exact
+    // lattice ties) and with finite maxEps. Seeded data; the reference itself is checked against scikit-learn by the
+    // fixture tests above and by the replay.
+    @ParameterizedTest
+    @ValueSource(strings = {"blobs", "trajectory", "rounded", "lattice", "line", "clumps"})
+    void newPassEqualsReferencePass(String shape) {
+        for (int dim : new int[] {1, 2, 3, 4}) {
+            for (int n : new int[] {30, 700, 3000}) {
+                double[][] x = Shapes.of(shape, n, dim, 1000L * dim + n);
+                for (int minPts : new int[] {1, 3, 20}) {
+                    for (double maxEps : new double[] {INF, 0.3, 2.0}) {
+                        String what = shape + " n=" + n + " dim=" + dim + " minPts=" + minPts + " maxEps=" + maxEps;
+                        OpticsResult expected = ReferenceOptics.fit(x, minPts, maxEps);
+                        OpticsResult actual = Optics.fit(x, minPts, maxEps);
+                        assertArrayEquals(expected.coreDistance(), actual.coreDistance(), what);
+                        assertArrayEquals(expected.ordering(), actual.ordering(), what);
+                        assertArrayEquals(expected.reachability(), actual.reachability(), what);
+                        assertArrayEquals(expected.predecessor(), actual.predecessor(), what);
+                    }
+                }
+            }
+        }
+    }
+
+    // The exact replay of the definitions (ClusterChecks) at growing sizes of grid data, where almost every
+    // distance ties with many others and most samples are duplicates.
+    @ParameterizedTest
+    @ValueSource(ints = {50, 400, 1500})
+    void gridDataWithTiesReplaysAtSeveralSizes(int n) {
+        for (int dim : new int[] {1, 2, 3}) {
+            double[][] x = Shapes.of("lattice", n, dim, n + dim);
+            for (int minPts : new int[] {2, 5, 20}) {
+                ClusterChecks.assertValidOrdering(x, Optics.fit(x, minPts), 0.0);
+            }
         }
     }
 

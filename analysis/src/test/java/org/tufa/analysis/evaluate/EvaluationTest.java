@@ -108,13 +108,13 @@ class EvaluationTest {
         String goal = "all episodes detected; flagged share >= 0.70";
         // u4 is not in the analysed fleet: its episode is counted apart (not_analysed), not as a miss.
         assertEquals(1, r.allFaults().notAnalysed());
-        assertEquals("scope,units,episodes,not_analysed,detected,analysable_hours,flagged_hours,flagged_share,goal,"
-                + "goal_met\n"
-                + "fan_failure,1,1,0,0,2.00,0.50,0.2500," + goal + ",false\n"
-                + "low_chw_flow,1,1,0,1,3.50,2.00,0.5714," + goal + ",false\n"
-                + "stuck_cooling_valve,1,1,1,0,0.00,0.00,," + goal + ",false\n"
-                + "all_faults,3,3,1,1,5.50,2.50,0.4545," + goal + ",false\n"
-                + "healthy_units,1,0,0,0,7.00,1.00,0.1429,flagged share < 0.02,false\n",
+        assertEquals("scope,units,episodes,not_analysed,outside_window,detected,analysable_hours,flagged_hours,"
+                + "flagged_share,goal,goal_met\n"
+                + "fan_failure,1,1,0,0,0,2.00,0.50,0.2500," + goal + ",false\n"
+                + "low_chw_flow,1,1,0,0,1,3.50,2.00,0.5714," + goal + ",false\n"
+                + "stuck_cooling_valve,1,1,1,0,0,0.00,0.00,," + goal + ",false\n"
+                + "all_faults,3,3,1,0,1,5.50,2.50,0.4545," + goal + ",false\n"
+                + "healthy_units,1,0,0,0,0,7.00,1.00,0.1429,flagged share < 0.02,false\n",
                 Files.readString(dir.resolve("evaluation.csv")));
 
         // With --min-hours 0.5 the fan failure's 0.5 flagged hours are enough.
@@ -136,9 +136,9 @@ class EvaluationTest {
         assertTrue(table.contains("goal: < 2 % of healthy-unit hours flagged: 14.3% (NOT met)"), table);
         assertTrue(Files.exists(dir.resolve("evaluation.csv")));
         List<String> episodes = Files.readAllLines(dir.resolve("evaluation_episodes.csv"));
-        assertEquals("urn:u1,low_chw_flow,2031-07-01T14:00Z,2031-07-01T18:00Z,0.800,true,3.50,2.00,true",
+        assertEquals("urn:u1,low_chw_flow,2031-07-01T14:00Z,2031-07-01T18:00Z,0.800,true,true,3.50,2.00,true",
                 episodes.get(1));
-        assertEquals("urn:u4,stuck_cooling_valve,2031-07-01T12:00Z,2031-07-01T16:00Z,0.300,false,0.00,0.00,false",
+        assertEquals("urn:u4,stuck_cooling_valve,2031-07-01T12:00Z,2031-07-01T16:00Z,0.300,false,true,0.00,0.00,false",
                 episodes.get(3));
 
         String[] strict = {"evaluate", "--findings", dir.toString(), "--truth", truth.toString(), "--require-goals"};
@@ -175,5 +175,39 @@ class EvaluationTest {
         String message = err.toString().trim();
         assertTrue(message.contains(expected), message);
         assertEquals(1, message.lines().count(), message);
+    }
+
+    @Test
+    void repeatedRowsCountOnceEpisodesOutsideTheWindowApartAndLocalNamesMatch(@TempDir Path dir) throws IOException {
+        workedExample(dir);
+        Path truth = dir.resolve("truth2.csv");
+        // Row 2 names u1 by its local name; row 3 repeats it by IRI; row 4 is on u2 a day after its samples end
+        // (the window is 2031-07-01 08:00-16:15); row 5 names u2 by its label.
+        Files.writeString(truth, "unit,fault,start,end,severity\n"
+                + "u1,low_chw_flow," + DAY + "10:00:00" + OFFSET + "," + DAY + "14:00:00" + OFFSET + ",0.8\n"
+                + "urn:u1,low_chw_flow," + DAY + "10:00:00" + OFFSET + "," + DAY + "14:00:00" + OFFSET + ",0.8\n"
+                + "urn:u2,fan_failure,2031-07-02T08:00:00" + OFFSET + ",2031-07-02T10:00:00" + OFFSET + ",1\n"
+                + "FCU 2,fan_failure," + DAY + "08:00:00" + OFFSET + "," + DAY + "10:00:00" + OFFSET + ",1\n");
+        EvaluationInput input = EvaluationFiles.read(dir, truth);
+        assertEquals(1, input.repeatedEpisodes());
+        assertEquals(List.of("urn:u1", "urn:u2", "urn:u2"), input.truth().stream().map(TruthEpisode::unit).toList());
+        Evaluation.Result r = Evaluation.fit(input, 2.0);
+        assertEquals(3, r.allFaults().episodes());
+        assertEquals(1, r.allFaults().outsideWindow());
+        assertEquals(2, r.allFaults().scoredEpisodes());
+        // As in the worked example: low_chw_flow detected (2.0 h), fan_failure not (0.5 h); nothing counted twice.
+        assertEquals(1, r.allFaults().detected());
+        assertEquals(5.5, r.allFaults().analysableHours(), 1e-12);
+        assertFalse(r.episodes().get(1).inWindow());
+        // A name two units share is refused, not guessed.
+        Files.writeString(dir.resolve("fleet.csv"), FLEET_HEADER + "\n"
+                + "urn:a#u1,FCU 1,u1,analyzed,,cooling,30,2,1,2.0,1.5\n"
+                + "urn:b#u1,FCU 1b,u2,analyzed,,cooling,30,2,1,0.5,0.2\n");
+        Files.writeString(dir.resolve("findings.csv"), FINDINGS_HEADER + "\n");
+        Files.writeString(truth, "unit,fault,start,end,severity\n"
+                + "u1,low_chw_flow," + DAY + "10:00:00" + OFFSET + "," + DAY + "14:00:00" + OFFSET + ",0.8\n");
+        org.tufa.common.InputException e = org.junit.jupiter.api.Assertions.assertThrows(
+                org.tufa.common.InputException.class, () -> EvaluationFiles.read(dir, truth));
+        assertTrue(e.getMessage().contains("matches 2 units"), e.getMessage());
     }
 }

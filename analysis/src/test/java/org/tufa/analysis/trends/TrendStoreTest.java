@@ -69,7 +69,8 @@ class TrendStoreTest {
             assertEquals(TrendFormat.LONG, report.files().get(0).format());
             assertEquals(7, report.rows());
             assertEquals(5, report.samplesKept());
-            assertEquals(1, report.unknownSeriesSamples(), "OTHER's empty value is no sample");
+            assertEquals(2, report.unknownSeriesSamples(), "OTHER's rows, its empty value too: every row is counted");
+            assertEquals(report.rows(), report.files().get(0).accounted(), "every row in one bucket");
             assertEquals(List.of("OTHER"), report.unknownSeries());
             assertEquals(List.of("NEVER"), report.seriesNeverSeen());
             // Grid from 10:00 to the cell holding 10:40: 3 cells [10:00, 10:15, 10:30].
@@ -194,6 +195,8 @@ class TrendStoreTest {
             assertEquals(3, store.gridLength());
             // 12:15 cell: mean(1, 3) = 2; 12:30: 5; 12:45: held 5.
             assertArrayEquals(new double[] {2, 5, 5}, store.series("ZNT").values(), 0);
+            // 08:15-04:00 and 17:45+05:30 are one instant with two values: kept, averaged, and counted.
+            assertEquals(1, store.report().conflictingDuplicates());
             // 13:30 is at/after 'to'; 09:00 is before from - maxGap (11:15): both outside the window.
             assertEquals(2, store.report().samplesOutsideWindow());
         }

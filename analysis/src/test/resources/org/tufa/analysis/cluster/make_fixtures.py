@@ -13,6 +13,10 @@ infinity as "Infinity":
   optics_<name>_params.csv   min_samples, threshold eps, xi, min_cluster_size
   iris.csv, pca_iris_<mode>.csv  iris features and PCA results (ratio, explained variance, components, mean, scale)
   ari_example.csv            two labellings and scikit-learn's adjusted_rand_score of them
+The OPTICS sets: line_minpts2/3 (the worked 1-D example), grid (2-D grids and noise), blobs2d, operating3d, and two
+with heavy ties at larger sizes, lattice3d (1,500 lattice points, duplicates) and walk1d (a rounded 1-D walk).
+Reruns on another BLAS build may change optics_operating3d.csv (multivariate_normal) and the PCA files in the last
+digits; keep the committed ones unless the data change on purpose.
 
 Predecessor correction: scikit-learn 1.2.1's _correct_predecessor indexes `ordering` with a predecessor that is
 already a sample index (scikit-learn issue #26324, fixed by pull request #26459 in release 1.3). We replace it by
@@ -121,6 +125,14 @@ def main():
     to = np.concatenate([np.full(len(b), k if k < 3 else -1) for k, b in enumerate(parts)])
     perm = rng.permutation(len(xo))
     optics_fixture("operating3d", xo[perm], 20, 0.6, 0.05, 40, to[perm])
+
+    # Ties at larger sizes, as in smoothed and rounded operating data: a 3-D lattice (spacing 0.5) with many
+    # duplicates and exact distance ties, and a 1-D walk rounded to 0.1 that holds still half of the time.
+    lattice = rng.integers(0, 8, (1500, 3)) * 0.5
+    optics_fixture("lattice3d", lattice, 10, 0.6, 0.05, 30)
+    steps = np.where(rng.random(1200) < 0.5, 0.0, rng.normal(0, 0.15, 1200))
+    walk = np.round(np.cumsum(steps), 1).reshape(-1, 1)
+    optics_fixture("walk1d", walk, 20, 0.25, 0.05, 40)
 
     # PCA on iris (Fisher 1936, as shipped by scikit-learn).
     iris = load_iris().data

@@ -11,7 +11,10 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.concurrent.Callable;
+import java.util.LinkedHashMap;
+import java.util.Map;
 import org.tufa.common.InputException;
+import org.tufa.common.OutputFiles;
 import org.tufa.mapper.learn.Example;
 import org.tufa.mapper.learn.ExampleLearner;
 import org.tufa.mapper.match.Mapper;
@@ -104,6 +107,15 @@ public final class MapCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
+        Map<String, Path> inputs = new LinkedHashMap<>();
+        inputs.put("--points", points);
+        inputs.put("--rules", rules);
+        inputs.put("--examples", examples);
+        inputs.put("--vocabulary", vocabulary);
+        Map<String, Path> outputs = new LinkedHashMap<>();
+        outputs.put("--out", out);
+        outputs.put("--report", report);
+        OutputFiles.checkDistinct(inputs, outputs);
         try {
             return run();
         } catch (InputException e) {

@@ -62,10 +62,17 @@ public record IriMinter(String base) {
         return equipmentIri + "/nominal-airflow";
     }
 
-    /** Percent-encodes everything but RFC 3986 unreserved characters. */
+    /**
+     * Percent-encodes everything but RFC 3986 unreserved characters. A segment of dots only is encoded too:
+     * {@code .} and {@code ..} are dot-segments, which IRI resolution removes (RFC 3986 section 5.2.4), so two
+     * points named "." and ".." would otherwise collapse into their parent's IRI.
+     */
     public static String segment(String s) {
         if (s.isEmpty()) {
             return "%00";
+        }
+        if (s.chars().allMatch(c -> c == '.')) {
+            return "%2E".repeat(s.length());
         }
         StringBuilder b = new StringBuilder(s.length() + 8);
         for (byte x : s.getBytes(StandardCharsets.UTF_8)) {

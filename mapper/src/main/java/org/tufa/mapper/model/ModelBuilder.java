@@ -17,6 +17,7 @@ import org.apache.jena.rdf.model.ModelFactory;
 import org.apache.jena.sparql.graph.GraphFactory;
 import org.apache.jena.vocabulary.RDF;
 import org.apache.jena.vocabulary.RDFS;
+import org.tufa.common.InputException;
 import org.tufa.mapper.match.Assignment;
 import org.tufa.mapper.match.MappingResult;
 import org.tufa.mapper.match.PointMapping;
@@ -57,6 +58,11 @@ public final class ModelBuilder {
     private final java.util.Set<String> done = new java.util.HashSet<>();
     /** Class and predicate nodes, made once (point and equipment IRIs are not cached: each is used a few times). */
     private final java.util.Map<String, Node> vocabularyNodes = new java.util.HashMap<>();
+    /** brick:feeds and brick:hasPart links between minted nodes (subject IRI to object IRIs), for the cycle check. */
+    private final SortedMap<String, SortedSet<String>> feeds = new TreeMap<>();
+    private final SortedMap<String, SortedSet<String>> parts = new TreeMap<>();
+    /** The rule that first wrote each link ("s o" to "file:line"), to name it in messages. */
+    private final java.util.Map<String, String> linkRule = new java.util.HashMap<>();
 
     private ModelBuilder(IriMinter iris) {
         this.iris = iris;
@@ -77,6 +83,7 @@ public final class ModelBuilder {
             }
             point(m, building);
         }
+        checkLinks();
         classesById.forEach((id, classes) -> {
             if (classes.size() > 1) {
                 warnings.add("'" + id + "' is given more than one class (" + String.join(", ", classes)
@@ -148,7 +155,12 @@ public final class ModelBuilder {
         Node holder = equipment;
         if (a.part().isPresent()) {
             Assignment.Part part = a.part().get();
+            if (part.localId().equals(eq.id())) {
+                throw new InputException(a.ruleLabel() + ": equipment '" + eq.id() + "' would be its own part "
+                        + "(part id '" + part.localId() + "'); give the part an id of its own, e.g. FAN or CHWV");
+            }
             Node pn = uri(iris.part(eq.id(), part.localId()));
+            link(parts, iris.equipment(eq.id()), iris.part(eq.id(), part.localId()), a.ruleLabel());
             if (done.add("part\u0000" + part.id() + "\u0000" + part.className())) {
                 typed(pn, part.id(), part.className());
                 add(equipment, uri(BRICK + "hasPart"), pn);
@@ -168,12 +180,22 @@ public final class ModelBuilder {
 
         add(equipment, uri(BRICK + "hasLocation"), locationChain(a.locations(), building));
         for (Assignment.Link f : a.feeds()) {
+            if (f.id().equals(eq.id())) {
+                throw new InputException(a.ruleLabel() + ": equipment '" + eq.id() + "' would feed itself; a "
+                        + "'feeds' line names the equipment downstream, not the rule's own equipment");
+            }
+            link(feeds, iris.equipment(eq.id()), iris.equipment(f.id()), a.ruleLabel());
             Node t = uri(iris.equipment(f.id()));
             typed(t, f.id(), f.className());
             add(equipment, uri(BRICK + "feeds"), t);
             add(t, uri(BRICK + "isFedBy"), equipment);
         }
         for (Assignment.Link f : a.fedBy()) {
+            if (f.id().equals(eq.id())) {
+                throw new InputException(a.ruleLabel() + ": equipment '" + eq.id() + "' would be fed by itself; a "
+                        + "'fed-by' line names the equipment upstream, not the rule's own equipment");
+            }
+            link(feeds, iris.equipment(f.id()), iris.equipment(eq.id()), a.ruleLabel());
             Node s = uri(iris.equipment(f.id()));
             typed(s, f.id(), f.className());
             add(s, uri(BRICK + "feeds"), equipment);
@@ -194,6 +216,30 @@ public final class ModelBuilder {
                 warnings.add("equipment '" + eq.id() + "' gets nominal airflow " + before + " and " + value
                         + "; the first is kept");
             }
+        }
+    }
+
+    private void link(SortedMap<String, SortedSet<String>> links, String from, String to, String rule) {
+        links.computeIfAbsent(from, k -> new TreeSet<>()).add(to);
+        linkRule.putIfAbsent(from + " " + to, rule);
+    }
+
+    /**
+     * Cycles in the links: a part chain that comes back to its start is an error (a thing cannot contain itself);
+     * a feeds cycle of several pieces of equipment is a warning (a closed water loop may be drawn that way, but a
+     * coverage lookup upstream then goes round it).
+     */
+    private void checkLinks() {
+        List<String> partCycle = LinkCycles.first(parts);
+        if (!partCycle.isEmpty()) {
+            throw new InputException(linkRule.get(partCycle.get(0) + " " + partCycle.get(1)) + ": brick:hasPart goes "
+                    + "round in a circle (" + String.join(" has part ", partCycle) + "); a part cannot contain its "
+                    + "equipment: fix the rules' part lines");
+        }
+        List<String> feedCycle = LinkCycles.first(feeds);
+        if (!feedCycle.isEmpty()) {
+            warnings.add(linkRule.get(feedCycle.get(0) + " " + feedCycle.get(1)) + ": brick:feeds goes round in a "
+                    + "circle (" + String.join(" feeds ", feedCycle) + "); check the rules' feeds and fed-by lines");
         }
     }
 

@@ -1,7 +1,5 @@
 package org.tufa.mapper.model;
 
-import java.io.BufferedOutputStream;
-import java.io.IOException;
 import java.io.OutputStream;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -24,6 +22,7 @@ import org.apache.jena.riot.system.StreamRDFWriter;
 import org.apache.jena.sparql.graph.GraphFactory;
 import org.apache.jena.vocabulary.RDF;
 import org.tufa.common.InputException;
+import org.tufa.common.OutputFiles;
 
 /**
  * Reads and writes Brick models. Writing is deterministic: triples are sorted (subject, then rdf:type before
@@ -47,20 +46,13 @@ public final class ModelFiles {
         return Lang.TURTLE;
     }
 
-    /** Writes the model to {@code file} in the syntax its extension names. */
+    /**
+     * Writes the model to {@code file} in the syntax its extension names: to a temporary file beside it, renamed
+     * into place ({@link OutputFiles}), so a failed write never leaves half a model.
+     */
     public static void write(Model model, Path file) {
-        try {
-            Path parent = file.toAbsolutePath().getParent();
-            if (parent != null) {
-                Files.createDirectories(parent);
-            }
-            try (OutputStream out = new BufferedOutputStream(Files.newOutputStream(file), 1 << 16)) {
-                write(model, langFor(file), out);
-            }
-        } catch (IOException e) {
-            throw InputException.in(file, "cannot write the model (" + e.getClass().getSimpleName() + ": "
-                    + e.getMessage() + "); check the --out path");
-        }
+        Lang lang = langFor(file);
+        OutputFiles.write(file, out -> write(model, lang, out));
     }
 
     /** Writes the model in a given syntax. */
@@ -138,7 +130,7 @@ public final class ModelFiles {
         Lang lang = RDFLanguages.filenameToLang(file.toString(), Lang.TURTLE);
         Model m = ModelFactory.createDefaultModel();
         try {
-            RDFParser.source(file).lang(lang).parse(m);
+            org.tufa.common.OfflineRdf.offline(RDFParser.source(file).lang(lang)).parse(m);
         } catch (RiotException e) {
             String msg = String.valueOf(e.getMessage()).lines().findFirst().orElse("");
             throw InputException.in(file, "not a readable " + lang.getLabel() + " file (" + msg + ")");

@@ -67,7 +67,8 @@ public final class ExportUnits {
             hit = QUDT.get(s.replace(" ", ""));
         }
         if (hit == null && s.startsWith("unit:")) {
-            hit = raw.trim().substring(5);
+            // A QUDT name written out; only a real one (QUDT 3.1.0) counts, so unit:BANANAS is an unknown spelling.
+            return org.tufa.vocabulary.QudtUnits.canonical(raw.trim());
         }
         return Optional.ofNullable(hit);
     }

@@ -49,6 +49,8 @@ public final class PointListReader {
     static final List<String> SERIES_HEADERS = List.of("trendid", "seriesid", "timeseriesid", "trend", "historyid",
             "trendlog", "series", "logid");
 
+    private static final java.util.regex.Pattern STARTLINE = java.util.regex.Pattern.compile("startline (\\d+)");
+
     private PointListReader() {
     }
 
@@ -85,6 +87,15 @@ public final class PointListReader {
                 || (bytes[0] & 0xFF) == 0xFE && (bytes[1] & 0xFF) == 0xFF)) {
             throw InputException.in(file, "is UTF-16 encoded; re-export the point list as UTF-8 CSV");
         }
+        String utf16 = org.tufa.common.Printable.utf16WithoutBom(bytes, 0, bytes.length);
+        if (utf16 != null) {
+            throw InputException.in(file, "looks " + utf16 + " encoded (no byte-order mark); re-export the point "
+                    + "list as UTF-8 CSV");
+        }
+        if (org.tufa.common.Printable.looksBinary(bytes, 0, Math.min(bytes.length, 4096))) {
+            throw InputException.in(file, "is not a text CSV file (it holds binary data); give the point-list "
+                    + "export (CSV)");
+        }
         if (bytes.length >= 3 && (bytes[0] & 0xFF) == 0xEF && (bytes[1] & 0xFF) == 0xBB && (bytes[2] & 0xFF) == 0xBF) {
             start = 3;
         }
@@ -104,7 +115,16 @@ public final class PointListReader {
                     records.add(r);
                 }
             } catch (UncheckedIOException | IllegalStateException e) {
-                long line = Math.max(1, parser.getCurrentLineNumber());
+                // Commons CSV names the line where the unclosed quoted field started ("(startline 5)"); the
+                // parser's current line is where it gave up, often the end of the file.
+                java.util.regex.Matcher started = STARTLINE.matcher(String.valueOf(firstLine(e)));
+                long line = started.find() ? Long.parseLong(started.group(1))
+                        : Math.max(1, parser.getCurrentLineNumber());
+                if (started.find(0)) {
+                    throw InputException.at(file, line, "a double quote opened on this line is never closed; close "
+                            + "it, or double it (\"\") if it is part of the text, or pass --delimiter if the guess '"
+                            + printable(delimiter) + "' is wrong");
+                }
                 throw InputException.at(file, line, "broken CSV quoting (" + firstLine(e) + "); check for an "
                         + "unclosed double quote near this line, or pass --delimiter if the guess '"
                         + printable(delimiter) + "' is wrong");

@@ -1,15 +1,13 @@
 package org.tufa.mapper.report;
 
-import java.io.BufferedWriter;
 import java.io.IOException;
 import java.io.Writer;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVPrinter;
-import org.tufa.common.InputException;
+import org.tufa.common.CsvCells;
+import org.tufa.common.OutputFiles;
 import org.tufa.mapper.match.Assignment;
 import org.tufa.mapper.match.MappingResult;
 import org.tufa.mapper.match.PointMapping;
@@ -19,6 +17,7 @@ import org.tufa.mapper.match.PointMapping;
  * (mapped, ambiguous, unclassified, unmapped, skipped, conflict, duplicate, rejected), reason, rule ("file:line"),
  * class, equipment, part, score (the tag-match score, 1 for a class the rule names), runner_up and
  * runner_up_score (the best rival class of a tag-matched point, when there is one).
+ * Text cells that a spreadsheet would run as a formula get a leading apostrophe ({@link CsvCells}).
  */
 public final class MappingReport {
 
@@ -31,18 +30,7 @@ public final class MappingReport {
 
     /** Writes the report to a file (UTF-8, RFC 4180 quoting, LF line ends). */
     public static void write(MappingResult result, Path file) {
-        try {
-            Path parent = file.toAbsolutePath().getParent();
-            if (parent != null) {
-                Files.createDirectories(parent);
-            }
-            try (BufferedWriter w = Files.newBufferedWriter(file, StandardCharsets.UTF_8)) {
-                write(result, w);
-            }
-        } catch (IOException e) {
-            throw InputException.in(file, "cannot write the report (" + e.getClass().getSimpleName() + ": "
-                    + e.getMessage() + "); check the --report path");
-        }
+        OutputFiles.writeText(file, w -> write(result, w));
     }
 
     /** A score with three decimals, the same on every machine. */
@@ -57,10 +45,12 @@ public final class MappingReport {
         p.printRecord(HEADER);
         for (PointMapping m : result.mappings()) {
             var a = m.assignment();
-            p.printRecord(m.point().line(), m.point().name(), m.status().label(), m.reason(),
-                    a.map(Assignment::ruleLabel).orElse(""), a.map(Assignment::className).orElse(""),
-                    a.map(Assignment::equipmentId).orElse(""),
-                    a.flatMap(Assignment::part).map(Assignment.Part::localId).orElse(""),
+            // Point names, reasons and ids come from the export: neutralised against formula injection.
+            p.printRecord(m.point().line(), CsvCells.neutral(m.point().name()), m.status().label(),
+                    CsvCells.neutral(m.reason()), CsvCells.neutral(a.map(Assignment::ruleLabel).orElse("")),
+                    a.map(Assignment::className).orElse(""),
+                    CsvCells.neutral(a.map(Assignment::equipmentId).orElse("")),
+                    CsvCells.neutral(a.flatMap(Assignment::part).map(Assignment.Part::localId).orElse("")),
                     a.map(x -> score(x.score())).orElse(""), a.flatMap(Assignment::runnerUp).orElse(""),
                     a.filter(x -> x.runnerUp().isPresent()).map(x -> score(x.runnerUpScore())).orElse(""));
         }

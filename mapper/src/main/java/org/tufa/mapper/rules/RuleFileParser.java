@@ -91,6 +91,16 @@ public final class RuleFileParser {
         } catch (IOException e) {
             throw InputException.in(file, "rule file cannot be read (" + e.getClass().getSimpleName() + ")");
         }
+        String utf16 = org.tufa.common.Printable.utf16WithoutBom(bytes, 0, bytes.length);
+        if (utf16 != null || bytes.length >= 2 && ((bytes[0] & 0xff) == 0xFF && (bytes[1] & 0xff) == 0xFE
+                || (bytes[0] & 0xff) == 0xFE && (bytes[1] & 0xff) == 0xFF)) {
+            throw InputException.in(file, "rule file is " + (utf16 == null ? "UTF-16" : utf16) + " encoded; save it "
+                    + "as UTF-8");
+        }
+        if (org.tufa.common.Printable.looksBinary(bytes, 0, Math.min(bytes.length, 4096))) {
+            throw InputException.in(file, "is not a text file (it holds binary data); give the rule file "
+                    + "(format: mapper/RULES-FORMAT.md)");
+        }
         String text;
         try {
             text = StandardCharsets.UTF_8.newDecoder().onMalformedInput(CodingErrorAction.REPORT)
@@ -374,7 +384,12 @@ public final class RuleFileParser {
                             + "L-PER-SEC, M3-PER-HR or M3-PER-SEC");
                 }
                 Template v = template(ln, w[0]);
-                if (v.slots().isEmpty() && !w[0].matches("\\d+(\\.\\d+)?")) {
+                if (v.slots().isEmpty() && w[0].matches("[-+]?\\d+(\\.\\d+)?")
+                        && !(Double.parseDouble(w[0]) > 0)) {
+                    throw error(ln, "airflow value '" + w[0] + "' is " + (w[0].startsWith("-") ? "negative" : "zero")
+                            + "; a nominal airflow is a positive volume flow: write e.g. 400 or 188.8");
+                }
+                if (v.slots().isEmpty() && !w[0].matches("\\+?\\d+(\\.\\d+)?")) {
                     throw error(ln, "airflow value '" + w[0] + "' is not a number; write e.g. 400 or 188.8");
                 }
                 r.templates.add(Map.entry(v, ln));
@@ -546,7 +561,9 @@ public final class RuleFileParser {
         if (!UNIT_NAME.matcher(w).matches()) {
             throw error(ln, "'" + word + "' is not a QUDT unit name; write e.g. DEG_F, DEG_C, PERCENT, FT3-PER-MIN");
         }
-        return w;
+        return org.tufa.vocabulary.QudtUnits.canonical(w).orElseThrow(() -> error(ln, "unknown QUDT unit '" + w
+                + "' (QUDT 3.1.0 has no such unit); nearest: " + String.join(", ",
+                org.tufa.vocabulary.QudtUnits.nearest(w)) + "; or write an export spelling such as degF, %, cfm"));
     }
 
     private Rule.PartSpec part(int ln, String rest, RuleBuilder r) {

@@ -27,6 +27,7 @@ import java.util.concurrent.ConcurrentLinkedQueue;
 import org.tufa.analysis.trends.FileReport;
 import org.tufa.analysis.trends.IngestReport;
 import org.tufa.analysis.trends.LocalTimeResolver;
+import org.tufa.analysis.trends.PlausibleRange;
 import org.tufa.analysis.trends.ResampledSeries;
 import org.tufa.analysis.trends.Resampler;
 import org.tufa.analysis.trends.SeriesKind;
@@ -48,6 +49,11 @@ import org.tufa.common.InputException;
  * memory grows with one unit, not with the fleet. Series ids and times are always bound parameters; table and
  * column names come from the settings, are checked to exist, and are quoted as identifiers.
  *
+ * <p>Rows are accounted for as the file reader accounts for a long file's rows ({@link FileReport}): a NULL value
+ * is an empty value, then rows outside the window, non-finite values (NaN, Infinity) and values outside the
+ * plausible range of the series' unit ({@link PlausibleRange}) are counted and not kept; in strict mode the first
+ * of these, and a second value at the same time, stops the run, as it does for a file.
+ *
  * <p>Each worker thread borrows a connection of its own; connections are read-only.
  */
 public final class HistorianSource implements TrendSource {
@@ -61,6 +67,8 @@ public final class HistorianSource implements TrendSource {
     private final DatabaseLogin login;
     private final TimeOptions options;
     private final Map<String, SeriesKind> wanted;
+    /** Plausible range per series id; series without one are only checked for non-finite values. */
+    private final Map<String, PlausibleRange> ranges;
     /** Series id -> quoted table holding it (per-series layout), or the one long table for every id. */
     private final Map<String, String> tables;
     private final Columns columns;
@@ -84,18 +92,23 @@ public final class HistorianSource implements TrendSource {
                            String valueCast) {
     }
 
-    /** Counts of one series' rows. */
-    private record SeriesTally(long rows, long kept, long outside, long notNumbers, long first, long last,
-                               long dstFirst, long dstSecond, long dstSkipped, List<String> examples) {
+    /**
+     * Counts of one series' rows, in the buckets of {@link FileReport}; first and last are the kept samples', stamps
+     * the earliest and latest time of any row with a value.
+     */
+    private record SeriesTally(long rows, long kept, long outside, long empty, long nonFinite, long implausible,
+                               long duplicates, long conflicts, long first, long last, long firstStamp,
+                               long lastStamp, long dstFirst, long dstSecond, long dstSkipped, List<String> examples) {
     }
 
     private HistorianSource(HistorianSettings settings, DatabaseLogin login, TimeOptions options,
-                            Map<String, SeriesKind> wanted, Map<String, String> tables, Columns columns,
-                            TrendGrid grid) {
+                            Map<String, SeriesKind> wanted, Map<String, PlausibleRange> ranges,
+                            Map<String, String> tables, Columns columns, TrendGrid grid) {
         this.settings = settings;
         this.login = login;
         this.options = options;
         this.wanted = wanted;
+        this.ranges = Map.copyOf(ranges);
         this.tables = tables;
         this.columns = columns;
         this.grid = grid;
@@ -107,11 +120,13 @@ public final class HistorianSource implements TrendSource {
      * Connects, checks the layout and places the grid.
      *
      * @param wanted series to read, with how to resample each
+     * @param ranges plausible range per series id, from its unit (see {@link TrendSource.Opener})
      * @param storedElsewhere series the model says are stored in another database: never asked for here
      * @throws InputException when the database cannot be reached, refuses the login, or lacks a table or column
      */
     public static HistorianSource open(HistorianSettings settings, DatabaseLogin login, Map<String, SeriesKind> wanted,
-                                       Set<String> storedElsewhere, TimeOptions options) {
+                                       Map<String, PlausibleRange> ranges, Set<String> storedElsewhere,
+                                       TimeOptions options) {
         Map<String, SeriesKind> asked = new TreeMap<>(wanted);
         asked.keySet().removeAll(storedElsewhere);
         Connection first = connect(settings, login);
@@ -151,11 +166,13 @@ public final class HistorianSource implements TrendSource {
                         + "stamps without zone (timestamp without time zone); pass --timezone with the zone the "
                         + "controllers logged in, or store them as timestamptz");
             }
-            HistorianSource source = new HistorianSource(settings, login, options, asked, tables, columns, null);
+            HistorianSource source = new HistorianSource(settings, login, options, asked, ranges, tables, columns,
+                    null);
             TrendGrid grid = options.from() != null && options.to() != null
                     ? TrendGrid.of(options, Long.MAX_VALUE, Long.MIN_VALUE)
                     : source.spanGrid(first);
-            HistorianSource placed = new HistorianSource(settings, login, options, asked, tables, columns, grid);
+            HistorianSource placed = new HistorianSource(settings, login, options, asked, ranges, tables, columns,
+                    grid);
             placed.opened.add(first);
             placed.idle.add(first);
             return placed;
@@ -389,27 +406,59 @@ public final class HistorianSource implements TrendSource {
         return "t." + columns.value() + columns.valueCast();
     }
 
-    /** Resolves, filters, sorts and resamples one series' rows, and tallies them on the series' first read. */
+    /**
+     * Resolves, filters, sorts and resamples one series' rows, and tallies them on the series' first read, in the
+     * file reader's order: a NULL value is empty; then a row outside the window, a non-finite value, a value outside
+     * the plausible range.
+     */
     private ResampledSeries finish(SeriesRows rows, String table) {
         int n = rows.size;
         long[] times = Arrays.copyOf(rows.times, n);
         double[] values = Arrays.copyOf(rows.values, n);
         LocalTimeResolver resolver = columns.naiveTime() ? new LocalTimeResolver(options.zone()) : null;
+        PlausibleRange range = ranges.get(rows.id);
+        List<String> examples = new ArrayList<>();
         int kept = 0;
+        long empty = 0;
         long outside = 0;
+        long nonFinite = 0;
+        long implausible = 0;
         long firstKept = Long.MAX_VALUE;
         long lastKept = Long.MIN_VALUE;
+        long firstStamp = Long.MAX_VALUE;
+        long lastStamp = Long.MIN_VALUE;
         for (int i = 0; i < n; i++) {
             long t = resolver == null ? times[i] : resolver.toEpochSecond(times[i]);
-            if (Double.isNaN(values[i])) {
+            if (rows.nulls.get(i)) {
+                empty++;
+                if (options.strict()) {
+                    throw new InputException(where(table, rows.id, times[i]) + ": the value is NULL; fill it in or "
+                            + "delete the row (or run without --strict to count such rows)");
+                }
                 continue;
             }
+            firstStamp = Math.min(firstStamp, t);
+            lastStamp = Math.max(lastStamp, t);
             if (t < keepFrom || t >= keepTo) {
                 outside++;
                 continue;
             }
+            double v = values[i];
+            if (!Double.isFinite(v)) {
+                nonFinite++;
+                problem(examples, where(table, rows.id, times[i]) + ": value " + v + " is not a finite number",
+                        "store NULL where there is no data");
+                continue;
+            }
+            if (range != null && !range.contains(v)) {
+                implausible++;
+                problem(examples, where(table, rows.id, times[i]) + ": value " + v + " is outside the plausible "
+                        + "range " + range.min() + ".." + range.max() + " of its unit", "correct the value or the "
+                        + "point's unit");
+                continue;
+            }
             times[kept] = t;
-            values[kept] = values[i];
+            values[kept] = v;
             firstKept = Math.min(firstKept, t);
             lastKept = Math.max(lastKept, t);
             kept++;
@@ -417,22 +466,55 @@ public final class HistorianSource implements TrendSource {
         long[] keptTimes = Arrays.copyOf(times, kept);
         double[] keptValues = Arrays.copyOf(values, kept);
         Resampler.sortByTime(keptTimes, keptValues);
-        SeriesTally tally = new SeriesTally(n, kept, outside, rows.notNumbers, firstKept, lastKept,
+        // Two rows at one time (a timestamp column without a key, or two local times made one by the fall-back
+        // hour): both are kept and averaged, as the file reader keeps them, and counted.
+        long duplicates = 0;
+        long conflicts = 0;
+        int runStart = 0;
+        for (int k = 1; k < kept; k++) {
+            if (keptTimes[k] != keptTimes[runStart]) {
+                runStart = k;
+            } else if (Double.compare(keptValues[k], keptValues[runStart]) == 0) {
+                duplicates++;
+            } else {
+                conflicts++;
+                problem(examples, where(table, rows.id, keptTimes[k]) + ": a second value (" + keptValues[k]
+                        + ", the first was " + keptValues[runStart] + ") at the same time; both are kept and "
+                        + "averaged", "delete one of the two rows");
+            }
+        }
+        SeriesTally tally = new SeriesTally(n, kept, outside, empty, nonFinite, implausible, duplicates, conflicts,
+                firstKept, lastKept, firstStamp, lastStamp,
                 resolver == null ? 0 : resolver.repeatedFirstPass(), resolver == null ? 0 : resolver.repeatedSecondPass(),
-                resolver == null ? 0 : resolver.skipped(), List.copyOf(rows.examples));
+                resolver == null ? 0 : resolver.skipped(), List.copyOf(examples));
         tallies.putIfAbsent(rows.id, tally);
         return Resampler.resample(rows.id, rows.kind, keptTimes, keptValues, grid, options.maxGap().getSeconds());
     }
 
-    /** One series' rows as they stream in: times (epoch or local seconds) and values, NaN for unusable ones. */
+    /** The database, table, series and time of a row, for messages. */
+    private String where(String table, String id, long seconds) {
+        return settings.where() + ", table " + table + ", series '" + id + "' at " + describeTime(seconds);
+    }
+
+    /** A problem row: refused in strict mode, else counted and kept as an example. */
+    private void problem(List<String> examples, String what, String todo) {
+        if (options.strict()) {
+            throw new InputException(what + "; " + todo + " (or run without --strict to count and skip such rows)");
+        }
+        if (examples.size() < MAX_EXAMPLES) {
+            examples.add(what);
+        }
+    }
+
+    /** One series' rows as they stream in: times (epoch or local seconds) and values as stored. */
     private static final class SeriesRows {
         final String id;
         final SeriesKind kind;
         long[] times = new long[1024];
         double[] values = new double[1024];
         int size;
-        long notNumbers;
-        final List<String> examples = new ArrayList<>();
+        /** Positions of rows whose value is NULL. */
+        final java.util.BitSet nulls = new java.util.BitSet();
 
         SeriesRows(String id, SeriesKind kind) {
             this.id = id;
@@ -447,41 +529,30 @@ public final class HistorianSource implements TrendSource {
                         + " (NOT NULL) or delete the row");
             }
             double v;
+            boolean isNull;
             if (source.columns.textValue()) {
                 String text = rs.getString(column + 1);
-                if (text == null) {
-                    v = Double.NaN;
-                } else {
-                    v = ValueParser.parse(text, kind);
-                    if (Double.isNaN(v)) {
-                        throw new InputException(source.settings.where() + ", table " + table + ", series '" + id
-                                + "' at " + source.describeTime(t) + ": value '" + abbreviate(text) + "' is not a "
-                                + "number" + (kind == SeriesKind.BINARY ? " nor a binary word (on/off, true/false)" : "")
-                                + "; store numbers in column " + source.settings.valueColumn()
-                                + " (double precision), NULL where there is no data");
-                    }
+                isNull = text == null || text.isBlank();
+                v = isNull ? Double.NaN : ValueParser.parse(text, kind);
+                if (!isNull && Double.isNaN(v) && !ValueParser.isNonFinite(text)) {
+                    throw new InputException(source.where(table, id, t) + ": value '" + abbreviate(text) + "' is "
+                            + "not a number" + (kind == SeriesKind.BINARY ? " nor a binary word (on/off, true/false)"
+                            : "") + "; store numbers in column " + source.settings.valueColumn()
+                            + " (double precision), NULL where there is no data");
+                }
+                if (!isNull && Double.isNaN(v)) {
+                    v = Double.POSITIVE_INFINITY; // NaN or Infinity as text: counted as a non-finite value
                 }
             } else {
                 v = rs.getDouble(column + 1);
-                if (rs.wasNull()) {
-                    v = Double.NaN;
-                } else if (!Double.isFinite(v)) {
-                    notNumbers++;
-                    if (source.options.strict()) {
-                        throw new InputException(source.settings.where() + ", table " + table + ", series '" + id
-                                + "' at " + source.describeTime(t) + ": value " + v + " is not a finite number; "
-                                + "store NULL where there is no data, or run without --strict to count such values");
-                    }
-                    if (examples.size() < MAX_EXAMPLES) {
-                        examples.add(source.settings.where() + ", table " + table + ", series '" + id + "' at "
-                                + source.describeTime(t) + ": value " + v + " is not a finite number");
-                    }
-                    v = Double.NaN;
-                }
+                isNull = rs.wasNull();
             }
             if (size == times.length) {
                 times = Arrays.copyOf(times, size * 2);
                 values = Arrays.copyOf(values, size * 2);
+            }
+            if (isNull) {
+                nulls.set(size);
             }
             times[size] = t;
             values[size] = v;
@@ -501,16 +572,12 @@ public final class HistorianSource implements TrendSource {
 
     @Override
     public IngestReport report() {
-        long rows = 0;
-        long kept = 0;
-        long outside = 0;
-        long notNumbers = 0;
-        long dstFirst = 0;
-        long dstSecond = 0;
-        long dstSkipped = 0;
+        long[] sum = new long[13];
         List<String> examples = new ArrayList<>();
         List<SeriesSpan> spans = new ArrayList<>();
         List<String> neverSeen = new ArrayList<>();
+        long firstStamp = Long.MAX_VALUE;
+        long lastStamp = Long.MIN_VALUE;
         for (String id : wanted.keySet()) {
             SeriesTally t = tallies.get(id);
             if (t == null || t.kept() == 0) {
@@ -520,13 +587,13 @@ public final class HistorianSource implements TrendSource {
                         t.kept()));
             }
             if (t != null) {
-                rows += t.rows();
-                kept += t.kept();
-                outside += t.outside();
-                notNumbers += t.notNumbers();
-                dstFirst += t.dstFirst();
-                dstSecond += t.dstSecond();
-                dstSkipped += t.dstSkipped();
+                long[] counts = {t.rows(), t.kept(), t.outside(), t.empty(), t.nonFinite(), t.implausible(),
+                    t.duplicates(), t.conflicts(), t.dstFirst(), t.dstSecond(), t.dstSkipped()};
+                for (int k = 0; k < counts.length; k++) {
+                    sum[k] += counts[k];
+                }
+                firstStamp = Math.min(firstStamp, t.firstStamp());
+                lastStamp = Math.max(lastStamp, t.lastStamp());
                 for (String example : t.examples()) {
                     if (examples.size() < MAX_EXAMPLES) {
                         examples.add(example);
@@ -534,8 +601,11 @@ public final class HistorianSource implements TrendSource {
                 }
             }
         }
-        FileReport source = new FileReport(Path.of(settings.where()), TrendFormat.LONG, rows, kept, outside, 0,
-                notNumbers, 0, 0, examples, dstFirst, dstSecond, dstSkipped);
+        // No unknown series (only the model's are asked for), no unparsable values or stamps (refused at once),
+        // no malformed rows (a table has its columns).
+        FileReport source = new FileReport(Path.of(settings.where()), TrendFormat.LONG, sum[0], sum[1], sum[2], 0, 0,
+                0, 0, examples, sum[8], sum[9], sum[10], sum[3], sum[4], sum[5], sum[6], sum[7], firstStamp,
+                lastStamp);
         return new IngestReport(List.of(source), List.of(), spans, neverSeen);
     }
 
