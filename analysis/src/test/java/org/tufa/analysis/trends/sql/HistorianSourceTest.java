@@ -209,4 +209,68 @@ class HistorianSourceTest {
             assertArrayEquals(file.series("OA-T").values(), again.get("OA-T").values());
         }
     }
+
+    /**
+     * A logger's sentinel (-9999), a value far past anything a room sensor reads (1e308), NaN, a NULL (an empty
+     * field in the CSV) and two values at one time: the database source counts each as the file reader counts it
+     * on the same rows, keeps the same samples, and in strict mode refuses the first, as the file reader does. The
+     * plausible range of degrees Celsius: absolute zero, -273.15 (NIST SP 811, from memory), to 1000 (common
+     * practice, no source), as {@link org.tufa.analysis.trends.PlausibleRange} gives it.
+     */
+    @Test
+    void implausibleAndNonFiniteValuesAreCountedAsTheFileReaderCountsThem(@TempDir Path dir) throws Exception {
+        String csv = "timestamp,point,value\n"
+                + "2031-06-01T00:00:00Z,CHK-T,21.5\n"
+                + "2031-06-01T00:15:00Z,CHK-T,-9999\n"
+                + "2031-06-01T00:30:00Z,CHK-T,\n"
+                + "2031-06-01T00:45:00Z,CHK-T,NaN\n"
+                + "2031-06-01T01:00:00Z,CHK-T,1e308\n"
+                + "2031-06-01T01:15:00Z,CHK-T,22.0\n"
+                + "2031-06-01T01:15:00Z,CHK-T,22.5\n"
+                + "2031-06-01T01:30:00Z,CHK-T,23.0\n";
+        Path file = dir.resolve("checks.csv");
+        Files.writeString(file, csv);
+        db.execute("CREATE TABLE trend_checks (series_id text NOT NULL, ts timestamptz NOT NULL, "
+                + "value double precision)");
+        try (Reader in = Files.newBufferedReader(file, StandardCharsets.UTF_8)) {
+            db.admin().unwrap(PGConnection.class).getCopyAPI().copyIn(
+                    "COPY trend_checks (ts, series_id, value) FROM STDIN WITH (FORMAT csv, HEADER true)", in);
+        }
+        HistorianSettings table = new HistorianSettings(db.schemaUrl(), HistorianSettings.Layout.LONG,
+                "trend_checks", "series_id", "ts", "value", null, "test");
+        Map<String, SeriesKind> wanted = Map.of("CHK-T", SeriesKind.ANALOG);
+        Map<String, org.tufa.analysis.trends.PlausibleRange> ranges = Map.of("CHK-T",
+                org.tufa.analysis.trends.PlausibleRange.forUnit("DEG_C").orElseThrow());
+        TimeOptions time = TimeOptions.defaults(ZONE);
+        try (TrendStore fromFile = TrendStore.ingest(List.of(file), wanted, ranges, time, dir);
+             HistorianSource fromDb = HistorianSource.open(table, db.login(), wanted, ranges, Set.of(), time)) {
+            ResampledSeries dbSeries = fromDb.read(List.of("CHK-T")).get("CHK-T");
+            var f = fromFile.report();
+            var d = fromDb.report();
+            assertEquals(8, d.rows());
+            assertEquals(List.of(f.rows(), f.samplesKept(), f.emptyValues(), f.nonFiniteValues(), f.implausibleValues(),
+                    f.duplicateSamples(), f.conflictingDuplicates()), List.of(d.rows(), d.samplesKept(),
+                    d.emptyValues(), d.nonFiniteValues(), d.implausibleValues(), d.duplicateSamples(),
+                    d.conflictingDuplicates()));
+            assertEquals(List.of(8L, 4L, 1L, 1L, 2L, 0L, 1L), List.of(d.rows(), d.samplesKept(), d.emptyValues(),
+                    d.nonFiniteValues(), d.implausibleValues(), d.duplicateSamples(), d.conflictingDuplicates()));
+            assertEquals(d.rows(), d.files().get(0).accounted(), "every row in one bucket");
+            assertArrayEquals(fromFile.series("CHK-T").values(), dbSeries.values());
+        }
+        TimeOptions strict = new TimeOptions(ZONE, time.interval(), time.maxGap(), null, null, true);
+        org.tufa.common.InputException fileRefusal = org.junit.jupiter.api.Assertions.assertThrows(
+                org.tufa.common.InputException.class, () -> TrendStore.ingest(List.of(file), wanted, ranges, strict,
+                        dir).close());
+        org.tufa.common.InputException dbRefusal = org.junit.jupiter.api.Assertions.assertThrows(
+                org.tufa.common.InputException.class, () -> {
+                    try (HistorianSource s = HistorianSource.open(table, db.login(), wanted, ranges, Set.of(),
+                            strict)) {
+                        s.read(List.of("CHK-T"));
+                    }
+                });
+        assertTrue(fileRefusal.getMessage().contains("-9999") && fileRefusal.getMessage().contains("plausible range"),
+                fileRefusal.getMessage());
+        assertTrue(dbRefusal.getMessage().contains("-9999") && dbRefusal.getMessage().contains("plausible range")
+                && dbRefusal.getMessage().contains("trend_checks"), dbRefusal.getMessage());
+    }
 }
