@@ -1,19 +1,18 @@
 package org.tufa.analysis.store;
 
 import org.apache.jena.fuseki.main.FusekiServer;
-import org.apache.jena.query.ARQ;
 import org.apache.jena.sparql.core.DatasetGraph;
-import org.apache.jena.sparql.function.FunctionFactory;
-import org.apache.jena.sparql.function.FunctionRegistry;
 import org.apache.jena.sparql.util.Context;
 import org.apache.jena.tdb2.TDB2;
+import org.tufa.analysis.query.QueryGuard;
 
 /**
  * A store served over the SPARQL 1.1 protocol with Jena Fuseki's embeddable server, read-only: the dataset is
  * registered without update operations, so SPARQL Update and graph-store writes are refused (HTTP 405). Queries see
- * the union of all graphs as their default graph and can name one with GRAPH. Queries cannot reach out: SERVICE is
- * switched off ({@code arq:httpServiceAllowed} false) and functions named by {@code java:} IRIs, which would load
- * classes from the class path, are not found.
+ * the union of all graphs as their default graph and can name one with GRAPH. Queries cannot reach out: the
+ * dataset's context is {@code tufa query}'s sandbox ({@link QueryGuard#sandbox}): SERVICE is switched off and
+ * functions and property functions named by {@code java:} IRIs, which would load classes from the class path, are
+ * refused.
  */
 public final class StoreServer implements AutoCloseable {
 
@@ -36,20 +35,7 @@ public final class StoreServer implements AutoCloseable {
         DatasetGraph dsg = store.dataset().asDatasetGraph();
         Context context = dsg.getContext();
         context.set(TDB2.symUnionDefaultGraph, true);
-        context.set(ARQ.httpServiceAllowed, false);
-        FunctionRegistry standard = FunctionRegistry.get();
-        FunctionRegistry noJava = new FunctionRegistry() {
-            @Override
-            public FunctionFactory get(String uri) {
-                return uri.startsWith("java:") ? null : standard.get(uri);
-            }
-
-            @Override
-            public boolean isRegistered(String uri) {
-                return !uri.startsWith("java:") && standard.isRegistered(uri);
-            }
-        };
-        FunctionRegistry.set(context, noJava);
+        QueryGuard.sandbox(context, false);
         FusekiServer server = FusekiServer.create().port(port).loopback(loopbackOnly).verbose(false)
                 .add(DATASET, dsg, false).build();
         server.start();
