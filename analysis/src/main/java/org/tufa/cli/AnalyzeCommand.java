@@ -235,11 +235,16 @@ public final class AnalyzeCommand implements Callable<Integer> {
         boolean anyDetection = assessed.coverage().units().stream().anyMatch(u -> u.analyzable()
                 && u.unitKind().equals(org.tufa.analysis.coverage.Profile.FAN_COIL));
         if (result.ingest().samplesKept() == 0 && anyDetection) {
-            stderr.println("tufa: " + nothingKept(result.ingest(), time));
+            // A database is asked for the model's series only, so it has no unknown series to count: no row at all
+            // means its series ids are not the model's.
+            boolean noDatabaseRows = input.database() != null && result.ingest().rows() == 0;
+            stderr.println("tufa: " + (noDatabaseRows ? "the database (" + input.database().where() + ") holds no "
+                    + "row of any series of the model: its series ids must be the points' ref:hasTimeseriesId "
+                    + "values (or their labels when the model has none)" : nothingKept(result.ingest(), time)));
             stderr.flush();
-            return result.ingest().unknownSeriesSamples() >= Math.max(result.ingest().unparsableTimestamps(),
-                    result.ingest().samplesOutsideWindow()) && result.ingest().unknownSeriesSamples() > 0
-                    ? ExitCodes.CHECK_FAILED : ExitCodes.INPUT_ERROR;
+            return noDatabaseRows || result.ingest().unknownSeriesSamples() >= Math.max(
+                    result.ingest().unparsableTimestamps(), result.ingest().samplesOutsideWindow())
+                    && result.ingest().unknownSeriesSamples() > 0 ? ExitCodes.CHECK_FAILED : ExitCodes.INPUT_ERROR;
         }
         stderr.flush();
         return ExitCodes.OK;
