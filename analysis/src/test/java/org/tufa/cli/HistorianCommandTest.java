@@ -182,6 +182,21 @@ class HistorianCommandTest {
     }
 
     @Test
+    void aDatabaseWithoutTheModelsSeriesSaysSo(@TempDir Path out) throws Exception {
+        // Every series of another building: not an input error, a model and a database that do not match (exit 3).
+        db.execute("CREATE TABLE other_samples (series_id text, ts timestamptz, value double precision)");
+        db.execute("INSERT INTO other_samples VALUES ('OTHER.ZN-T', '2031-07-01T00:00:00Z', 21.5)");
+        Path s = settings("other.properties", "table = other_samples\n");
+        Run r = analyze(out, db.schemaUrl(), "--db-login", login.toString(), "--historian", s.toString());
+        assertEquals(ExitCodes.CHECK_FAILED, r.code(), r.err());
+        String err = r.err().strip();
+        assertTrue(err.lines().anyMatch(l -> l.startsWith("tufa: the database (") && l.contains("holds no row of "
+                + "any series of the model") && l.contains("ref:hasTimeseriesId")), err);
+        assertFalse(err.contains("trend files"), err);
+        assertNoSecret(r);
+    }
+
+    @Test
     void aMissingColumnListsTheColumnsThereAre(@TempDir Path out) throws Exception {
         Path s = settings("missing-column.properties", "value_column = reading\n");
         Run r = analyze(out, db.schemaUrl(), "--db-login", login.toString(), "--historian", s.toString());
