@@ -15,6 +15,7 @@ import java.util.TreeMap;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
 import org.apache.commons.csv.CSVRecord;
+import org.tufa.analysis.tables.SampleTableReader;
 import org.tufa.common.CsvCells;
 import org.tufa.common.InputException;
 
@@ -98,7 +99,20 @@ public final class EvaluationFiles {
                 throw InputException.in(fleetFile, "unit " + u.unit() + ": folder '" + u.folder()
                         + "' is not a plain folder name under units/");
             }
-            Path modesFile = findingsDir.resolve("units").resolve(u.folder()).resolve("modes.csv");
+            Path unitDir = findingsDir.resolve("units").resolve(u.folder());
+            Path parquet = unitDir.resolve("modes.parquet");
+            if (Files.isRegularFile(parquet)) {
+                SampleTableReader.TimedTexts t = SampleTableReader.read(parquet, "timestamp", "mode");
+                for (int i = 0; i < t.texts().size(); i++) {
+                    if (!UnitSamples.MODES.contains(t.texts().get(i))) {
+                        throw InputException.in(parquet, "row " + (i + 1) + ": mode '" + t.texts().get(i)
+                                + "' is not one of " + new java.util.TreeSet<>(UnitSamples.MODES));
+                    }
+                }
+                samples.put(u.unit(), new UnitSamples(t.times(), t.texts()));
+                continue;
+            }
+            Path modesFile = unitDir.resolve("modes.csv");
             List<Instant> times = new ArrayList<>();
             List<String> modes = new ArrayList<>();
             forEachRecord(modesFile, MODES_HEADER, (r, line) -> {
