@@ -89,19 +89,6 @@ public final class FleetDecision {
                            int tests) {
     }
 
-    /**
-     * Channels whose normal level means the same on every unit, so peers can be compared on it: not the coil
-     * residual (relative to the unit's own coil by construction), the valve activity or hunting (they follow the
-     * unit's control style: a two-position valve always moves more than a modulating one), nor the share outside
-     * the load band (the band is the unit's own).
-     */
-    static boolean comparableAcrossUnits(ChannelEvidence c) {
-        return switch (c.channel()) {
-            case "coil_residual", "valve_activity", "mode_hunting", "out_of_band_high", "out_of_band_low" -> false;
-            default -> true;
-        };
-    }
-
     /** Fewest informative days a unit's normal level needs before it is compared with its peers'. */
     static final int MIN_PEER_DAYS = 7;
 
@@ -178,6 +165,32 @@ public final class FleetDecision {
         decidedFleet.sort((a, b) -> org.tufa.analysis.fleet.UnitAnalysis.FINDING_ORDER.compare(a.finding(),
                 b.finding()));
         return new Decision(byUnit, decidedFleet, nulls, all.size());
+    }
+
+    /**
+     * Decisions taken apart (one per kind of unit) as one: units' findings side by side, fleet findings in
+     * {@code FINDING_ORDER}, nulls in the given order, with each part's channel keys prefixed by its
+     * {@code prefixes} entry, and the tests summed.
+     */
+    public static Decision merge(List<Decision> parts, List<String> prefixes) {
+        if (parts.size() != prefixes.size()) {
+            throw new IllegalArgumentException(parts.size() + " decisions, " + prefixes.size() + " prefixes");
+        }
+        Map<String, List<Finding>> findings = new LinkedHashMap<>();
+        List<FleetFinding> fleet = new ArrayList<>();
+        List<ChannelNull> nulls = new ArrayList<>();
+        int tests = 0;
+        for (int i = 0; i < parts.size(); i++) {
+            Decision d = parts.get(i);
+            findings.putAll(d.findings());
+            fleet.addAll(d.fleet());
+            String prefix = prefixes.get(i);
+            d.nulls().forEach(n -> nulls.add(prefix.isEmpty() ? n
+                    : new ChannelNull(prefix + n.key(), n.nullDistribution(), n.units(), n.candidates())));
+            tests += d.tests();
+        }
+        fleet.sort((a, b) -> org.tufa.analysis.fleet.UnitAnalysis.FINDING_ORDER.compare(a.finding(), b.finding()));
+        return new Decision(findings, fleet, nulls, tests);
     }
 
     /** One channel of one unit in the pool of its key. */
@@ -354,12 +367,15 @@ public final class FleetDecision {
         return (int) t.atZone(zone).toLocalDate().toEpochDay();
     }
 
-    /** Every unit against its peers on a channel with an absolute meaning. */
+    /**
+     * Every unit against its peers on a channel with an absolute meaning: one whose normal level means the same on
+     * every unit. A channel that has none (a residual against the unit's own coil, a share that follows its own
+     * control style or its own load band) carries NaN as its level and is left out.
+     */
     private static List<Test> peerTests(List<Slot> slots, org.tufa.analysis.fleet.AnalysisSettings.DecisionSettings
             settings, CauseTable causes) {
         List<Slot> usable = slots.stream().filter(s -> Double.isFinite(s.channel().level())
-                && s.channel().span() != null && s.channel().informativeDays() >= MIN_PEER_DAYS
-                && comparableAcrossUnits(s.channel())).toList();
+                && s.channel().span() != null && s.channel().informativeDays() >= MIN_PEER_DAYS).toList();
         if (usable.size() < settings.minPeers() + 1) {
             return List.of();
         }

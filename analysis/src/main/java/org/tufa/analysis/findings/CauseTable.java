@@ -27,7 +27,9 @@ import org.tufa.common.InputException;
  * </pre>
  *
  * <p>{@code applies_to} is a mode (cooling, heating, ventilation) for cluster findings or a finding kind for
- * rule-based findings. {@code evidence} is a feature name (its shift must reach {@code min_shift} in the given
+ * rule-based findings. It may start with a unit kind and a colon ({@code vav:reheat}): the line is then for units
+ * of that kind only; a line without one is for fan coil units, the kind the table first served
+ * ({@link #forKind}). {@code evidence} is a feature name (its shift must reach {@code min_shift} in the given
  * direction, up or down), {@code direction_check} (with direction {@code fails}) or {@code always}. The causes are
  * candidates to verify, never a diagnosis.
  */
@@ -105,6 +107,29 @@ public record CauseTable(List<Pattern> patterns) {
         }
         return new CauseTable(out);
     }
+
+    /** Separates a unit kind from the mode or finding kind in {@code applies_to}. */
+    public static final String KIND_SEPARATOR = ":";
+
+    /**
+     * The lines for units of one kind, with the kind taken off their {@code applies_to}: those that name the kind,
+     * and for fan coil units ({@code fan_coil}) also those that name none. Order kept.
+     */
+    public CauseTable forKind(String unitKind) {
+        List<Pattern> out = new ArrayList<>();
+        for (Pattern p : patterns) {
+            int colon = p.appliesTo().indexOf(KIND_SEPARATOR);
+            String kind = colon < 0 ? FAN_COIL : p.appliesTo().substring(0, colon);
+            if (kind.equals(unitKind)) {
+                out.add(colon < 0 ? p : new Pattern(p.appliesTo().substring(colon + 1), p.evidence(), p.direction(),
+                        p.minShift(), p.cause(), p.source()));
+            }
+        }
+        return new CauseTable(out);
+    }
+
+    /** The unit kind of lines that name none. */
+    private static final String FAN_COIL = "fan_coil";
 
     /**
      * Candidate causes for a finding, in table order, without repeats.

@@ -17,6 +17,8 @@ import org.tufa.analysis.coverage.UnitCoverage;
 import org.tufa.analysis.decision.FleetDecision;
 import org.tufa.analysis.episodes.ChannelEvidence;
 import org.tufa.analysis.features.UnitSignals;
+import org.tufa.analysis.kinds.UnitKind;
+import org.tufa.analysis.kinds.UnitKinds;
 import org.tufa.analysis.findings.Finding;
 import org.tufa.analysis.trends.IngestReport;
 import org.tufa.analysis.trends.PlausibleRange;
@@ -83,7 +85,7 @@ public final class FleetAnalysis {
         Map<String, SeriesKind> wanted = new java.util.TreeMap<>();
         Map<String, PlausibleRange> ranges = new java.util.TreeMap<>();
         for (UnitCoverage u : units) {
-            UnitInputs in = UnitInputs.of(u, settings.defaultAirflow());
+            UnitInputs in = UnitInputs.of(u, UnitKinds.of(u.unitKind()).orElse(null), settings.defaultAirflow());
             inputs.put(u.unit(), in);
             if (u.analyzable() && detects(u)) {
                 wanted.putAll(in.seriesKinds());
@@ -129,14 +131,7 @@ public final class FleetAnalysis {
                     kept.add(f.get());
                 }
                 long t1 = System.nanoTime();
-                List<FleetDecision.UnitEvidence> evidence = new ArrayList<>();
-                for (Kept k : kept) {
-                    if (k.evidence() != null) {
-                        evidence.add(new FleetDecision.UnitEvidence(k.outcome().unit(), k.evidence()));
-                    }
-                }
-                FleetDecision.Decision decision = FleetDecision.fit(evidence, settings.decision(), settings.causes(),
-                        settings.dayZone(), settings.maxEpisodeWindowDays());
+                FleetDecision.Decision decision = decide(kept, inputs, settings);
                 times.add(StageTimes.Stage.DECISION, System.nanoTime() - t1);
                 double min = settings.decision().minConfidence();
                 List<Future<UnitOutcome>> finals = new ArrayList<>();
@@ -193,7 +188,7 @@ public final class FleetAnalysis {
         if (!listed.isEmpty()) {
             long t0 = System.nanoTime();
             signals = prepare(in, store).signals();
-            load = UnitAnalysis.load(signals, in.fanSignal(), in.nominalAirflow());
+            load = in.kind().load(signals);
             times.add(StageTimes.Stage.RESAMPLE, System.nanoTime() - t0);
         }
         UnitOutcome done = o.decided(listed, below, notes, load);
@@ -215,9 +210,37 @@ public final class FleetAnalysis {
                 store.interval(), store.gridLength());
     }
 
-    /** Whether this version has a detection for the unit's kind: fan coil units only (VAV boxes come next). */
+    /** Whether this version has a detection for the unit's kind ({@link UnitKinds}). */
     private static boolean detects(UnitCoverage u) {
-        return u.unitKind().equals(org.tufa.analysis.coverage.Profile.FAN_COIL);
+        return UnitKinds.of(u.unitKind()).isPresent();
+    }
+
+    /**
+     * The fleet decision, for each kind of unit apart: a kind's channels and its units' normal levels mean
+     * something only among units of that kind (a VAV box's zone error in cooling is not a fan coil unit's), and
+     * its peer and fleet findings take their causes from its part of the cause table. The false-discovery rate is
+     * therefore controlled per kind.
+     */
+    private static FleetDecision.Decision decide(List<Kept> kept, Map<String, UnitInputs> inputs,
+                                                 AnalysisSettings settings) {
+        Map<String, List<FleetDecision.UnitEvidence>> byKind = new java.util.TreeMap<>();
+        for (Kept k : kept) {
+            if (k.evidence() != null) {
+                byKind.computeIfAbsent(inputs.get(k.outcome().unit()).kind().name(), x -> new ArrayList<>())
+                        .add(new FleetDecision.UnitEvidence(k.outcome().unit(), k.evidence()));
+            }
+        }
+        List<FleetDecision.Decision> decisions = new ArrayList<>();
+        List<String> prefixes = new ArrayList<>();
+        for (UnitKind kind : UnitKinds.ALL) {
+            List<FleetDecision.UnitEvidence> evidence = byKind.get(kind.name());
+            if (evidence != null) {
+                decisions.add(FleetDecision.fit(evidence, settings.decision(), kind.causes(settings),
+                        settings.dayZone(), settings.maxEpisodeWindowDays()));
+                prefixes.add(kind.channelPrefix());
+            }
+        }
+        return FleetDecision.merge(decisions, prefixes);
     }
 
     /** An outcome with the signals it was computed from (null when the unit was not analysed). */
@@ -244,21 +267,14 @@ public final class FleetAnalysis {
             SignalPreparation.Prepared p = prepare(in, series, store);
             times.add(StageTimes.Stage.RESAMPLE, System.nanoTime() - t0);
             UnitSignals s = p.signals();
-            if (!UnitSignals.present(s.zoneAirTemperature()) || !UnitSignals.present(s.dischargeAirTemperature())) {
+            String unanalysable = in.kind().unanalysable(s);
+            if (unanalysable != null) {
                 return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED,
-                        "no trend data for the zone or discharge air temperature", p.notes(), null), null);
+                        unanalysable, p.notes(), null), null);
             }
-            UnitAnalysis.Result r = UnitAnalysis.run(s, in.fanSignal(), in.nominalAirflow(), settings, times);
+            UnitAnalysis.Result r = UnitAnalysis.run(in.kind(), s, settings, times);
             List<String> notes = new ArrayList<>(p.notes());
-            for (String valve : List.of("cooling_valve_command", "heating_valve_command")) {
-                if (!in.points().containsKey(valve)) {
-                    notes.add(valve + ": not found in the model; operating modes treat that valve as shut, and fan-only (ventilation) samples cannot be told from it, so they are left out");
-                }
-            }
-            if (!in.airflowFromModel()) {
-                notes.add(String.format(java.util.Locale.ROOT, "no nominal airflow in the model; energy uses the"
-                        + " default %.3f m3/s (add tufa:nominalAirflow to the unit)", settings.defaultAirflow()));
-            }
+            notes.addAll(in.kind().notes(in.points(), in.airflowFromModel(), settings));
             if (r.modeResults().stream().noneMatch(ModeResult::analyzed)) {
                 String why = String.join("; ", r.modeResults().stream().map(m -> m.mode() + ": " + m.reason())
                         .toList());

@@ -36,25 +36,120 @@ public final class SignalPreparation {
     private SignalPreparation() {
     }
 
+    /**
+     * The unit's signals for every role its kind reads ({@link UnitInputs#kind()}), in the kind's order, each in
+     * its canonical unit.
+     */
     public static Prepared prepare(UnitInputs inputs, SeriesSource source, java.time.Instant gridStart,
                                    java.time.Duration interval, int length) {
         List<String> notes = new ArrayList<>();
-        double[] zone = temperature(inputs, "zone_air_temperature", source, length, notes, TemperatureRole.ZONE_AIR);
-        double[] discharge = temperature(inputs, "discharge_air_temperature", source, length, notes,
-                TemperatureRole.OTHER);
-        double[] cooling = command(inputs, "cooling_valve_command", source, length, notes);
-        double[] heating = command(inputs, "heating_valve_command", source, length, notes);
-        double[] fan = fan(inputs, source, length, notes);
-        double[] setpoint = temperature(inputs, "zone_temperature_setpoint", source, length, notes,
-                TemperatureRole.OTHER);
-        double[] chw = temperature(inputs, "chilled_water_supply_temperature", source, length, notes,
-                TemperatureRole.OTHER);
-        double[] hw = temperature(inputs, "hot_water_supply_temperature", source, length, notes,
-                TemperatureRole.OTHER);
-        double[] outdoor = temperature(inputs, "outdoor_air_temperature", source, length, notes,
-                TemperatureRole.OTHER);
-        return new Prepared(new UnitSignals(gridStart, interval, zone, discharge, cooling, heating, fan, setpoint,
-                chw, hw, outdoor), notes);
+        UnitSignals.Builder b = UnitSignals.builder(gridStart, interval, length).fanSignal(inputs.fanSignal())
+                .nominalAirflow(inputs.nominalAirflow());
+        List<String> roles = inputs.kind() == null ? List.of() : inputs.kind().roles();
+        for (String role : roles) {
+            b.with(role, switch (quantityOf(role)) {
+                case ZONE_TEMPERATURE -> temperature(inputs, role, source, length, notes, TemperatureRole.ZONE_AIR);
+                case TEMPERATURE -> temperature(inputs, role, source, length, notes, TemperatureRole.OTHER);
+                case COMMAND -> command(inputs, role, source, length, notes);
+                case FAN -> fan(inputs, source, length, notes);
+                case AIRFLOW -> airflow(inputs, role, source, length, notes);
+                case PRESSURE -> pressure(inputs, role, source, length, notes);
+                case FRACTION -> raw(inputs, role, source, length, notes);
+            });
+        }
+        return new Prepared(b.build(), notes);
+    }
+
+    /** What a role measures, which sets its canonical unit. */
+    enum Quantity { ZONE_TEMPERATURE, TEMPERATURE, COMMAND, FAN, AIRFLOW, PRESSURE, FRACTION }
+
+    static Quantity quantityOf(String role) {
+        return switch (role) {
+            case UnitSignals.ZONE_AIR_TEMPERATURE -> Quantity.ZONE_TEMPERATURE;
+            case UnitSignals.COOLING_VALVE_COMMAND, UnitSignals.HEATING_VALVE_COMMAND, UnitSignals.DAMPER_POSITION,
+                    UnitSignals.DAMPER_COMMAND, UnitSignals.REHEAT_VALVE_COMMAND, UnitSignals.ELECTRIC_REHEAT_COMMAND
+                    -> Quantity.COMMAND;
+            case UnitSignals.FAN_STATUS -> Quantity.FAN;
+            case UnitSignals.AIRFLOW, UnitSignals.AIRFLOW_SETPOINT -> Quantity.AIRFLOW;
+            case UnitSignals.AHU_SUPPLY_STATIC_PRESSURE -> Quantity.PRESSURE;
+            case UnitSignals.OCCUPANCY -> Quantity.FRACTION;
+            default -> Quantity.TEMPERATURE;
+        };
+    }
+
+    /** Roles whose temperature is of air in or near an occupied space (16-28 C), for guessing a missing unit. */
+    private static boolean airTemperature(String role) {
+        return switch (role) {
+            case UnitSignals.ZONE_AIR_TEMPERATURE, UnitSignals.DISCHARGE_AIR_TEMPERATURE,
+                    UnitSignals.ZONE_TEMPERATURE_SETPOINT, UnitSignals.ZONE_COOLING_TEMPERATURE_SETPOINT,
+                    UnitSignals.ZONE_HEATING_TEMPERATURE_SETPOINT -> true;
+            default -> false;
+        };
+    }
+
+    /**
+     * Airflow in m3/s: 1 L/s = 0.001 m3/s, 1 ft3/min = 0.000 471 947 4 m3/s, 1 m3/h = 1/3600 m3/s (NIST SP 811
+     * (2008), appendix B.8). Without a unit the model can be read by, the magnitude tells: a terminal box moves
+     * 0.02-2 m3/s, 20-2000 L/s or 40-4000 cfm, so a median above 5 is read as L/s and one below as m3/s, with a
+     * note (common practice, no source).
+     */
+    private static double[] airflow(UnitInputs inputs, String role, SeriesSource source, int length,
+                                    List<String> notes) {
+        double[] v = raw(inputs, role, source, length, notes);
+        if (!UnitSignals.present(v)) {
+            return v;
+        }
+        PointRef p = inputs.points().get(role);
+        double factor = switch (localName(p.unitOfMeasureIri())) {
+            case "M3-PER-SEC" -> 1.0;
+            case "L-PER-SEC" -> 0.001;
+            case "FT3-PER-MIN" -> 0.0004719474;
+            case "M3-PER-HR" -> 1.0 / 3600;
+            default -> {
+                double median = org.tufa.analysis.band.Quantiles.median(v);
+                boolean litres = median > 5;
+                notes.add(String.format(Locale.ROOT, "%s: the model gives no airflow unit tufa reads for %s; read"
+                        + " as %s (median %.3g); add brick:hasUnit (unit:L-PER-SEC, unit:FT3-PER-MIN or"
+                        + " unit:M3-PER-SEC) to the point", role, p.label(), litres ? "L/s" : "m3/s", median));
+                yield litres ? 0.001 : 1.0;
+            }
+        };
+        return scaled(v, factor);
+    }
+
+    /** Static pressure in Pa: 1 inch of water (conventional) = 249.0889 Pa (NIST SP 811 (2008), appendix B.8). */
+    private static double[] pressure(UnitInputs inputs, String role, SeriesSource source, int length,
+                                     List<String> notes) {
+        double[] v = raw(inputs, role, source, length, notes);
+        if (!UnitSignals.present(v)) {
+            return v;
+        }
+        PointRef p = inputs.points().get(role);
+        double factor = switch (localName(p.unitOfMeasureIri())) {
+            case "IN_H2O" -> 249.0889;
+            case "KILOPA" -> 1000.0;
+            default -> 1.0;
+        };
+        return scaled(v, factor);
+    }
+
+    private static String localName(String iri) {
+        if (iri == null) {
+            return "";
+        }
+        int cut = Math.max(Math.max(iri.lastIndexOf('/'), iri.lastIndexOf('#')), iri.lastIndexOf(':'));
+        return iri.substring(cut + 1).toUpperCase(Locale.ROOT);
+    }
+
+    private static double[] scaled(double[] v, double factor) {
+        if (factor == 1.0) {
+            return v;
+        }
+        double[] out = new double[v.length];
+        for (int i = 0; i < v.length; i++) {
+            out[i] = v[i] * factor;
+        }
+        return out;
     }
 
     private static double[] raw(UnitInputs inputs, String role, SeriesSource source, int length, List<String> notes) {
@@ -86,8 +181,7 @@ public final class SignalPreparation {
             // No usable unit in the model: air temperatures of occupied spaces sit at 16-28 C or 61-82 F, so the
             // median tells them apart (notes on units, common practice, no source); water is assumed to be C.
             double median = org.tufa.analysis.band.Quantiles.median(v);
-            boolean air = role.equals("zone_air_temperature") || role.equals("discharge_air_temperature")
-                    || role.equals("zone_temperature_setpoint");
+            boolean air = airTemperature(role);
             declared = air && median > 45 ? MeasureUnit.DEG_F : MeasureUnit.DEG_C;
             notes.add(String.format(Locale.ROOT, "%s: the model gives no temperature unit for %s; assumed %s"
                     + " (median %.1f); add brick:hasUnit to the point", role, p.label(), declared.name(), median));

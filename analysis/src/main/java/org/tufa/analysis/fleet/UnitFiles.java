@@ -7,7 +7,6 @@ import java.util.List;
 import org.tufa.analysis.cluster.OpticsResult;
 import org.tufa.analysis.cluster.PcaResult;
 import org.tufa.analysis.features.FeatureMatrix;
-import org.tufa.analysis.modes.OperatingMode;
 import org.tufa.analysis.tables.SampleColumn;
 import org.tufa.analysis.tables.SampleFormat;
 import org.tufa.analysis.tables.SampleTable;
@@ -80,7 +79,7 @@ public final class UnitFiles implements UnitSink {
             byte[] codes = r.modes().codes();
             for (int i = 0; i < codes.length; i++) {
                 t.time(start + i * step, times[i]);
-                t.text(OperatingMode.ofCode(codes[i]).label());
+                t.text(r.modes().labelAt(i));
                 byte b = r.bandState()[i];
                 t.flag(b == UnitAnalysis.Result.IN_BAND ? Boolean.TRUE
                         : b == UnitAnalysis.Result.OUT_OF_BAND ? Boolean.FALSE : null);

@@ -5,41 +5,33 @@ import java.util.Map;
 import java.util.Optional;
 import org.tufa.analysis.coverage.PointRef;
 import org.tufa.analysis.coverage.UnitCoverage;
+import org.tufa.analysis.kinds.UnitKind;
 import org.tufa.analysis.modes.FanSignal;
 import org.tufa.analysis.trends.SeriesKind;
 
 /**
- * What the analysis reads for one unit: for each role the unit has, the point (series id, unit of measure, class),
- * how the fan signal is to be read, and the nominal airflow.
+ * What the analysis reads for one unit: its kind's detection, for each role the kind reads and the unit has, the
+ * point (series id, unit of measure, class), how the fan signal is to be read, and the nominal airflow.
+ *
+ * @param kind the detection for the unit's kind, or null when this version has none for it
  */
-public record UnitInputs(String unit, String label, Map<String, PointRef> points, FanSignal fanSignal,
-                         double nominalAirflow, boolean airflowFromModel) {
-
-    /** Roles the per-unit analysis reads. */
-    public static final java.util.List<String> ROLES = java.util.List.of(
-            "zone_air_temperature", "discharge_air_temperature", "cooling_valve_command", "heating_valve_command",
-            "fan_status", "zone_temperature_setpoint", "chilled_water_supply_temperature",
-            "hot_water_supply_temperature", "outdoor_air_temperature");
+public record UnitInputs(String unit, String label, UnitKind kind, Map<String, PointRef> points,
+                         FanSignal fanSignal, double nominalAirflow, boolean airflowFromModel) {
 
     public UnitInputs {
         points = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(points));
     }
 
-    /** The inputs of a unit from its coverage row; ambiguous roles are left out (the coverage report lists them). */
-    public static UnitInputs of(UnitCoverage coverage, double defaultAirflow) {
-        Map<String, PointRef> points = new LinkedHashMap<>();
-        for (String role : ROLES) {
-            coverage.point(role).ifPresent(p -> points.put(role, p));
-        }
-        if (!points.containsKey("zone_temperature_setpoint")) {
-            // A unit modelled with the cooling/heating pair: the zone error is judged in cooling only, against the
-            // cooling setpoint, so that one stands in for the single setpoint.
-            coverage.point("zone_cooling_temperature_setpoint").ifPresent(p -> points.put("zone_temperature_setpoint", p));
-        }
+    /**
+     * The inputs of a unit from its coverage row, for the roles its kind reads ({@link UnitKind#points}); ambiguous
+     * roles are left out (the coverage report lists them). A unit of a kind without detection (null) reads nothing.
+     */
+    public static UnitInputs of(UnitCoverage coverage, UnitKind kind, double defaultAirflow) {
+        Map<String, PointRef> points = kind == null ? Map.of() : kind.points(coverage);
         Optional<PointRef> fan = Optional.ofNullable(points.get("fan_status"));
         FanSignal signal = fan.map(p -> isSpeed(p) ? FanSignal.SPEED : FanSignal.STATUS).orElse(FanSignal.NONE);
         double airflow = coverage.nominalAirflow().map(a -> a.cubicMetresPerSecond()).orElse(defaultAirflow);
-        return new UnitInputs(coverage.unit(), coverage.label(), points, signal, airflow,
+        return new UnitInputs(coverage.unit(), coverage.label(), kind, points, signal, airflow,
                 coverage.nominalAirflow().isPresent());
     }
 

@@ -3,7 +3,6 @@ package org.tufa.analysis.fleet;
 import java.time.Duration;
 import java.time.Instant;
 import java.util.List;
-import org.tufa.analysis.modes.OperatingMode;
 
 /**
  * What stays of one analysed unit once its samples are written: its grid, how many samples each mode had, and
@@ -12,21 +11,24 @@ import org.tufa.analysis.modes.OperatingMode;
  * @param gridStart   start of sample 0
  * @param interval    grid step
  * @param samples     samples on the grid
- * @param modeCounts  samples per {@link OperatingMode}, indexed by code
+ * @param modeLabels  the unit's operating modes (its kind's), in code order
+ * @param modeCounts  samples per mode, indexed by code
  * @param fanInferred true when the fan was inferred from open valves
  * @param modes       one summary per clustered mode, in the analysis' order
  */
-public record UnitSummary(Instant gridStart, Duration interval, int samples, int[] modeCounts, boolean fanInferred,
-                          List<ModeSummary> modes) {
+public record UnitSummary(Instant gridStart, Duration interval, int samples, List<String> modeLabels,
+                          int[] modeCounts, boolean fanInferred, List<ModeSummary> modes) {
 
     public UnitSummary {
+        modeLabels = List.copyOf(modeLabels);
         modeCounts = modeCounts.clone();
         modes = List.copyOf(modes);
     }
 
     /** The summary of a detailed result. */
     public static UnitSummary of(UnitAnalysis.Result r) {
-        return new UnitSummary(r.gridStart(), r.interval(), r.modes().codes().length, r.modes().counts(),
+        return new UnitSummary(r.gridStart(), r.interval(), r.modes().codes().length, r.modes().labels(),
+                r.modes().counts(),
                 r.modes().fanInferred(), r.modeResults().stream().map(ModeSummary::of).toList());
     }
 

@@ -21,7 +21,6 @@ import org.tufa.analysis.fleet.UnitSummary;
 import org.tufa.analysis.fleet.UnitAnalysis;
 import org.tufa.analysis.fleet.UnitOutcome;
 import org.tufa.analysis.fleet.UnitSink;
-import org.tufa.analysis.modes.OperatingMode;
 
 /**
  * Writes one report page per unit, {@code DIR/report/units/<folder>/index.html}, with its charts beside it (a
@@ -168,12 +167,12 @@ public final class UnitPages implements UnitSink {
     private static void modeCounts(StringBuilder b, UnitSummary r) {
         b.append("<h2>Samples per operating mode</h2>\n<table>\n<thead><tr>");
         int[] counts = r.modeCounts();
-        for (OperatingMode m : OperatingMode.values()) {
-            b.append("<th class=\"num\">").append(m.label()).append("</th>");
+        for (String label : r.modeLabels()) {
+            b.append("<th class=\"num\">").append(Html.esc(label)).append("</th>");
         }
         b.append("</tr></thead>\n<tbody><tr>");
-        for (OperatingMode m : OperatingMode.values()) {
-            b.append("<td class=\"num\">").append(counts[m.code()]).append("</td>");
+        for (int code = 0; code < counts.length; code++) {
+            b.append("<td class=\"num\">").append(counts[code]).append("</td>");
         }
         b.append("</tr></tbody>\n</table>\n");
         if (r.fanInferred()) {

@@ -9,7 +9,7 @@ import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.tufa.analysis.decision.FleetDecision;
 import org.tufa.analysis.findings.Finding;
-import org.tufa.analysis.modes.FanSignal;
+import org.tufa.analysis.kinds.fancoil.FanCoilKind;
 
 /**
  * The fleet stage on hand-built fleets ({@link SyntheticUnit}: fourteen invented fan coil units, four summer
@@ -31,7 +31,7 @@ class FleetDecisionBehaviourTest {
         for (int k = 0; k < UNITS; k++) {
             SyntheticUnit u = SyntheticUnit.healthy(DAYS, true, 100 + k);
             plant.accept(k, u);
-            UnitAnalysis.Result r = UnitAnalysis.run(u.signals(), FanSignal.STATUS, 0.19, settings, new StageTimes());
+            UnitAnalysis.Result r = UnitAnalysis.run(FanCoilKind.INSTANCE, u.signals(), settings, new StageTimes());
             evidence.add(new FleetDecision.UnitEvidence(unit(k), r.evidence()));
         }
         return FleetDecision.fit(evidence, settings.decision(), settings.causes(), settings.dayZone(),

@@ -19,6 +19,8 @@ final class SyntheticUnit {
     static final Instant START = Instant.parse("2031-06-02T00:00:00Z");
     static final Duration STEP = Duration.ofMinutes(15);
     static final int PER_DAY = 96;
+    /** Nominal airflow of the synthetic unit, m3/s. */
+    static final double AIRFLOW = 0.19;
 
     final int n;
     final double[] zone;
@@ -118,15 +120,16 @@ final class SyntheticUnit {
     }
 
     UnitSignals signals() {
-        return new UnitSignals(START, STEP, zone.clone(), discharge.clone(), cooling.clone(), heating.clone(),
-                fan.clone(), setpoint.clone(), chilledWater.clone(), hotWater.clone(), outdoor.clone());
+        return FanCoilSignals.of(START, STEP, AIRFLOW, zone.clone(), discharge.clone(), cooling.clone(),
+                heating.clone(), fan.clone(), setpoint.clone(), chilledWater.clone(), hotWater.clone(),
+                outdoor.clone());
     }
 
     /** The same unit with no trend for the cooling valve command (all NaN). */
     UnitSignals withoutCoolingValve() {
         double[] none = new double[n];
         Arrays.fill(none, Double.NaN);
-        return new UnitSignals(START, STEP, zone.clone(), discharge.clone(), none, heating.clone(), fan.clone(),
-                setpoint.clone(), chilledWater.clone(), hotWater.clone(), outdoor.clone());
+        return FanCoilSignals.of(START, STEP, AIRFLOW, zone.clone(), discharge.clone(), none, heating.clone(),
+                fan.clone(), setpoint.clone(), chilledWater.clone(), hotWater.clone(), outdoor.clone());
     }
 }

@@ -10,7 +10,7 @@ import java.util.stream.Collectors;
 import org.junit.jupiter.api.Test;
 import org.tufa.analysis.findings.Finding;
 import org.tufa.analysis.findings.Shift;
-import org.tufa.analysis.modes.FanSignal;
+import org.tufa.analysis.kinds.fancoil.FanCoilKind;
 import org.tufa.analysis.modes.OperatingMode;
 
 /**
@@ -25,7 +25,7 @@ class UnitAnalysisTest {
     static final double AIRFLOW = 0.19;
 
     private static UnitAnalysis.Result run(org.tufa.analysis.features.UnitSignals s) {
-        return UnitAnalysis.run(s, FanSignal.STATUS, AIRFLOW, AnalysisSettings.defaults(), new StageTimes());
+        return UnitAnalysis.run(FanCoilKind.INSTANCE, s, AnalysisSettings.defaults(), new StageTimes());
     }
 
     private static List<Finding> of(UnitAnalysis.Result r, String kind) {

@@ -93,11 +93,13 @@ final class SyntheticFleet {
         // Units are independent and the analysis is pure: analyse in parallel, collect by index (same order).
         java.util.stream.IntStream.range(0, n).parallel().forEach(i -> {
             UnitTrace u = sim.units().get(i);
-            prepared[i] = new UnitSignals(sim.timestamps().get(0), step, d(u.zoneC()), d(u.dischargeC()),
+            prepared[i] = org.tufa.analysis.fleet.FanCoilSignals.of(sim.timestamps().get(0), step, 0.19,
+                    d(u.zoneC()), d(u.dischargeC()),
                     d(u.coolingCommandPct()), d(u.heatingCommandPct()), d(u.fanStatus()),
                     i == 2 ? UnitSignals.absent(u.zoneC().length) : d(u.setpointC()), d(sim.chilledWaterSupplyC()),
                     d(sim.hotWaterSupplyC()), d(sim.outdoorC()));
-            results[i] = UnitAnalysis.run(prepared[i], FanSignal.STATUS, 0.19, settings, new StageTimes());
+            results[i] = UnitAnalysis.run(org.tufa.analysis.kinds.fancoil.FanCoilKind.INSTANCE, prepared[i],
+                    settings, new StageTimes());
         });
         for (int i = 0; i < n; i++) {
             UnitTrace u = sim.units().get(i);

@@ -1,10 +1,16 @@
-package org.tufa.analysis.features;
+package org.tufa.analysis.kinds.fancoil;
 
 import java.util.ArrayList;
 import java.util.List;
+import org.tufa.analysis.features.CoilResponse;
+import org.tufa.analysis.features.FeatureMatrix;
+import org.tufa.analysis.features.RobustLine;
+import org.tufa.analysis.features.RollingMedian;
+import org.tufa.analysis.features.UnitSignals;
+import org.tufa.analysis.features.ValveActivity;
 
 /**
- * Builds the feature rows of one unit in one operating mode: physically informed health features that make a
+ * Builds the feature rows of one fan coil unit in one operating mode: physically informed health features that make a
  * fault stand out from a change of load — the coil residual ({@link CoilResponse}), the discharge offset in
  * ventilation, the valve activity ({@link ValveActivity}), residuals and offsets smoothed by a short running
  * median ({@link RollingMedian}) — and the unit's role values in that mode with the upstream supply-water and
@@ -17,7 +23,7 @@ import java.util.List;
  *
  * <p>A sample enters only when every feature of the mode has a value; the others are counted by the caller.
  */
-public final class ModeFeatures {
+public final class FanCoilFeatures {
 
     /** Half window of the valve activity: 4 samples each side, 2 hours at 15 minutes (common practice, no source). */
     public static final int ACTIVITY_HALF_WINDOW = 4;
@@ -30,7 +36,7 @@ public final class ModeFeatures {
      */
     public static final int SMOOTHING_HALF_WINDOW = 12;
 
-    private ModeFeatures() {
+    private FanCoilFeatures() {
     }
 
     /** Modes this class builds features for. */

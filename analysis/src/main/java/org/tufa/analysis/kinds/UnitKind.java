@@ -1,0 +1,110 @@
+package org.tufa.analysis.kinds;
+
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import org.tufa.analysis.coverage.PointRef;
+import org.tufa.analysis.coverage.UnitCoverage;
+import org.tufa.analysis.features.FeatureMatrix;
+import org.tufa.analysis.features.UnitSignals;
+import org.tufa.analysis.findings.CauseTable;
+import org.tufa.analysis.findings.DirectionCheck;
+import org.tufa.analysis.fleet.AnalysisSettings;
+import org.tufa.analysis.modes.ModeSplit;
+
+/**
+ * What the per-unit detection needs to know about a kind of terminal unit (fan coil units, VAV boxes): the rest of
+ * the pipeline (load band, PCA, OPTICS, the normal reference, cluster summaries, day channels and the fleet stage)
+ * is the same for every kind ({@code org.tufa.analysis.fleet.UnitAnalysis}). A kind is chosen per unit by its
+ * requirement profile's {@code tufa:unitKind} ({@link UnitKinds#of}); implementations are stateless.
+ * What the kind's rules and features find goes through the same fleet decision as every kind's
+ * ({@code org.tufa.analysis.decision.FleetDecision}), among units of the kind.
+ *
+ * <p>A kind says which roles it reads, how each sample's operating mode follows from the signals, which modes are
+ * clustered and on which samples, whether the load band applies, what its health features are (with each one's
+ * fault sides, engineering gate and spread floor, {@link HealthFeature}), its rule channels ({@link RuleChannel}),
+ * its load and its candidate causes.
+ */
+public interface UnitKind {
+
+    /** The {@code tufa:unitKind} of the profiles this detection is for ({@code fan_coil}, {@code vav}). */
+    String name();
+
+    /** The roles the analysis reads, in the order their series are prepared. */
+    List<String> roles();
+
+    /** The unit's point for each role the analysis reads; by default each of {@link #roles()} the coverage found. */
+    default Map<String, PointRef> points(UnitCoverage coverage) {
+        Map<String, PointRef> points = new LinkedHashMap<>();
+        for (String role : roles()) {
+            coverage.point(role).ifPresent(p -> points.put(role, p));
+        }
+        return points;
+    }
+
+    /** Why a unit with these signals cannot be analysed at all (no data for a role every mode needs), or null. */
+    String unanalysable(UnitSignals s);
+
+    /**
+     * Notes for the reader on how the unit's points are read (a valve the model lacks, a default airflow).
+     *
+     * @param points            the points found for the kind's roles
+     * @param airflowFromModel  whether the model gives the unit's nominal airflow
+     */
+    List<String> notes(Map<String, PointRef> points, boolean airflowFromModel, AnalysisSettings settings);
+
+    /** The operating mode of every sample. */
+    ModeSplit modes(UnitSignals s, AnalysisSettings settings);
+
+    /** The unit's air-side sensible load per sample, kW (positive cooling), NaN where unknown. */
+    double[] load(UnitSignals s);
+
+    /** The modes that are clustered, in the order they are analysed (the profile's mode names). */
+    List<String> clusteredModes();
+
+    /** Why the unit cannot be analysed in the mode (a role without data), or null when it can. */
+    String missingFor(String mode, UnitSignals s);
+
+    /** Every sample of the mode: their count is the mode's size, and the load band is fitted on them. */
+    boolean[] modeSamples(String mode, ModeSplit modes, UnitSignals s);
+
+    /** The samples of the mode that are clustered: by default all of them. */
+    default boolean[] clusteredSamples(String mode, ModeSplit modes, UnitSignals s) {
+        return modeSamples(mode, modes, s);
+    }
+
+    /** Whether the load band applies in the mode (not where the load is fixed by design). */
+    boolean bandApplies(String mode);
+
+    /**
+     * The feature rows of the mode's samples.
+     *
+     * @param samples grid indices of the samples to build rows for, ascending
+     */
+    FeatureMatrix features(String mode, UnitSignals s, int[] samples, ModeSplit modes);
+
+    /** How a health feature of this kind is judged. */
+    HealthFeature health(String feature, AnalysisSettings settings);
+
+    /**
+     * The expected-direction check of a group of a mode's rows ({@link DirectionCheck}), or null where no check
+     * applies.
+     */
+    DirectionCheck.Outcome direction(String mode, FeatureMatrix f, boolean[] rows);
+
+    /** The kind's rule channels. */
+    List<RuleChannel> rules(UnitSignals s, ModeSplit modes, AnalysisSettings settings);
+
+    /**
+     * What the kind's channel keys carry in run.json, so that two kinds' channels of the same name stay apart: by
+     * default the kind's name and a colon, as in the cause table ({@link CauseTable#forKind}).
+     */
+    default String channelPrefix() {
+        return name() + CauseTable.KIND_SEPARATOR;
+    }
+
+    /** The kind's candidate causes: its part of the run's cause table. */
+    default CauseTable causes(AnalysisSettings settings) {
+        return settings.causes().forKind(name());
+    }
+}
