@@ -44,6 +44,12 @@ public final class DemoCommand implements Callable<Integer> {
     @Option(names = "--full-year", description = "Simulate the whole year 2031 instead of the summer season.")
     boolean fullYear;
 
+    @Option(names = "--seed", paramLabel = "N", description = "Seed of the simulated trends and faults (default: "
+            + "the demo's own, ${DEFAULT-VALUE}). Another seed gives another season of the same building with other "
+            + "faults: a check of the detection on data its settings were not chosen on.",
+            defaultValue = "" + DemoSimulation.DEMO_SEED)
+    long seed;
+
     @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: all cores).")
     int threads = Runtime.getRuntime().availableProcessors();
 
@@ -93,7 +99,7 @@ public final class DemoCommand implements Callable<Integer> {
     private void simulate(Path model, Season season, Path dir, PrintWriter stdout) throws IOException {
         Path stamp = dir.resolve("simulation.txt");
         String id = "season " + season.firstDay() + ".." + season.lastDay() + " " + season.zone() + ", seed "
-                + DemoSimulation.DEMO_SEED + ", model sha256 " + sha256(model) + "\n";
+                + seed + ", model sha256 " + sha256(model) + "\n";
         if (Files.isRegularFile(stamp) && Files.readString(stamp, StandardCharsets.UTF_8).equals(id)
                 && Files.isRegularFile(dir.resolve(DemoTrends.TRENDS_FILE))) {
             stdout.println("Reusing the trends already simulated in " + dir);
@@ -102,7 +108,7 @@ public final class DemoCommand implements Callable<Integer> {
         FleetModelOptions.Assessed assessed = FleetModelOptions.assess(model, List.of(), List.of(), List.of());
         DemoTargets targets = DemoTargets.from(assessed.coverage());
         SimulationPlan plan = DemoSimulation.plan(targets.units(), targets.vavUnits(), targets.building(), season,
-                DemoSimulation.DEMO_SEED);
+                seed);
         SimulationResult result = Simulator.run(plan);
         Files.createDirectories(dir);
         List<Path> written = DemoTrends.write(dir, result, DemoTrends.Layout.WIDE);

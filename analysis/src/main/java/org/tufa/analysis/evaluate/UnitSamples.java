@@ -6,15 +6,18 @@ import java.util.Set;
 
 /**
  * The samples of one analysed unit from its {@code modes.csv}: time and operating mode, in file order.
- * A sample is analysable when its mode is one the detection can judge: cooling, heating, ventilation or
- * simultaneous (not off, transition or no_data).
+ * A sample is analysable when its mode is one the detection can judge: a fan coil unit's cooling, heating,
+ * ventilation or simultaneous, a VAV box's cooling, deadband or reheat (not off, transition or no_data).
  */
 public record UnitSamples(List<Instant> timestamps, List<String> modes) {
     /** Every mode name modes.csv may hold. */
-    public static final Set<String> MODES = Set.of("off", "ventilation", "cooling", "heating", "simultaneous",
-            "transition", "no_data");
+    public static final Set<String> MODES = org.tufa.analysis.kinds.UnitKinds.ALL.stream()
+            .flatMap(k -> k.modeLabels().stream()).collect(java.util.stream.Collectors.toUnmodifiableSet());
+    /** Modes in which a unit is idle or unknown. */
+    static final Set<String> IDLE = Set.of("off", "transition", "no_data");
     /** Modes whose samples count as analysable. */
-    public static final Set<String> ANALYSABLE = Set.of("cooling", "heating", "ventilation", "simultaneous");
+    public static final Set<String> ANALYSABLE = MODES.stream().filter(m -> !IDLE.contains(m))
+            .collect(java.util.stream.Collectors.toUnmodifiableSet());
 
     public UnitSamples {
         timestamps = List.copyOf(timestamps);

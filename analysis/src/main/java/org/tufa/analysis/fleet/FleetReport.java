@@ -84,7 +84,8 @@ public final class FleetReport {
         int below = result.units().stream().mapToInt(UnitOutcome::belowConfidence).sum();
         long unitsWith = result.units().stream().filter(u -> !u.findings().isEmpty()).count();
         lines.add(String.format(Locale.ROOT, "Findings at confidence >= %.2f: %d on %d unit(s)%s; %d candidate(s) "
-                        + "below it not listed; %d tests, false-discovery rate controlled over all", minConfidence,
+                        + "below it not listed; %d tests, false-discovery rate controlled per kind of unit",
+                minConfidence,
                 total, unitsWith, total == 0 ? "" : " (" + String.join(", ", byKind.entrySet().stream()
                         .map(e -> e.getValue() + " " + e.getKey()).toList()) + ")", below, result.tests()));
         for (FleetDecision.FleetFinding f : result.fleetFindings()) {

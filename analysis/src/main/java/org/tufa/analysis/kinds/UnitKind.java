@@ -53,6 +53,9 @@ public interface UnitKind {
      */
     List<String> notes(Map<String, PointRef> points, boolean airflowFromModel, AnalysisSettings settings);
 
+    /** The labels of the kind's per-sample operating modes, in code order (modes.csv). */
+    List<String> modeLabels();
+
     /** The operating mode of every sample. */
     ModeSplit modes(UnitSignals s, AnalysisSettings settings);
 

@@ -3,12 +3,13 @@ package org.tufa.analysis.kinds;
 import java.util.List;
 import java.util.Optional;
 import org.tufa.analysis.kinds.fancoil.FanCoilKind;
+import org.tufa.analysis.kinds.vav.VavKind;
 
 /** The kinds of unit this version detects faults on, by the {@code tufa:unitKind} of their profiles. */
 public final class UnitKinds {
 
     /** Every kind with a detection, in a fixed order. */
-    public static final List<UnitKind> ALL = List.of(FanCoilKind.INSTANCE);
+    public static final List<UnitKind> ALL = List.of(FanCoilKind.INSTANCE, VavKind.INSTANCE);
 
     private UnitKinds() {
     }

@@ -100,6 +100,11 @@ public final class FanCoilKind implements UnitKind {
     }
 
     @Override
+    public List<String> modeLabels() {
+        return ModeSplit.FAN_COIL_LABELS;
+    }
+
+    @Override
     public ModeSplit modes(UnitSignals s, AnalysisSettings settings) {
         return classify(s, settings.modeThresholds());
     }
