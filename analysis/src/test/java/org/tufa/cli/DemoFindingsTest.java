@@ -1,6 +1,7 @@
 package org.tufa.cli;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.IOException;
 import java.io.PrintWriter;
@@ -15,7 +16,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
 /**
- * The whole demo, run once: the fan coil units' findings and fleet rows are byte for byte those recorded before
+ * The whole demo, run once. The fan coil units' findings and fleet rows are byte for byte those recorded before
  * the per-unit analysis moved behind {@code org.tufa.analysis.kinds.UnitKind} (recorded with the jar of main at
  * ebe735b: {@code tufa demo --out X}, the rows of the FCU-* units of findings.csv and fleet.csv). A change that
  * moves a fan coil finding has to say so by re-recording them.
@@ -46,6 +47,42 @@ class DemoFindingsTest {
         try (var in = Objects.requireNonNull(DemoFindingsTest.class.getResourceAsStream(name), name)) {
             return new String(in.readAllBytes(), StandardCharsets.UTF_8).lines().toList();
         }
+    }
+
+    /**
+     * The VAV wing against the issue's detection targets, the same as for fan coil units: at least 70 % of the VAV
+     * fault hours flagged (evaluation.csv, scope all_vav_faults), and at most 5 % of the healthy boxes (no episode
+     * in truth.csv) with any finding.
+     */
+    @Test
+    void vavWingMeetsTheFaultHourAndHealthyBoxTargets() throws IOException {
+        List<String> evaluation = Files.readAllLines(out.resolve("evaluation.csv"), StandardCharsets.UTF_8);
+        List<String> header = List.of(evaluation.get(0).split(","));
+        String[] vav = evaluation.stream().filter(l -> l.startsWith("all_vav_faults,")).findFirst().orElseThrow()
+                .split(",");
+        double share = Double.parseDouble(vav[header.indexOf("flagged_share")]);
+        assertTrue(share >= 0.70, "VAV fault hours flagged: " + share);
+        java.util.Set<String> faulty = new java.util.HashSet<>();
+        for (String l : Files.readAllLines(out.resolve("trends-summer").resolve("truth.csv"))) {
+            faulty.add(l.split(",")[0]);
+        }
+        java.util.Set<String> boxes = new java.util.TreeSet<>();
+        java.util.Set<String> healthyWithFindings = new java.util.TreeSet<>();
+        for (String l : Files.readAllLines(out.resolve("fleet.csv"))) {
+            String unit = l.split(",")[0];
+            if (unit.contains("/equipment/RW-VAV-") && l.contains(",analyzed,") && !faulty.contains(unit)) {
+                boxes.add(unit);
+            }
+        }
+        for (String l : Files.readAllLines(out.resolve("findings.csv"))) {
+            String unit = l.split(",")[0];
+            if (boxes.contains(unit)) {
+                healthyWithFindings.add(unit);
+            }
+        }
+        assertTrue(boxes.size() >= 20, "healthy analysed boxes: " + boxes.size());
+        assertTrue(healthyWithFindings.size() <= 0.05 * boxes.size(), "healthy boxes with findings: "
+                + healthyWithFindings);
     }
 
     @Test
