@@ -13,9 +13,11 @@ import org.tufa.analysis.features.UnitSignals;
  * <ul>
  *   <li>cooling and deadband, reheat shut: {@code supply_offset}, the discharge minus the AHU's supply air
  *       temperature (K). With the reheat shut the box only carries the air (a duct gain of a fraction of a kelvin);
- *       a rise is heat the coil passes while shut, a fall or rise a biased sensor.</li>
+ *       a rise is heat the coil passes while shut, a fall or rise a biased sensor. A box whose model does not link
+ *       it to its AHU's supply temperature gets {@code discharge_level} instead: the discharge against its own
+ *       median in the mode.</li>
  *   <li>reheat: {@code reheat_residual}, the discharge rise over the AHU's supply against the box's own rise at
- *       that valve command ({@link BinnedCurve}; K). The rise is Q / (rho cp V): the air-side sensible heat of
+ *       that valve command ({@link BinnedCurve}; K), over the zone where the AHU's supply is not known. The rise is Q / (rho cp V): the air-side sensible heat of
  *       ASHRAE Handbook Fundamentals.</li>
  *   <li>airflow (no discharge sensor needed): {@code airflow_error}, the measured airflow minus its setpoint in
  *       percent of the box's reference airflow; {@code damper_residual}, the damper opening minus the box's own
@@ -33,6 +35,10 @@ public final class VavFeatures {
     public static final String ZONE = "zone";
     public static final List<String> CLUSTERED_MODES = List.of(VavModes.COOLING, VavModes.DEADBAND,
             VavModes.REHEAT, AIRFLOW, ZONE);
+
+    /** The health feature of cooling and deadband with the AHU's supply temperature, and without it. */
+    public static final String SUPPLY_OFFSET = "supply_offset";
+    public static final String DISCHARGE_LEVEL = "discharge_level";
 
     /** Half window of the running median: 8 samples each side, 2 hours at 15 minutes (common practice, no source). */
     public static final int SMOOTHING_HALF_WINDOW = 8;
@@ -52,13 +58,12 @@ public final class VavFeatures {
             missing.add(UnitSignals.AIRFLOW);
         }
         switch (mode) {
-            case VavModes.COOLING, VavModes.DEADBAND -> {
-                need(s, missing, UnitSignals.DISCHARGE_AIR_TEMPERATURE);
-                need(s, missing, UnitSignals.AHU_SUPPLY_AIR_TEMPERATURE);
-            }
+            case VavModes.COOLING, VavModes.DEADBAND -> need(s, missing, UnitSignals.DISCHARGE_AIR_TEMPERATURE);
             case VavModes.REHEAT -> {
                 need(s, missing, UnitSignals.DISCHARGE_AIR_TEMPERATURE);
-                need(s, missing, UnitSignals.AHU_SUPPLY_AIR_TEMPERATURE);
+                if (!s.has(UnitSignals.AHU_SUPPLY_AIR_TEMPERATURE) && !s.has(UnitSignals.ZONE_AIR_TEMPERATURE)) {
+                    missing.add("ahu_supply_air_temperature or zone_air_temperature");
+                }
                 if (!VavPoints.hasReheat(s)) {
                     missing.add("reheat_command");
                 }
@@ -101,15 +106,30 @@ public final class VavFeatures {
         switch (mode) {
             case VavModes.COOLING, VavModes.DEADBAND -> {
                 double[] discharge = c.take(s.dischargeAirTemperature(), 1);
-                double[] supply = c.take(s.ahuSupplyAirTemperature(), 1);
-                c.health("supply_offset", "K", RollingMedian.of(minus(discharge, supply), SMOOTHING_HALF_WINDOW));
-                c.role("discharge_air_temperature", "degC", discharge);
-                c.role("ahu_supply_air_temperature", "degC", supply);
+                if (s.has(UnitSignals.AHU_SUPPLY_AIR_TEMPERATURE)) {
+                    double[] supply = c.take(s.ahuSupplyAirTemperature(), 1);
+                    c.health(SUPPLY_OFFSET, "K", RollingMedian.of(minus(discharge, supply), SMOOTHING_HALF_WINDOW));
+                    c.role("discharge_air_temperature", "degC", discharge);
+                    c.role("ahu_supply_air_temperature", "degC", supply);
+                } else {
+                    // Without the AHU's supply temperature: the discharge against the box's own median in the
+                    // mode. Weaker (the AHU's reset moves it by a kelvin or two), but a leak still stands out.
+                    double median = org.tufa.analysis.band.Quantiles.median(discharge);
+                    double[] level = new double[discharge.length];
+                    for (int k = 0; k < level.length; k++) {
+                        level[k] = discharge[k] - median;
+                    }
+                    c.health(DISCHARGE_LEVEL, "K", RollingMedian.of(level, SMOOTHING_HALF_WINDOW));
+                    c.role("discharge_air_temperature", "degC", discharge);
+                }
                 c.role("airflow_share", "%", airflowShare);
             }
             case VavModes.REHEAT -> {
                 double[] discharge = c.take(s.dischargeAirTemperature(), 1);
-                double[] supply = c.take(s.ahuSupplyAirTemperature(), 1);
+                // The rise over the air the coil receives: the AHU's supply, else the zone (the air a box without
+                // an AHU point is compared with; its own curve absorbs the difference).
+                double[] supply = c.take(s.has(UnitSignals.AHU_SUPPLY_AIR_TEMPERATURE) ? s.ahuSupplyAirTemperature()
+                        : s.zoneAirTemperature(), 1);
                 double[] command = c.take(VavPoints.reheat(s), 1);
                 double[] rise = minus(discharge, supply);
                 BinnedCurve curve = BinnedCurve.fit(command, rise, 0, 100, REHEAT_BIN_PERCENT, MIN_BIN_SAMPLES);
@@ -120,7 +140,8 @@ public final class VavFeatures {
                 c.health("reheat_residual", "K", RollingMedian.of(residual, SMOOTHING_HALF_WINDOW));
                 c.role("reheat_command", "%", command);
                 c.role("discharge_air_temperature", "degC", discharge);
-                c.role("ahu_supply_air_temperature", "degC", supply);
+                c.role(s.has(UnitSignals.AHU_SUPPLY_AIR_TEMPERATURE) ? "ahu_supply_air_temperature"
+                        : "zone_air_temperature", "degC", supply);
                 c.role("airflow_share", "%", airflowShare);
             }
             case AIRFLOW -> {

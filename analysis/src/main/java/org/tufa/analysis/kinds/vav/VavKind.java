@@ -74,8 +74,9 @@ public final class VavKind implements UnitKind {
         if (points.containsKey(UnitSignals.DISCHARGE_AIR_TEMPERATURE)
                 && !points.containsKey(UnitSignals.AHU_SUPPLY_AIR_TEMPERATURE)) {
             notes.add("ahu_supply_air_temperature: not found in the model (the box's air handler and its supply"
-                    + " air temperature, brick:feeds); cooling, deadband and reheat are judged as offsets from it,"
-                    + " so only the airflow and zone modes are analysed");
+                    + " air temperature, brick:feeds); cooling and deadband judge the discharge against the box's"
+                    + " own usual level instead (discharge_level), which the AHU's supply reset blurs, and reheat"
+                    + " judges its rise over the zone");
         }
         if (!points.containsKey(UnitSignals.AIRFLOW_SETPOINT)) {
             notes.add("airflow_setpoint: not found in the model; modes are read from the measured airflow and the"
@@ -185,6 +186,8 @@ public final class VavKind implements UnitKind {
                     TEMPERATURE_FLOOR, 0, true);
             case "reheat_residual" -> new HealthFeature(feature, HealthFeature.BOTH_SIDES, settings.residualGate(),
                     TEMPERATURE_FLOOR, 0, false);
+            case VavFeatures.DISCHARGE_LEVEL -> new HealthFeature(feature, HealthFeature.BOTH_SIDES,
+                    settings.residualGate(), TEMPERATURE_FLOOR, 0, false);
             default -> new HealthFeature(feature, HealthFeature.BOTH_SIDES, settings.residualGate(),
                     TEMPERATURE_FLOOR, 0, true);
         };

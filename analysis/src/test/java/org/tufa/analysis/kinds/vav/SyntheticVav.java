@@ -147,6 +147,19 @@ final class SyntheticVav {
                 .build();
     }
 
+    /** The box's signals without some roles (a model that lacks those points). */
+    UnitSignals signalsWithout(String... roles) {
+        UnitSignals all = signals();
+        UnitSignals.Builder b = UnitSignals.builder(START, STEP, n).nominalAirflow(MAX);
+        java.util.Set<String> drop = java.util.Set.of(roles);
+        for (String role : all.roles()) {
+            if (!drop.contains(role)) {
+                b.with(role, all.series(role));
+            }
+        }
+        return b.build();
+    }
+
     /** The same box as its airflow side alone: no discharge sensor, no reheat, no AHU point. */
     UnitSignals airflowSideOnly() {
         return UnitSignals.builder(START, STEP, n).nominalAirflow(MAX)

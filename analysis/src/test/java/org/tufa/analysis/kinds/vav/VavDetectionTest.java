@@ -122,6 +122,29 @@ class VavDetectionTest {
     }
 
     /**
+     * The same leak on a box whose model does not link it to its AHU: the discharge against the box's own usual
+     * level in the mode stands out by about the same 2.3 K (the synthetic AHU's supply moves by only +-0.5 K).
+     */
+    @Test
+    void leakingReheatValveOnABoxWithoutItsAhuPointRaisesTheDischargeLevel() {
+        SyntheticVav b = SyntheticVav.healthy(DAYS, 3);
+        int[] span = SyntheticVav.days(14, 21);
+        for (int i = span[0]; i < span[1]; i++) {
+            if (b.reheat[i] <= 0.5 && b.airflow[i] > 0.02) {
+                b.discharge[i] += SyntheticVav.effectiveness(15, SyntheticVav.NTU_DESIGN)
+                        * (SyntheticVav.HOT_WATER - b.supply[i] - SyntheticVav.DUCT_GAIN);
+            }
+        }
+        UnitAnalysis.Result res = run(b.signalsWithout(UnitSignals.AHU_SUPPLY_AIR_TEMPERATURE));
+        List<Finding> found = during(res, true).stream()
+                .filter(f -> (f.mode().equals(VavModes.COOLING) || f.mode().equals(VavModes.DEADBAND))
+                        && f.kind().equals("fault_cluster")).toList();
+        assertFalse(found.isEmpty(), describe(res));
+        assertEquals(2.3, shift(found.get(0), VavFeatures.DISCHARGE_LEVEL), 0.6, describe(res));
+        assertEquals(List.of(), during(res, false), describe(res));
+    }
+
+    /**
      * An airflow sensor reading 30 % high: the flow loop brings the reading to its setpoint, so the tracking error
      * stays near zero, but the true flow is the setpoint / 1.3 and the damper opens only that far: at the minimum
      * (share 0.237 of full open) the equal-percentage opening falls from 51 % to 43 %, about -8 %.
@@ -181,7 +204,7 @@ class VavDetectionTest {
         UnitAnalysis.Result r = run(SyntheticVav.healthy(DAYS, 6).airflowSideOnly());
         assertTrue(mode(r, VavFeatures.AIRFLOW).analyzed(), mode(r, VavFeatures.AIRFLOW).reason());
         assertTrue(mode(r, VavFeatures.ZONE).analyzed(), mode(r, VavFeatures.ZONE).reason());
-        assertEquals("missing discharge_air_temperature, ahu_supply_air_temperature",
+        assertEquals("missing discharge_air_temperature",
                 mode(r, VavModes.COOLING).reason());
         assertEquals(List.of(), r.findings(), describe(r));
     }
