@@ -20,7 +20,7 @@ import org.tufa.analysis.features.UnitSignals;
  *       that valve command ({@link BinnedCurve}; K), over the zone where the AHU's supply is not known. The rise is Q / (rho cp V): the air-side sensible heat of
  *       ASHRAE Handbook Fundamentals.</li>
  *   <li>airflow (no discharge sensor needed): {@code airflow_error}, the measured airflow minus its setpoint in
- *       percent of the box's reference airflow; {@code damper_residual}, the damper opening minus the box's own
+ *       percent of the setpoint (of the box's minimum at least); {@code damper_residual}, the damper opening minus the box's own
  *       opening at that airflow ({@link BinnedCurve}; %). A drifting flow sensor leaves the flow loop satisfied but
  *       moves the damper away from its usual opening; too little supply pressure opens it wider.</li>
  *   <li>zone: {@code zone_error}, how far the zone lies outside its band from the heating to the cooling setpoint
@@ -94,9 +94,10 @@ public final class VavFeatures {
     /**
      * Feature rows of the given samples (grid indices, ascending) in the mode.
      *
-     * @param reference the box's reference airflow, m3/s ({@link VavModes.Levels})
+     * @param levels the box's reference and minimum airflow ({@link VavModes.Levels})
      */
-    public static FeatureMatrix build(String mode, UnitSignals s, int[] samples, double reference) {
+    public static FeatureMatrix build(String mode, UnitSignals s, int[] samples, VavModes.Levels levels) {
+        double reference = levels.reference();
         String why = missingFor(mode, s);
         if (why != null) {
             throw new IllegalArgumentException(why);
@@ -153,8 +154,14 @@ public final class VavFeatures {
                 for (int k = 0; k < damper.length; k++) {
                     residual[k] = damper[k] - curve.at(airflowShare[k]);
                 }
-                c.health("airflow_error", "%", RollingMedian.of(minus(airflowShare, setpointShare),
-                        SMOOTHING_HALF_WINDOW));
+                // The tracking error relative to the setpoint, as flow alarms are set (a share of the setpoint),
+                // with the minimum as the smallest divisor so a setpoint near zero cannot blow it up.
+                double floor = 100 * levels.minimum() / reference;
+                double[] error = new double[airflowShare.length];
+                for (int k = 0; k < error.length; k++) {
+                    error[k] = 100 * (airflowShare[k] - setpointShare[k]) / Math.max(setpointShare[k], floor);
+                }
+                c.health("airflow_error", "%", RollingMedian.of(error, SMOOTHING_HALF_WINDOW));
                 c.health("damper_residual", "%", RollingMedian.of(residual, SMOOTHING_HALF_WINDOW));
                 c.role("airflow_share", "%", airflowShare);
                 c.role("airflow_setpoint_share", "%", setpointShare);

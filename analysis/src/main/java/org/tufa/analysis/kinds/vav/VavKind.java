@@ -37,7 +37,10 @@ public final class VavKind implements UnitKind {
             UnitSignals.AHU_SUPPLY_AIR_TEMPERATURE, UnitSignals.AHU_SUPPLY_STATIC_PRESSURE,
             UnitSignals.HOT_WATER_SUPPLY_TEMPERATURE, UnitSignals.OUTDOOR_AIR_TEMPERATURE);
 
-    /** Gate of the airflow tracking error: 10 % of the box's reference airflow (common practice, no source). */
+    /**
+     * Gate of the airflow tracking error: 10 % of the setpoint, about a flow sensor's accuracy over its range
+     * (common practice, no source; Guideline 36's low-flow alarms, from memory, sit at 70 % and 50 % of setpoint).
+     */
     static final double AIRFLOW_ERROR_GATE = 10.0;
     /**
      * Gate of the damper residual: 5 % of stroke, a few times an actuator's resolution and hysteresis (common
@@ -167,7 +170,7 @@ public final class VavKind implements UnitKind {
 
     @Override
     public FeatureMatrix features(String mode, UnitSignals s, int[] samples, ModeSplit modes) {
-        return VavFeatures.build(mode, s, samples, VavModes.levels(s).reference());
+        return VavFeatures.build(mode, s, samples, VavModes.levels(s));
     }
 
     /**
