@@ -255,9 +255,8 @@ public final class FleetAnalysis {
         }
         if (!detects(u)) {
             return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED,
-                    "no detection for " + (u.unitKind().equals(org.tufa.analysis.coverage.Profile.VAV) ? "VAV boxes"
-                            : "units of kind " + u.unitKind()) + " in this version (coverage: analysable with profile "
-                            + u.profileName() + ")", List.of(), null), null);
+                    "no detection for units of kind " + u.unitKind() + " in this version (coverage: analysable with"
+                            + " profile " + u.profileName() + ")", List.of(), null), null);
         }
         // Outside the try: a source that cannot be read (a database gone away, a value that is not a number) stops
         // the run with its one-line error instead of failing unit after unit.

@@ -319,6 +319,9 @@ public final class UnitPages implements UnitSink {
         add(temps, "zone air (degC)", s.zoneAirTemperature(), factor, Palette.BLUE, false);
         add(temps, "discharge air (degC)", s.dischargeAirTemperature(), factor, Palette.VERMILLION, false);
         add(temps, "zone setpoint (degC)", s.zoneSetpoint(), factor, Palette.BLACK, true);
+        add(temps, "cooling setpoint (degC)", s.zoneCoolingSetpoint(), factor, Palette.SKY_BLUE, true);
+        add(temps, "heating setpoint (degC)", s.zoneHeatingSetpoint(), factor, Palette.ORANGE, true);
+        add(temps, "AHU supply air (degC)", s.ahuSupplyAirTemperature(), factor, Palette.BLACK, false);
         strips.add(new Charts.Strip("temperature (degC)", temps));
         List<Charts.Line> commands = new ArrayList<>();
         add(commands, "cooling valve (%)", s.coolingValveCommand(), factor, Palette.SKY_BLUE, false);
@@ -328,7 +331,16 @@ public final class UnitPages implements UnitSink {
             fan[i] *= 100;
         }
         add(commands, "fan running (% of time)", fan, factor, Palette.BLUISH_GREEN, true);
+        // A VAV box's (absent on fan coil units, whose strips stay as they were).
+        add(commands, "damper position (%)", s.damperPosition(), factor, Palette.BLUE, false);
+        add(commands, "damper command (%)", s.damperCommand(), factor, Palette.BLUE, true);
+        add(commands, "reheat valve (%)", s.reheatValveCommand(), factor, Palette.ORANGE, false);
+        add(commands, "electric reheat (%)", s.electricReheatCommand(), factor, Palette.ORANGE, true);
         strips.add(new Charts.Strip("command (%)", commands));
+        List<Charts.Line> air = new ArrayList<>();
+        add(air, "airflow (L/s)", scaled(s.airflow(), 1000), factor, Palette.BLUISH_GREEN, false);
+        add(air, "airflow setpoint (L/s)", scaled(s.airflowSetpoint(), 1000), factor, Palette.BLACK, true);
+        strips.add(new Charts.Strip("airflow (L/s)", air));
         List<Charts.Line> load = new ArrayList<>();
         add(load, "sensible load (kW)", loadKw, factor, Palette.REDDISH_PURPLE, false);
         strips.add(new Charts.Strip("load (kW)", load));
@@ -343,6 +355,14 @@ public final class UnitPages implements UnitSink {
             k++;
         }
         return Charts.strips(name + ": signals and findings", times, strips, shades, zone);
+    }
+
+    private static double[] scaled(double[] values, double factor) {
+        double[] out = new double[values.length];
+        for (int i = 0; i < values.length; i++) {
+            out[i] = values[i] * factor;
+        }
+        return out;
     }
 
     private static void add(List<Charts.Line> lines, String name, double[] values, int factor, Color colour,
