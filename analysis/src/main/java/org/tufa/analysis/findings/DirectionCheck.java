@@ -45,6 +45,33 @@ public final class DirectionCheck {
         return r * expectedSign >= MIN_CORRELATION ? Outcome.AS_EXPECTED : Outcome.FAILS;
     }
 
+    /**
+     * The check on some rows of a feature matrix.
+     *
+     * @param rows      per row: in the group checked
+     * @param command   the column of the command (percent)
+     * @param discharge the column of the discharge temperature
+     */
+    public static Outcome check(org.tufa.analysis.features.FeatureMatrix f, boolean[] rows, String command,
+                                String discharge, boolean cooling) {
+        int c = f.indexOf(command);
+        int d = f.indexOf(discharge);
+        int size = 0;
+        for (boolean r : rows) {
+            size += r ? 1 : 0;
+        }
+        double[] v = new double[size];
+        double[] t = new double[size];
+        int k = 0;
+        for (int i = 0; i < rows.length; i++) {
+            if (rows[i]) {
+                v[k] = f.rows()[i][c];
+                t[k++] = f.rows()[i][d];
+            }
+        }
+        return check(v, t, cooling);
+    }
+
     /** Pearson's product-moment correlation; 0 when either series is constant. */
     static double pearson(double[] x, double[] y) {
         int n = x.length;

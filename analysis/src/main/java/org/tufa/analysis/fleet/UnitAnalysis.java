@@ -32,6 +32,7 @@ import org.tufa.analysis.findings.NormalReference;
 import org.tufa.analysis.findings.Shift;
 import org.tufa.analysis.modes.ModeSplit;
 import org.tufa.analysis.kinds.HealthFeature;
+import org.tufa.analysis.kinds.Masks;
 import org.tufa.analysis.kinds.RuleChannel;
 import org.tufa.analysis.kinds.UnitKind;
 import org.tufa.analysis.significance.ScanStatistic;
@@ -584,25 +585,10 @@ public final class UnitAnalysis {
     }
 
     private static int[] indices(boolean[] mask) {
-        int count = 0;
-        for (boolean b : mask) {
-            count += b ? 1 : 0;
-        }
-        int[] idx = new int[count];
-        int k = 0;
-        for (int i = 0; i < mask.length; i++) {
-            if (mask[i]) {
-                idx[k++] = i;
-            }
-        }
-        return idx;
+        return Masks.indices(mask);
     }
 
     private static int[] indices(boolean[] keep, boolean[] inMode) {
-        boolean[] both = new boolean[keep.length];
-        for (int i = 0; i < keep.length; i++) {
-            both[i] = keep[i] && inMode[i];
-        }
-        return indices(both);
+        return Masks.indices(Masks.and(keep, inMode));
     }
 }

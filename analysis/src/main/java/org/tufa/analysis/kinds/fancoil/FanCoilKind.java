@@ -19,6 +19,7 @@ import org.tufa.analysis.findings.DirectionCheck;
 import org.tufa.analysis.findings.ModeHunting;
 import org.tufa.analysis.fleet.AnalysisSettings;
 import org.tufa.analysis.kinds.HealthFeature;
+import org.tufa.analysis.kinds.Masks;
 import org.tufa.analysis.kinds.RuleChannel;
 import org.tufa.analysis.kinds.UnitKind;
 import org.tufa.analysis.load.SensibleLoad;
@@ -193,22 +194,8 @@ public final class FanCoilKind implements UnitKind {
             return null;
         }
         boolean cooling = mode.equals("cooling");
-        int valve = f.indexOf(cooling ? "cooling_valve_command" : "heating_valve_command");
-        int discharge = f.indexOf("discharge_air_temperature");
-        int size = 0;
-        for (boolean r : rows) {
-            size += r ? 1 : 0;
-        }
-        double[] v = new double[size];
-        double[] d = new double[size];
-        int k = 0;
-        for (int i = 0; i < rows.length; i++) {
-            if (rows[i]) {
-                v[k] = f.rows()[i][valve];
-                d[k++] = f.rows()[i][discharge];
-            }
-        }
-        return DirectionCheck.check(v, d, cooling);
+        return DirectionCheck.check(f, rows, cooling ? "cooling_valve_command" : "heating_valve_command",
+                "discharge_air_temperature", cooling);
     }
 
     /**
@@ -349,7 +336,7 @@ public final class FanCoilKind implements UnitKind {
                 new Rule(OperatingMode.VENTILATION, "ventilation_offset", 2 * eps))) {
             boolean[] in = rule.mode() == OperatingMode.VENTILATION ? steadyVentilation(modes, s)
                     : modes.mask(rule.mode());
-            int[] idx = indices(in);
+            int[] idx = Masks.indices(in);
             double[] difference = new double[idx.length];
             for (int k = 0; k < idx.length; k++) {
                 difference[k] = s.dischargeAirTemperature()[idx[k]] - s.zoneAirTemperature()[idx[k]];
@@ -413,20 +400,5 @@ public final class FanCoilKind implements UnitKind {
             out[i] = running(modes.at(i)) || modes.at(i) == OperatingMode.TRANSITION;
         }
         return out;
-    }
-
-    private static int[] indices(boolean[] mask) {
-        int count = 0;
-        for (boolean b : mask) {
-            count += b ? 1 : 0;
-        }
-        int[] idx = new int[count];
-        int k = 0;
-        for (int i = 0; i < mask.length; i++) {
-            if (mask[i]) {
-                idx[k++] = i;
-            }
-        }
-        return idx;
     }
 }

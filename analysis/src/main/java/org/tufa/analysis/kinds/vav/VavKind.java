@@ -11,6 +11,7 @@ import org.tufa.analysis.features.UnitSignals;
 import org.tufa.analysis.findings.DirectionCheck;
 import org.tufa.analysis.fleet.AnalysisSettings;
 import org.tufa.analysis.kinds.HealthFeature;
+import org.tufa.analysis.kinds.Masks;
 import org.tufa.analysis.kinds.RuleChannel;
 import org.tufa.analysis.kinds.UnitKind;
 import org.tufa.analysis.load.SensibleLoad;
@@ -133,8 +134,8 @@ public final class VavKind implements UnitKind {
         return switch (mode) {
             case VavModes.COOLING, VavModes.DEADBAND -> reheatSettled(modes.mask(mode), s);
             case VavModes.REHEAT -> modes.mask(mode);
-            case VavFeatures.AIRFLOW -> and(VavModes.occupied(s, modes), VavRules.on(modes));
-            case VavFeatures.ZONE -> and(VavRules.recovered(VavModes.occupied(s, modes)), VavRules.on(modes));
+            case VavFeatures.AIRFLOW -> Masks.and(VavModes.occupied(s, modes), VavRules.on(modes));
+            case VavFeatures.ZONE -> Masks.and(VavRules.recovered(VavModes.occupied(s, modes)), VavRules.on(modes));
             default -> throw new IllegalArgumentException("no VAV mode " + mode);
         };
     }
@@ -150,14 +151,6 @@ public final class VavKind implements UnitKind {
         for (int i = 0; i < in.length; i++) {
             since = reheat[i] > 0.5 ? 0 : since + 1;
             out[i] = in[i] && since > recovery;
-        }
-        return out;
-    }
-
-    private static boolean[] and(boolean[] a, boolean[] b) {
-        boolean[] out = new boolean[a.length];
-        for (int i = 0; i < a.length; i++) {
-            out[i] = a[i] && b[i];
         }
         return out;
     }
@@ -202,22 +195,7 @@ public final class VavKind implements UnitKind {
         if (!mode.equals(VavModes.REHEAT)) {
             return null;
         }
-        int command = f.indexOf("reheat_command");
-        int discharge = f.indexOf("discharge_air_temperature");
-        int size = 0;
-        for (boolean r : rows) {
-            size += r ? 1 : 0;
-        }
-        double[] v = new double[size];
-        double[] d = new double[size];
-        int k = 0;
-        for (int i = 0; i < rows.length; i++) {
-            if (rows[i]) {
-                v[k] = f.rows()[i][command];
-                d[k++] = f.rows()[i][discharge];
-            }
-        }
-        return DirectionCheck.check(v, d, false);
+        return DirectionCheck.check(f, rows, "reheat_command", "discharge_air_temperature", false);
     }
 
     @Override
