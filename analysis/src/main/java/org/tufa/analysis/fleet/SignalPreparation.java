@@ -95,12 +95,7 @@ public final class SignalPreparation {
      */
     private static double[] airflow(UnitInputs inputs, String role, SeriesSource source, int length,
                                     List<String> notes) {
-        double[] v = raw(inputs, role, source, length, notes);
-        if (!UnitSignals.present(v)) {
-            return v;
-        }
-        PointRef p = inputs.points().get(role);
-        double factor = switch (localName(p.unitOfMeasureIri())) {
+        return converted(inputs, role, source, length, notes, (p, v) -> switch (localName(p.unitOfMeasureIri())) {
             case "M3-PER-SEC" -> 1.0;
             case "L-PER-SEC" -> 0.001;
             case "FT3-PER-MIN" -> 0.0004719474;
@@ -113,24 +108,37 @@ public final class SignalPreparation {
                         + " unit:M3-PER-SEC) to the point", role, p.label(), litres ? "L/s" : "m3/s", median));
                 yield litres ? 0.001 : 1.0;
             }
-        };
-        return scaled(v, factor);
+        });
     }
 
     /** Static pressure in Pa: 1 inch of water (conventional) = 249.0889 Pa (NIST SP 811 (2008), appendix B.8). */
     private static double[] pressure(UnitInputs inputs, String role, SeriesSource source, int length,
                                      List<String> notes) {
+        return converted(inputs, role, source, length, notes, (p, v) -> switch (localName(p.unitOfMeasureIri())) {
+            case "PA" -> 1.0;
+            case "IN_H2O" -> 249.0889;
+            case "KILOPA" -> 1000.0;
+            default -> {
+                notes.add(role + ": the model gives no pressure unit tufa reads for " + p.label() + "; read as Pa;"
+                        + " add brick:hasUnit (unit:PA or unit:IN_H2O) to the point");
+                yield 1.0;
+            }
+        });
+    }
+
+    /** The factor to a role's canonical unit, from its point and its values (which a guess may look at). */
+    @FunctionalInterface
+    private interface Factor {
+        double of(PointRef point, double[] values);
+    }
+
+    private static double[] converted(UnitInputs inputs, String role, SeriesSource source, int length,
+                                      List<String> notes, Factor factor) {
         double[] v = raw(inputs, role, source, length, notes);
         if (!UnitSignals.present(v)) {
             return v;
         }
-        PointRef p = inputs.points().get(role);
-        double factor = switch (localName(p.unitOfMeasureIri())) {
-            case "IN_H2O" -> 249.0889;
-            case "KILOPA" -> 1000.0;
-            default -> 1.0;
-        };
-        return scaled(v, factor);
+        return scaled(v, factor.of(inputs.points().get(role), v));
     }
 
     private static String localName(String iri) {
