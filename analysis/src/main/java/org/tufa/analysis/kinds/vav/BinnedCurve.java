@@ -6,7 +6,9 @@ import java.util.Arrays;
  * A unit's own response curve y(x) as the median of y in bins of x: a damper's opening against the airflow it
  * passes, a reheat coil's discharge rise against its valve command. No shape is assumed (damper and valve
  * characteristics are neither linear nor known), and the median keeps a minority of faulty samples from bending
- * the curve (Tukey, Exploratory Data Analysis, 1977, resistant smoothing by medians of groups).
+ * the curve (Tukey, Exploratory Data Analysis, 1977, resistant smoothing by medians of groups). Fitted by groups
+ * (days), each bin's value is the median of its days' medians: a fault that holds a unit at some x for hours a
+ * day during two weeks then weighs two weeks of days there, not all of its samples, against the normal days.
  *
  * @param lower     lower edge of bin 0
  * @param width     bin width
@@ -24,6 +26,20 @@ public record BinnedCurve(double lower, double width, double[] medians) {
      * @param minCount fewest pairs a bin needs for a median of its own
      */
     public static BinnedCurve fit(double[] x, double[] y, double lower, double upper, double width, int minCount) {
+        return fit(x, y, null, lower, upper, width, minCount);
+    }
+
+    /**
+     * The curve of the finite (x, y) pairs by groups: per bin, the median over the groups of each group's median.
+     *
+     * @param group    per pair its group (a day), non-decreasing; null for one group per pair
+     * @param minCount fewest pairs a bin needs for a median of its own (counted over all groups)
+     */
+    public static BinnedCurve fit(double[] x, double[] y, int[] group, double lower, double upper, double width,
+                                  int minCount) {
+        if (group != null) {
+            return byGroups(x, y, group, lower, upper, width, minCount);
+        }
         if (x.length != y.length) {
             throw new IllegalArgumentException("x and y differ in length");
         }
@@ -61,6 +77,42 @@ public record BinnedCurve(double lower, double width, double[] medians) {
             Arrays.sort(v);
             int n = v.length;
             medians[b] = n % 2 == 1 ? v[n / 2] : 0.5 * (v[n / 2 - 1] + v[n / 2]);
+        }
+        return new BinnedCurve(lower, width, medians);
+    }
+
+    private static BinnedCurve byGroups(double[] x, double[] y, int[] group, double lower, double upper,
+                                        double width, int minCount) {
+        if (x.length != y.length || x.length != group.length) {
+            throw new IllegalArgumentException("x, y and groups differ in length");
+        }
+        BinnedCurve counts = fit(x, y, lower, upper, width, minCount);
+        int bins = counts.medians.length;
+        java.util.List<java.util.List<Double>> dayMedians = new java.util.ArrayList<>();
+        for (int b = 0; b < bins; b++) {
+            dayMedians.add(new java.util.ArrayList<>());
+        }
+        int i = 0;
+        while (i < x.length) {
+            int j = i;
+            while (j < x.length && group[j] == group[i]) {
+                j++;
+            }
+            BinnedCurve day = fit(java.util.Arrays.copyOfRange(x, i, j), java.util.Arrays.copyOfRange(y, i, j),
+                    lower, upper, width, 1);
+            for (int b = 0; b < bins; b++) {
+                if (!Double.isNaN(day.medians[b])) {
+                    dayMedians.get(b).add(day.medians[b]);
+                }
+            }
+            i = j;
+        }
+        double[] medians = new double[bins];
+        for (int b = 0; b < bins; b++) {
+            double[] v = dayMedians.get(b).stream().mapToDouble(Double::doubleValue).sorted().toArray();
+            int n = v.length;
+            medians[b] = Double.isNaN(counts.medians[b]) || n == 0 ? Double.NaN
+                    : n % 2 == 1 ? v[n / 2] : 0.5 * (v[n / 2 - 1] + v[n / 2]);
         }
         return new BinnedCurve(lower, width, medians);
     }

@@ -133,7 +133,8 @@ public final class VavFeatures {
                         : s.zoneAirTemperature(), 1);
                 double[] command = c.take(VavPoints.reheat(s), 1);
                 double[] rise = minus(discharge, supply);
-                BinnedCurve curve = BinnedCurve.fit(command, rise, 0, 100, REHEAT_BIN_PERCENT, MIN_BIN_SAMPLES);
+                BinnedCurve curve = BinnedCurve.fit(command, rise, c.days(s), 0, 100, REHEAT_BIN_PERCENT,
+                        MIN_BIN_SAMPLES);
                 double[] residual = new double[rise.length];
                 for (int k = 0; k < rise.length; k++) {
                     residual[k] = rise[k] - curve.at(command[k]);
@@ -148,7 +149,7 @@ public final class VavFeatures {
             case AIRFLOW -> {
                 double[] setpointShare = c.take(s.airflowSetpoint(), 100 / reference);
                 double[] damper = c.take(VavPoints.damper(s), 1);
-                BinnedCurve curve = BinnedCurve.fit(airflowShare, damper, 0, 150, AIRFLOW_BIN_PERCENT,
+                BinnedCurve curve = BinnedCurve.fit(airflowShare, damper, c.days(s), 0, 150, AIRFLOW_BIN_PERCENT,
                         MIN_BIN_SAMPLES);
                 double[] residual = new double[damper.length];
                 for (int k = 0; k < damper.length; k++) {
@@ -219,6 +220,16 @@ public final class VavFeatures {
 
         Columns(int[] samples) {
             this.samples = samples;
+        }
+
+        /** The day of each sample on the grid (24-hour blocks from the grid's start): the curves' groups. */
+        int[] days(UnitSignals s) {
+            long perDay = Math.max(1, java.time.Duration.ofDays(1).toMillis() / s.interval().toMillis());
+            int[] out = new int[samples.length];
+            for (int k = 0; k < samples.length; k++) {
+                out[k] = (int) (samples[k] / perDay);
+            }
+            return out;
         }
 
         double[] take(double[] series, double scale) {

@@ -22,4 +22,16 @@ class BinnedCurveTest {
         assertEquals(22, c.at(35), 1e-12);
         assertTrue(Double.isNaN(c.at(Double.NaN)));
     }
+
+    @Test
+    void byDaysAFaultHoldingManySamplesInABinWeighsItsDaysOnly() {
+        // Bin 0 (x in [0, 10)): three normal days with one pair each at y = 10, 11, 12, and one fault day with
+        // five pairs at y = 30. By samples the median of {10, 11, 12, 30, 30, 30, 30, 30} is 30; by days the
+        // median of the day medians {10, 11, 12, 30} is 11.5.
+        double[] x = {1, 2, 3, 4, 4, 4, 4, 4};
+        double[] y = {10, 11, 12, 30, 30, 30, 30, 30};
+        int[] day = {0, 1, 2, 3, 3, 3, 3, 3};
+        assertEquals(30, BinnedCurve.fit(x, y, 0, 10, 10, 3).at(5), 1e-12);
+        assertEquals(11.5, BinnedCurve.fit(x, y, day, 0, 10, 10, 3).at(5), 1e-12);
+    }
 }
