@@ -50,11 +50,11 @@ public final class FleetPage {
         confidence(b, result);
         ranking(b, units);
         fleetFindings(b, result, zone);
-        findings(b, units, zone);
+        findings(b, result, zone);
         Html.caution(b);
         unitTable(b, units);
         coverageMatrix(b, coverage, byUnit);
-        Html.close(b);
+        Html.close(b, units.stream().anyMatch(u -> !u.findings().isEmpty()) ? ReviewControls.SCRIPT : "");
         return b.toString();
     }
 
@@ -172,18 +172,23 @@ public final class FleetPage {
                 .append("\">").append(Html.fixed(v, decimals)).append("</td>");
     }
 
-    private static void findings(StringBuilder b, List<UnitOutcome> units, ZoneId zone) {
+    private static void findings(StringBuilder b, FleetAnalysis.Result result, ZoneId zone) {
+        List<UnitOutcome> units = result.units();
         b.append("<h2>Findings</h2>\n");
+        org.tufa.analysis.fleet.FleetReport.reviewLines(result.review(), units)
+                .forEach(l -> b.append("<p class=\"small\">").append(Html.esc(l.strip())).append("</p>\n"));
         if (units.stream().allMatch(u -> u.findings().isEmpty())) {
             b.append("<p>No findings.</p>\n");
             return;
         }
+        ReviewControls.toolbar(b, result, zone);
         b.append("<p>Click a column header to sort (needs JavaScript; without it the table stays in unit and time "
                 + "order). Details, charts and candidate causes on each unit's page.</p>\n"
                 + "<table class=\"sortable\">\n<thead><tr><th>unit</th><th class=\"num\">confidence</th>"
                 + "<th>mode</th><th>kind</th><th>cluster</th>"
                 + "<th>start</th><th>end</th><th class=\"num\">hours</th><th class=\"num\">energy (kWh)</th>"
-                + "<th>evidence</th><th>shift from normal</th><th>candidate causes</th></tr></thead>\n<tbody>\n");
+                + "<th>evidence</th><th>shift from normal</th><th>candidate causes</th><th>id</th>"
+                + "<th>review: verdict, cause, note</th></tr></thead>\n<tbody>\n");
         for (UnitOutcome u : units) {
             for (Finding f : u.findings()) {
                 b.append("<tr><td>").append(link(u)).append("</td>");
@@ -198,7 +203,8 @@ public final class FleetPage {
                 num(b, f.energyKwh(), 1);
                 b.append("<td>").append(Html.esc(f.evidence())).append("</td><td>").append(Html.shifts(f.shifts()))
                         .append("</td><td>").append(Html.esc(String.join(" | ", f.causes())))
-                        .append("</td></tr>\n");
+                        .append("</td><td><code>").append(u.mark(f).findingId()).append("</code></td>")
+                        .append(ReviewControls.cell(u, f, zone)).append("</tr>\n");
             }
         }
         b.append("</tbody>\n</table>\n");
