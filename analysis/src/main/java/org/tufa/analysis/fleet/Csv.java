@@ -66,7 +66,7 @@ public final class Csv {
     }
 
     /** A decimal that parses back to the same double (Double.toString); inf/-inf/nan as numpy and pandas read them. */
-    static String number(double v) {
+    public static String number(double v) {
         if (Double.isNaN(v)) {
             return "nan";
         }

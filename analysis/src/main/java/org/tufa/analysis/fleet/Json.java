@@ -111,6 +111,7 @@ final class Json {
         j.addProperty("samples_clustered", m.samplesClustered());
         j.add("features", strings(m.features()));
         j.add("feature_units", strings(m.featureUnits()));
+        j.add("health_features", strings(m.healthFeatures()));
         ModeSummary.Pca pca = m.pca();
         JsonObject p = new JsonObject();
         p.addProperty("components", pca.components());

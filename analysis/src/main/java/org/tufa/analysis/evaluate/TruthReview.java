@@ -1,0 +1,91 @@
+package org.tufa.analysis.evaluate;
+
+import java.time.Duration;
+import java.time.Instant;
+import java.time.LocalDate;
+import java.time.ZoneId;
+import java.util.ArrayList;
+import java.util.List;
+import org.tufa.analysis.labels.AnalysisFolder;
+import org.tufa.analysis.review.Verdict;
+
+/**
+ * The review an analyst who knew the demo's ground truth would write: every listed finding that overlaps an injected
+ * fault episode of its unit is confirmed, with that fault's name as the cause (the episode it overlaps most, when
+ * several); every other finding is rejected as normal operation. Pure.
+ */
+public final class TruthReview {
+
+    /** The reviewer named in the derived file. */
+    public static final String REVIEWER = "demo (from the simulator's ground truth)";
+
+    private TruthReview() {
+    }
+
+    /** The verdicts, one per finding, in the findings' order; dated the day after the last finding ends. */
+    public static List<Verdict> fit(List<AnalysisFolder.Listed> findings, List<TruthEpisode> truth, ZoneId zone) {
+        Instant last = findings.stream().map(AnalysisFolder.Listed::end).max(Instant::compareTo).orElse(Instant.EPOCH);
+        LocalDate date = last.atZone(zone).toLocalDate().plusDays(1);
+        List<Verdict> out = new ArrayList<>();
+        for (AnalysisFolder.Listed f : findings) {
+            TruthEpisode best = null;
+            long bestOverlap = 0;
+            for (TruthEpisode e : truth) {
+                if (!e.unit().equals(f.unit())) {
+                    continue;
+                }
+                Instant s = f.start().isAfter(e.start()) ? f.start() : e.start();
+                Instant en = f.end().isBefore(e.end()) ? f.end() : e.end();
+                long overlap = Duration.between(s, en).toSeconds();
+                if (overlap > bestOverlap) {
+                    bestOverlap = overlap;
+                    best = e;
+                }
+            }
+            Verdict.Decision d = best == null ? Verdict.Decision.REJECTED : Verdict.Decision.CONFIRMED;
+            String note = best == null ? "no injected fault on this unit at this time"
+                    : "overlaps the injected " + best.fault() + " episode from " + best.start() + " to " + best.end();
+            out.add(new Verdict(0, f.unit(), f.mode(), f.kind(), f.start(), f.end(), f.id(), d,
+                    best == null ? "" : best.fault(), note, REVIEWER, date));
+        }
+        return out;
+    }
+
+    /**
+     * How a re-run honoured a review: of its listed findings, those with the mode and kind of a rejected verdict of
+     * their unit that overlap its period (the target is none), and those that overlap a rejected period in another
+     * mode or kind (shown with both).
+     */
+    public record Honoured(int rejected, int flaggedAgain, int overlapOtherKind) {
+    }
+
+    public static Honoured honoured(List<Verdict> verdicts, List<AnalysisFolder.Listed> rerun) {
+        int again = 0;
+        int other = 0;
+        int rejected = 0;
+        for (Verdict v : verdicts) {
+            if (v.decision() != Verdict.Decision.REJECTED) {
+                continue;
+            }
+            rejected++;
+        }
+        for (AnalysisFolder.Listed f : rerun) {
+            boolean same = false;
+            boolean near = false;
+            for (Verdict v : verdicts) {
+                if (v.decision() != Verdict.Decision.REJECTED || !v.unit().equals(f.unit())
+                        || !v.overlaps(f.start(), f.end())) {
+                    continue;
+                }
+                if (v.mode().equals(f.mode()) && v.kind().equals(f.kind())) {
+                    same = true;
+                } else {
+                    near = true;
+                }
+            }
+            again += same ? 1 : 0;
+            other += !same && near ? 1 : 0;
+        }
+        return new Honoured(rejected, again, other);
+    }
+}
