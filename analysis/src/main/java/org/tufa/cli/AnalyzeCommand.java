@@ -31,6 +31,7 @@ import org.tufa.analysis.report.UnitPages;
 import org.tufa.analysis.review.KnownUnits;
 import org.tufa.analysis.review.ReviewFile;
 import org.tufa.analysis.review.Verdict;
+import org.tufa.analysis.tables.SampleFormat;
 import org.tufa.analysis.trends.TimeOptions;
 import java.nio.file.Files;
 import org.tufa.common.InputException;
@@ -55,10 +56,22 @@ public final class AnalyzeCommand implements Callable<Integer> {
     @Mixin
     FleetModelOptions fleet;
 
-    @Option(names = "--trends", required = true, paramLabel = "PATH", split = ",",
+    @Option(names = "--trends", required = true, paramLabel = "PATH|URL",
             description = "Trend CSV files (long timestamp,point,value or wide timestamp,<series>...), .csv.gz, "
-                    + "or folders of them. Repeatable.")
-    List<Path> trends = new ArrayList<>();
+                    + "or folders of them (repeatable); or one PostgreSQL database, jdbc:postgresql://host:port/db "
+                    + "(login from TUFA_DB_USER and TUFA_DB_PASSWORD or --db-login; layout from --historian).")
+    List<String> trends = new ArrayList<>();
+
+    @Option(names = "--historian", paramLabel = "FILE",
+            description = "With a database: its layout (long table or one table per series), table and column "
+                    + "names, as key = value lines (README, 'Trends from a database'). Default: a long table "
+                    + "trend_samples(series_id, ts, value).")
+    Path historian;
+
+    @Option(names = "--db-login", paramLabel = "FILE",
+            description = "With a database: a file of 'user = ...' and 'password = ...' lines, instead of the "
+                    + "environment variables TUFA_DB_USER and TUFA_DB_PASSWORD.")
+    Path dbLogin;
 
     @Option(names = "--out", required = true, paramLabel = "DIR", description = "Output directory.")
     Path out;
@@ -124,6 +137,11 @@ public final class AnalyzeCommand implements Callable<Integer> {
     @Option(names = "--strict", description = "Stop at the first unparsable trend value instead of counting it.")
     boolean strict;
 
+    @Option(names = "--sample-files", paramLabel = "FORMAT", defaultValue = "parquet",
+            description = "Per-sample tables under DIR/units/ (modes, features, scores, reachability): parquet "
+                    + "(compressed, typed; pandas, DuckDB, Spark read it) or csv, same columns (default: ${DEFAULT-VALUE}).")
+    String sampleFiles;
+
     @Option(names = "--min-confidence", paramLabel = "C", defaultValue = "0.9",
             description = "List findings with at least this confidence, 1 minus the false-discovery rate at which "
                     + "the finding holds (default: ${DEFAULT-VALUE}); the others are counted, not listed. 0 lists "
@@ -160,6 +178,12 @@ public final class AnalyzeCommand implements Callable<Integer> {
             throw new InputException("--valve-open must be 0..100, --fan-on in (0, 1] and --settling >= 0; got "
                     + valveOpen + ", " + fanOn + ", " + settling);
         }
+        SampleFormat sampleFormat;
+        try {
+            sampleFormat = SampleFormat.fromName(sampleFiles);
+        } catch (IllegalArgumentException e) {
+            throw new InputException("--sample-files: '" + sampleFiles + "' is not a format; use parquet or csv");
+        }
         if (minPts < 2 || !(variance > 0 && variance <= 1) || !(xi > 0 && xi < 1)) {
             throw new InputException("--min-pts must be >= 2, --variance in (0, 1] and --xi in (0, 1); got "
                     + minPts + ", " + variance + ", " + xi);
@@ -177,11 +201,12 @@ public final class AnalyzeCommand implements Callable<Integer> {
                 .withDayZone(zone)
                 .withDecision(new AnalysisSettings.DecisionSettings(minConfidence, d.minPeerDeviation(),
                         d.minPeers(), d.fleetWideP(), d.minFleetUnits()));
-        checkOutputs();
+        TrendInput input = TrendInput.of(trends, historian, dbLogin);
+        checkOutputs(input);
         HeapWatch heap = HeapWatch.start();
         FleetModelOptions.Assessed assessed = fleet.assess();
         if (assessed.coverage().units().isEmpty()) {
-            stdout.println("Nothing to analyse in " + fleet.model + ": no terminal units of the requested classes.");
+            stdout.println("Nothing to analyse in " + fleet.source() + ": no terminal units of the requested classes.");
             stdout.flush();
             heap.stop();
             return ExitCodes.CHECK_FAILED;
@@ -190,24 +215,32 @@ public final class AnalyzeCommand implements Callable<Integer> {
         ProgressBar bar = new ProgressBar(stderr, "units");
         long start = System.nanoTime();
         List<UnitSink> sinks = new ArrayList<>();
-        sinks.add(new UnitFiles(out, zone));
+        sinks.add(new UnitFiles(out, zone, sampleFormat));
         if (!noReport) {
             sinks.add(new UnitPages(out, zone)); // charts and unit pages render in the worker threads
         }
-        FleetAnalysis.Result result = FleetAnalysis.run(assessed.coverage(), trends, time, settings, verdicts,
-                threads, sinks, bar::update);
+        FleetAnalysis.Result result = FleetAnalysis.run(assessed.coverage(), input.opener(assessed.coverage()), time,
+                settings, verdicts, threads, sinks, bar::update);
         CoverageFiles.write(assessed.coverage(), out);
         List<Path> inputs = new ArrayList<>();
-        inputs.add(fleet.model);
-        inputs.addAll(trends);
+        if (fleet.model != null) {
+            inputs.add(fleet.model);
+        }
+        inputs.addAll(input.files());
         if (review != null) {
             inputs.add(review);
         }
-        FleetOutputs.write(out, result, zone, parameters(settings, time, zone), inputs);
+        Map<String, Object> parameters = parameters(settings, time, zone);
+        parameters.putAll(input.parameters());
+        if (fleet.store != null) {
+            parameters.put("model_store", fleet.store.toString());
+            parameters.put("model_graph", fleet.graph == null ? "" : fleet.graph);
+        }
+        FleetOutputs.write(out, result, zone, parameters, inputs);
         Path report = noReport ? null : FleetPage.write(FleetPage.reportDir(out), result, assessed.coverage(), zone);
         FleetReport.summary(result, assessed.coverage(), out, minConfidence).forEach(stdout::println);
         if (report != null) {
-            stdout.println("Report: " + report);
+            stdout.println("Report: " + report + " (" + FleetPage.describeSize(FleetPage.reportDir(out)) + ")");
         }
         stderr.printf(java.util.Locale.ROOT, "time: %.1f s wall; per stage (summed over threads): %s; %s%n",
                 (System.nanoTime() - start) / 1e9, result.times().summary(), heap.stop());
@@ -215,11 +248,16 @@ public final class AnalyzeCommand implements Callable<Integer> {
         boolean anyDetection = assessed.coverage().units().stream().anyMatch(u -> u.analyzable()
                 && u.unitKind().equals(org.tufa.analysis.coverage.Profile.FAN_COIL));
         if (result.ingest().samplesKept() == 0 && anyDetection) {
-            stderr.println("tufa: " + nothingKept(result.ingest(), time));
+            // A database is asked for the model's series only, so it has no unknown series to count: no row at all
+            // means its series ids are not the model's.
+            boolean noDatabaseRows = input.database() != null && result.ingest().rows() == 0;
+            stderr.println("tufa: " + (noDatabaseRows ? "the database (" + input.database().where() + ") holds no "
+                    + "row of any series of the model: its series ids must be the points' ref:hasTimeseriesId "
+                    + "values (or their labels when the model has none)" : nothingKept(result.ingest(), time)));
             stderr.flush();
-            return result.ingest().unknownSeriesSamples() >= Math.max(result.ingest().unparsableTimestamps(),
-                    result.ingest().samplesOutsideWindow()) && result.ingest().unknownSeriesSamples() > 0
-                    ? ExitCodes.CHECK_FAILED : ExitCodes.INPUT_ERROR;
+            return noDatabaseRows || result.ingest().unknownSeriesSamples() >= Math.max(
+                    result.ingest().unparsableTimestamps(), result.ingest().samplesOutsideWindow())
+                    && result.ingest().unknownSeriesSamples() > 0 ? ExitCodes.CHECK_FAILED : ExitCodes.INPUT_ERROR;
         }
         stderr.flush();
         return ExitCodes.OK;
@@ -229,7 +267,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
      * Refuses, before anything is read or written, an --out that is a file and inputs that the run would overwrite:
      * a file named like one of the fleet files in DIR, or anything under DIR/units or DIR/report.
      */
-    private void checkOutputs() {
+    private void checkOutputs(TrendInput input) {
         OutputFiles.checkFolder("--out", out);
         Map<String, Path> inputs = new LinkedHashMap<>(fleet.inputs());
         if (causes != null) {
@@ -238,7 +276,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
         if (review != null) {
             inputs.put("--review", review);
         }
-        for (Path t : trends) {
+        for (Path t : input.files()) {
             if (Files.isDirectory(t)) {
                 if (OutputFiles.canonical(t).equals(OutputFiles.canonical(out))) {
                     throw InputException.in(t, "--trends names the --out folder; the run writes its CSV files there "
@@ -375,6 +413,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
         p.put("day_zone", s.dayZone().getId());
         p.put("min_day_deviation", s.minDayDeviation());
         p.put("max_episode_window_days", s.maxEpisodeWindowDays());
+        p.put("min_episode_days", s.minEpisodeDays());
         p.put("min_confidence", s.decision().minConfidence());
         p.put("min_peer_deviation", s.decision().minPeerDeviation());
         p.put("min_peers", s.decision().minPeers());
@@ -383,6 +422,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
         p.put("causes", causes == null ? "built-in" : causes.toString());
         p.put("strict", strict);
         p.put("review", review == null ? "none" : review.toString());
+        p.put("sample_files", sampleFiles.toLowerCase(java.util.Locale.ROOT));
         return p;
     }
 

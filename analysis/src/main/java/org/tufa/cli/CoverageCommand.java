@@ -45,7 +45,7 @@ public final class CoverageCommand implements Callable<Integer> {
         FleetCoverage coverage = assessed.coverage();
         CoverageSummary.lines(coverage, assessed.prefixes(), maxListed).forEach(stdout::println);
         if (coverage.units().isEmpty()) {
-            stdout.println("Nothing to analyse in " + fleet.model + ": no instance of the unit classes above. "
+            stdout.println("Nothing to analyse in " + fleet.source() + ": no instance of the unit classes above. "
                     + "Check the unit classes" + (coverage.fullBrick() ? "." : ", or " + CoverageSummary.FULL_BRICK_HINT
                     + " if the model uses classes the loaded vocabulary lacks."));
             stdout.flush();

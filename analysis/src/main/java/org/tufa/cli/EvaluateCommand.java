@@ -14,7 +14,8 @@ import picocli.CommandLine.Spec;
 /** {@code tufa evaluate}: scores an analysis output directory against a ground-truth file. */
 @Command(name = "evaluate", mixinStandardHelpOptions = true,
         description = {"Scores findings against ground truth (truth.csv from the demo simulator): episodes "
-                + "detected, share of fault hours flagged, share of healthy-unit hours flagged.",
+                + "detected, share of fault hours flagged, share of healthy-unit hours flagged, healthy units with "
+                + "findings.",
             "Writes evaluation.csv and evaluation_episodes.csv into the findings directory."})
 public final class EvaluateCommand implements Callable<Integer> {
     @Spec
@@ -31,6 +32,11 @@ public final class EvaluateCommand implements Callable<Integer> {
             description = "Flagged hours inside an episode for it to count as detected (default: ${DEFAULT-VALUE}).")
     double minHours;
 
+    @Option(names = "--min-confidence", paramLabel = "C", defaultValue = "0",
+            description = "Score only findings with at least this confidence (findings.csv's confidence column; "
+                    + "default: ${DEFAULT-VALUE}, every listed finding). For curves of recall against false flags.")
+    double minConfidence;
+
     @Option(names = "--require-goals",
             description = "Exit with code 3 when a goal is not met (for scripted checks).")
     boolean requireGoals;
@@ -45,7 +51,10 @@ public final class EvaluateCommand implements Callable<Integer> {
         outputs.put("--findings (" + EvaluationReport.EPISODES_FILE + ")",
                 findings.resolve(EvaluationReport.EPISODES_FILE));
         org.tufa.common.OutputFiles.checkDistinct(java.util.Map.of("--truth", truth), outputs);
-        org.tufa.analysis.evaluate.EvaluationInput input = EvaluationFiles.read(findings, truth);
+        if (!(minConfidence >= 0 && minConfidence <= 1)) {
+            throw new InputException("--min-confidence: must be in [0, 1], got " + minConfidence);
+        }
+        org.tufa.analysis.evaluate.EvaluationInput input = EvaluationFiles.read(findings, truth, minConfidence);
         Evaluation.Result result = Evaluation.fit(input, minHours);
         EvaluationReport.table(result).forEach(spec.commandLine().getOut()::println);
         if (input.repeatedEpisodes() > 0) {

@@ -11,14 +11,24 @@ import org.tufa.analysis.coverage.FleetCoverage;
 import org.tufa.analysis.coverage.ModelLoader;
 import org.tufa.analysis.coverage.UnitClasses;
 import org.tufa.analysis.coverage.Vocabulary;
+import org.tufa.analysis.store.ModelStore;
 import picocli.CommandLine.Option;
 
 /** The options that pick a fleet out of a Brick model: model, profile, unit classes, extra vocabulary. */
 public final class FleetModelOptions {
 
-    @Option(names = "--model", required = true, paramLabel = "FILE",
-            description = "Brick model (.ttl, .nt, .jsonld or .rdf).")
+    @Option(names = "--model", paramLabel = "FILE",
+            description = "Brick model (.ttl, .nt, .jsonld or .rdf). Or --store.")
     Path model;
+
+    @Option(names = "--store", paramLabel = "DIR",
+            description = "A store tufa load filled (Jena TDB2), instead of --model: the building's graph and the "
+                    + "vocabulary stored with it.")
+    Path store;
+
+    @Option(names = "--graph", paramLabel = "IRI",
+            description = "With --store: the building's graph (default: the store's only building).")
+    String graph;
 
     @Option(names = "--profile", paramLabel = "NAME", split = ",",
             description = "Requirement profiles to use (repeat or separate with commas); units no named profile "
@@ -50,14 +60,34 @@ public final class FleetModelOptions {
     }
 
     public Assessed assess() {
-        return assess(model, profiles, unitClasses, vocabularies);
+        if (store == null) {
+            if (model == null) {
+                throw new org.tufa.common.InputException("give the model with --model FILE, or a store with --store DIR");
+            }
+            return assess(model, profiles, unitClasses, vocabularies);
+        }
+        if (model != null) {
+            throw new org.tufa.common.InputException("--model and --store: give one of them, not both");
+        }
+        try (ModelStore s = ModelStore.open(store, false)) {
+            return s.read(graph, (data, stored) -> assess(data, Vocabulary.of(stored, vocabularies), profiles,
+                    unitClasses));
+        }
+    }
+
+    /** What the model is, for messages and run.json: the file, or the store and graph. */
+    public String source() {
+        return store == null ? String.valueOf(model) : store + " (graph " + (graph == null ? "the only building"
+                : graph) + ")";
     }
 
     /** The coverage with the named profiles, or the automatic choice per unit when none is named. */
     static Assessed assess(Path model, List<String> profiles, List<String> unitClasses, List<Path> vocabularies) {
-        Vocabulary vocabulary = Vocabulary.load(vocabularies);
+        return assess(ModelLoader.load(model), Vocabulary.load(vocabularies), profiles, unitClasses);
+    }
+
+    static Assessed assess(Model data, Vocabulary vocabulary, List<String> profiles, List<String> unitClasses) {
         var chosen = vocabulary.profiles().profiles(profiles);
-        Model data = ModelLoader.load(model);
         Model all = vocabulary.unionWith(data);
         PrefixMapping prefixes = Vocabulary.prefixesFor(data);
         Set<String> classes = UnitClasses.resolve(unitClasses, all, prefixes, vocabulary.hasFullBrick());

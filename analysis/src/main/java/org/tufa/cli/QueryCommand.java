@@ -11,6 +11,7 @@ import org.apache.jena.query.Query;
 import org.tufa.analysis.coverage.ModelLoader;
 import org.tufa.analysis.coverage.Vocabulary;
 import org.tufa.analysis.query.SparqlQueries;
+import org.tufa.analysis.store.ModelStore;
 import org.tufa.common.InputException;
 import picocli.CommandLine.ArgGroup;
 import picocli.CommandLine.Command;
@@ -27,8 +28,16 @@ public final class QueryCommand implements Callable<Integer> {
     @Spec
     picocli.CommandLine.Model.CommandSpec spec;
 
-    @Option(names = "--model", required = true, paramLabel = "FILE", description = "Brick model.")
+    @Option(names = "--model", paramLabel = "FILE", description = "Brick model. Or --store.")
     Path model;
+
+    @Option(names = "--store", paramLabel = "DIR",
+            description = "A store tufa load filled, instead of --model: one building's graph (--graph), or all "
+                    + "of them at once, with the vocabulary stored beside them.")
+    Path store;
+
+    @Option(names = "--graph", paramLabel = "IRI", description = "With --store: only this building's graph.")
+    String graph;
 
     @ArgGroup(exclusive = true, multiplicity = "1")
     Source source;
@@ -71,11 +80,29 @@ public final class QueryCommand implements Callable<Integer> {
         Query query = source.file != null
                 ? SparqlQueries.parse(read(source.file), source.file.toString(), allowed)
                 : SparqlQueries.parse(source.text, "-e", allowed);
-        Vocabulary vocabulary = Vocabulary.load(vocabularies);
-        var data = ModelLoader.load(model);
+        boolean servicesAllowed = !allowed.isEmpty();
+        String answer;
+        if (store == null) {
+            if (model == null) {
+                throw new InputException("give the model with --model FILE, or a store with --store DIR");
+            }
+            Vocabulary vocabulary = Vocabulary.load(vocabularies);
+            var data = ModelLoader.load(model);
+            answer = SparqlQueries.run(vocabulary.unionWith(data), Vocabulary.prefixesFor(data), query, chosen,
+                    servicesAllowed);
+        } else {
+            if (model != null) {
+                throw new InputException("--model and --store: give one of them, not both");
+            }
+            try (ModelStore s = ModelStore.open(store, false)) {
+                java.util.function.BiFunction<org.apache.jena.rdf.model.Model, org.apache.jena.rdf.model.Model,
+                        String> run = (data, stored) -> SparqlQueries.run(Vocabulary.of(stored, vocabularies)
+                        .unionWith(data), Vocabulary.prefixesFor(data), query, chosen, servicesAllowed);
+                answer = graph != null ? s.read(graph, run) : s.readAll(run);
+            }
+        }
         var out = spec.commandLine().getOut();
-        out.print(SparqlQueries.run(vocabulary.unionWith(data), Vocabulary.prefixesFor(data), query, chosen,
-                !allowed.isEmpty()));
+        out.print(answer);
         out.flush();
         return ExitCodes.OK;
     }

@@ -21,6 +21,7 @@ final class PointDetails {
     private final Property hasUnit;
     private final Property hasExternalReference;
     private final Property hasTimeseriesId;
+    private final Property storedAt;
     // Caches only; never iterated for output.
     private final Map<String, Set<String>> typesCache = new HashMap<>();
     private final Map<String, Set<String>> tagsCache = new HashMap<>();
@@ -33,6 +34,7 @@ final class PointDetails {
         this.hasUnit = all.createProperty(Namespaces.BRICK, "hasUnit");
         this.hasExternalReference = all.createProperty(Namespaces.REF, "hasExternalReference");
         this.hasTimeseriesId = all.createProperty(Namespaces.REF, "hasTimeseriesId");
+        this.storedAt = all.createProperty(Namespaces.REF, "storedAt");
     }
 
     /** Asserted rdf:type IRIs of a node, sorted. */
@@ -77,21 +79,27 @@ final class PointDetails {
         return refCache.computeIfAbsent(iri + " " + brickClass, k -> {
             Resource r = all.createResource(iri);
             String label = label(iri);
-            Set<String> ids = new TreeSet<>();
+            // Series id -> the database its reference says it is stored at (the smallest IRI), or "" when none.
+            java.util.TreeMap<String, String> ids = new java.util.TreeMap<>();
             for (Statement s : all.listStatements(r, hasExternalReference, (RDFNode) null).toList()) {
                 if (s.getObject().isResource()) {
+                    Set<String> databases = new TreeSet<>();
+                    all.listObjectsOfProperty(s.getResource(), storedAt).forEachRemaining(o -> addIri(databases, o));
+                    String database = databases.isEmpty() ? "" : databases.iterator().next();
                     all.listObjectsOfProperty(s.getResource(), hasTimeseriesId).forEachRemaining(o -> {
                         if (o.isLiteral()) {
-                            ids.add(o.asLiteral().getLexicalForm());
+                            ids.merge(o.asLiteral().getLexicalForm(), database,
+                                    (a, b) -> a.isEmpty() ? b : b.isEmpty() ? a : a.compareTo(b) <= 0 ? a : b);
                         }
                     });
                 }
             }
-            String timeseriesId = ids.isEmpty() ? label : ids.iterator().next();
+            String timeseriesId = ids.isEmpty() ? label : ids.firstKey();
+            String database = ids.isEmpty() || ids.firstEntry().getValue().isEmpty() ? null : ids.firstEntry().getValue();
             Set<String> units = new TreeSet<>();
             all.listObjectsOfProperty(r, hasUnit).forEachRemaining(o -> addIri(units, o));
             String unit = units.isEmpty() ? null : units.iterator().next();
-            return new PointRef(iri, label, timeseriesId, unit, brickClass);
+            return new PointRef(iri, label, timeseriesId, unit, brickClass, database);
         });
     }
 

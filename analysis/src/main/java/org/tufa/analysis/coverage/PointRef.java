@@ -8,6 +8,14 @@ package org.tufa.analysis.coverage;
  * @param timeseriesId {@code ref:hasExternalReference/ref:hasTimeseriesId}, else the label, else null
  * @param unitOfMeasureIri its brick:hasUnit (a QUDT unit IRI), or null
  * @param brickClass the asserted class through which it qualified (the smallest IRI when several did)
+ * @param database the {@code ref:storedAt} of that time-series reference (a {@code ref:Database} IRI), or null when
+ *     the model does not say where the series is stored
  */
-public record PointRef(String iri, String label, String timeseriesId, String unitOfMeasureIri, String brickClass) {
+public record PointRef(String iri, String label, String timeseriesId, String unitOfMeasureIri, String brickClass,
+                       String database) {
+
+    /** A point whose model does not say where its series is stored. */
+    public PointRef(String iri, String label, String timeseriesId, String unitOfMeasureIri, String brickClass) {
+        this(iri, label, timeseriesId, unitOfMeasureIri, brickClass, null);
+    }
 }

@@ -56,6 +56,21 @@ public final class Vocabulary {
         return new Vocabulary(model);
     }
 
+    /**
+     * A vocabulary from triples already loaded (a store's vocabulary graph), plus the given files.
+     *
+     * @throws org.tufa.common.InputException when a file is missing or does not parse, or roles and profiles are
+     *     incomplete
+     */
+    public static Vocabulary of(Model triples, List<Path> extraFiles) {
+        Model model = ModelFactory.createDefaultModel();
+        model.add(triples);
+        for (Path file : extraFiles) {
+            model.add(ModelLoader.load(file));
+        }
+        return new Vocabulary(model);
+    }
+
     /** The vocabulary triples. Do not modify: queries copy it beside the model. */
     public Model model() {
         return model;

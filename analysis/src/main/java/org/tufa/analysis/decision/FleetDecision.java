@@ -26,10 +26,11 @@ import smile.math.special.Erf;
  * decision out.
  *
  * <ol>
- *   <li><b>Null from the fleet.</b> Per channel (mode, feature or rule, fault side), every unit's most unusual
- *       stretch (its scan maximum) is pooled and a Gumbel null is fitted to the centre of the pool
- *       ({@link GumbelNull}; Efron, JASA 2004): what the most unusual stretch of a healthy unit of this fleet
- *       looks like. A candidate's p-value is the null's tail probability of its own scan statistic.</li>
+ *   <li><b>Null from the fleet.</b> The most unusual stretch (scan maximum) of every channel (mode, feature or
+ *       rule, fault side) of every unit is pooled and a Gumbel null is fitted to the upper part of the pool
+ *       ({@link GumbelNull#fitUpperTail}; after Efron, JASA 2004): how far a healthy unit of this fleet strays
+ *       at its most unusual. A candidate's p-value is the null's tail probability of its own scan
+ *       statistic.</li>
  *   <li><b>Fleet-wide effects.</b> A day on which more units are in an episode of the same channel than
  *       independent faults would explain (at least {@code minFleetUnits}, and a Poisson tail probability below
  *       {@code fleetWideP} given the channel's overall rate of episode days) is a fleet-wide day: something common
@@ -91,11 +92,12 @@ public final class FleetDecision {
     /**
      * Channels whose normal level means the same on every unit, so peers can be compared on it: not the coil
      * residual (relative to the unit's own coil by construction), the valve activity or hunting (they follow the
-     * unit's control style: a two-position valve always moves more than a modulating one).
+     * unit's control style: a two-position valve always moves more than a modulating one), nor the share outside
+     * the load band (the band is the unit's own).
      */
     static boolean comparableAcrossUnits(ChannelEvidence c) {
         return switch (c.channel()) {
-            case "coil_residual", "valve_activity", "mode_hunting" -> false;
+            case "coil_residual", "valve_activity", "mode_hunting", "out_of_band_high", "out_of_band_low" -> false;
             default -> true;
         };
     }
@@ -129,9 +131,8 @@ public final class FleetDecision {
             List<Slot> slots = e.getValue();
             double[] maxima = slots.stream().mapToDouble(s -> s.channel().scanMax()).toArray();
             int[] days = slots.stream().mapToInt(s -> s.channel().informativeDays()).sorted().toArray();
-            int typicalDays = days.length == 0 ? 1 : days[days.length / 2];
-            GumbelNull nul = GumbelNull.fit(maxima, Math.max(1, typicalDays) * Math.min(maxWindow, Math.max(1,
-                    typicalDays)));
+            int typicalDays = days.length == 0 ? 1 : Math.max(1, days[days.length / 2]);
+            GumbelNull nul = GumbelNull.fit(maxima, typicalDays * Math.min(maxWindow, typicalDays));
             int candidateCount = 0;
             List<Test> channelTests = new ArrayList<>();
             for (Slot s : slots) {
@@ -294,14 +295,12 @@ public final class FleetDecision {
             int start = Integer.MAX_VALUE;
             int end = 0;
             double energy = 0;
-            double minP = 1;
             List<String> names = new ArrayList<>();
             for (Test t : members) {
                 t.folded = true;
                 start = Math.min(start, t.finding.range().start());
                 end = Math.max(end, t.finding.range().end());
                 energy += Double.isNaN(t.finding.energyKwh()) ? 0 : t.finding.energyKwh();
-                minP = Math.min(minP, t.p);
                 names.add(units.get(t.unit).unit());
             }
             names = names.stream().distinct().sorted().toList();
@@ -314,8 +313,17 @@ public final class FleetDecision {
                     (en.toEpochMilli() - s.toEpochMilli()) / 3_600_000.0, energy, first.shifts(),
                     causes.causes(FLEET_KIND, List.of(), null)).withEvidence(text);
             fleetFindings.add(new FleetFinding(f, names));
-            // Evidence that something common is at work: the strongest member, corrected for the members.
-            fleetTests.add(new Test(f, Math.min(1, minP * members.size()), fleetFindings.size() - 1));
+            // Evidence that something common is at work: no more units strayed together than independent faults
+            // would give, on the run's most crowded day, corrected for every day tested. (The members' own
+            // p-values say nothing here: a shared effect moves the fleet's null with it.)
+            double tail = 1;
+            for (int d = run[0]; d <= run[1]; d++) {
+                int[] v = perDay.get(d);
+                if (v != null) {
+                    tail = Math.min(tail, poissonUpperTail(rate * v[0], v[1]));
+                }
+            }
+            fleetTests.add(new Test(f, Math.min(1, tail * perDay.size()), fleetFindings.size() - 1));
         }
     }
 
@@ -349,21 +357,21 @@ public final class FleetDecision {
     /** Every unit against its peers on a channel with an absolute meaning. */
     private static List<Test> peerTests(List<Slot> slots, org.tufa.analysis.fleet.AnalysisSettings.DecisionSettings
             settings, CauseTable causes) {
-        List<Slot> usable = slots.stream().filter(s -> Double.isFinite(s.channel().center())
+        List<Slot> usable = slots.stream().filter(s -> Double.isFinite(s.channel().level())
                 && s.channel().span() != null && s.channel().informativeDays() >= MIN_PEER_DAYS
                 && comparableAcrossUnits(s.channel())).toList();
         if (usable.size() < settings.minPeers() + 1) {
             return List.of();
         }
-        double[] centers = usable.stream().mapToDouble(s -> s.channel().center()).toArray();
-        double[] spreads = usable.stream().mapToDouble(s -> s.channel().spread()).toArray();
+        double[] centers = usable.stream().mapToDouble(s -> s.channel().level()).toArray();
+        double[] spreads = usable.stream().mapToDouble(s -> s.channel().levelSpread()).toArray();
         double median = Quantiles.median(centers);
         double[] dev = Arrays.stream(centers).map(c -> Math.abs(c - median)).toArray();
         double scale = Math.max(DayChannel.MAD_SCALE * Quantiles.median(dev), Quantiles.median(spreads));
         List<Test> out = new ArrayList<>();
         for (Slot s : usable) {
             ChannelEvidence c = s.channel();
-            double shift = c.direction() * (c.center() - median);
+            double shift = c.direction() * (c.level() - median);
             double z = shift / scale;
             double p = 0.5 * Erf.erfc(z / Math.sqrt(2));
             Finding f = null;
@@ -371,13 +379,13 @@ public final class FleetDecision {
                 String unit = c.unit().equals("share") ? "" : " " + c.unit();
                 String text = c.unit().equals("share")
                         ? String.format(Locale.ROOT, "%s on %.0f %% of the unit's samples on its normal days, "
-                        + "against %.0f %% on its %d peers' (%.1f robust spreads)", c.channel(), 100 * c.center(),
+                        + "against %.0f %% on its %d peers' (%.1f robust spreads)", c.channel(), 100 * c.level(),
                         100 * median, usable.size() - 1, z)
                         : String.format(Locale.ROOT, "%s %+.1f%s on the unit's normal days, against %+.1f%s on its "
-                        + "%d peers' (%.1f robust spreads)", c.channel(), c.center(), unit, median, unit,
+                        + "%d peers' (%.1f robust spreads)", c.channel(), c.level(), unit, median, unit,
                         usable.size() - 1, z);
                 List<org.tufa.analysis.findings.Shift> shifts = List.of(new org.tufa.analysis.findings.Shift(
-                        c.channel(), c.unit().equals("share") ? "" : c.unit(), c.center() - median));
+                        c.channel(), c.unit().equals("share") ? "" : c.unit(), c.level() - median));
                 List<String> peerCauses = c.unit().equals("share")
                         ? causes.causes(c.channel(), List.of(), null) : causes.causes(c.mode(), shifts, null);
                 Finding span = c.span();

@@ -12,8 +12,11 @@ import org.tufa.analysis.findings.Finding;
  * @param channel         feature or rule name
  * @param direction       +1 / -1: the fault side of the channel
  * @param unit            engineering unit of the channel's values ("K", "%", "share")
- * @param center          the unit's normal level (median of its reference days), NaN when unknown
- * @param spread          the unit's day-to-day spread
+ * @param center          the channel's normal day value (median of its reference days), NaN when unknown
+ * @param spread          the channel's day-to-day spread
+ * @param level           the unit's normal level in the channel's engineering unit, for comparing it with its
+ *                        peers (a health feature's median over its normal days; a rule's normal share)
+ * @param levelSpread     the day-to-day spread of that level
  * @param gate            the engineering gate used for its fault days, in the channel's unit
  * @param informativeDays days with enough samples of the mode
  * @param scanMax         the largest scan statistic over the unit's whole record (NaN without informative days)
@@ -23,7 +26,7 @@ import org.tufa.analysis.findings.Finding;
  * @param candidates      the episodes of this channel, each with the finding it would become
  */
 public record ChannelEvidence(String mode, String channel, int direction, String unit, double center, double spread,
-                              double gate, int informativeDays, double scanMax, Finding span,
+                              double level, double levelSpread, double gate, int informativeDays, double scanMax, Finding span,
                               List<Candidate> candidates) {
 
     public ChannelEvidence {

@@ -10,7 +10,8 @@ import org.tufa.analysis.band.Quantiles;
  *
  * <p>Normal level and spread are the median and the scaled median absolute deviation (1.4826 MAD: Hampel, JASA
  * 69(346), 1974; the factor makes it estimate the standard deviation of normal data) of the reference days, the
- * days that are not dominated by candidate-fault samples. A spread floor keeps a very steady unit from turning a
+ * days that are not dominated by candidate-fault samples, of the day's own type (workday or weekend) when the unit
+ * has enough of them. A spread floor keeps a very steady unit from turning a
  * sensor's resolution step into a large deviation.
  *
  * @param channel   name of the evidence (a feature or a rule)
@@ -20,12 +21,13 @@ import org.tufa.analysis.band.Quantiles;
  * @param value     the day's median (features) or share (rules) on each informative day
  * @param dominated per informative day: candidate-fault samples make up at least half of it (always false for
  *                  rule channels, whose days all count as reference)
- * @param center    the normal level (median over reference days); NaN when there are none
+ * @param center    the normal level (median over all reference days); NaN when there are none
  * @param spread    the day-to-day spread (1.4826 MAD over reference days, at least the floor)
- * @param z         per informative day: direction * (value - center) / spread
+ * @param normal    per informative day: the normal level it is compared with (its type's, or the pooled one)
+ * @param z         per informative day: direction * (value - normal) / (its type's spread)
  */
 public record DayChannel(String channel, int direction, int[] days, int[] samples, double[] value,
-                         boolean[] dominated, double center, double spread, double[] z) {
+                         boolean[] dominated, double center, double spread, double[] normal, double[] z) {
 
     /** The MAD-to-standard-deviation factor for normal data (Hampel 1974). */
     public static final double MAD_SCALE = 1.4826;
@@ -43,7 +45,7 @@ public record DayChannel(String channel, int direction, int[] days, int[] sample
 
     /** direction * (value - center) on informative day k, in the feature's unit. */
     public double shift(int k) {
-        return direction * (value[k] - center);
+        return direction * (value[k] - normal[k]);
     }
 
     /**
@@ -137,28 +139,61 @@ public record DayChannel(String channel, int direction, int[] days, int[] sample
         counts = Arrays.copyOf(counts, d);
         values = Arrays.copyOf(values, d);
         dominated = Arrays.copyOf(dominated, d);
-        double[] reference = new double[d];
-        int r = 0;
-        for (int k = 0; k < d; k++) {
-            if (!dominated[k]) {
-                reference[r++] = values[k];
-            }
-        }
-        double[] ref = Arrays.copyOf(reference, r);
-        double center = !Double.isNaN(fixedCenter) ? fixedCenter : r == 0 ? Double.NaN : Quantiles.median(ref);
-        double spread = floor;
-        if (r > 0 && Double.isNaN(fixedCenter)) {
-            double[] dev = new double[r];
-            for (int k = 0; k < r; k++) {
-                dev[k] = Math.abs(ref[k] - center);
-            }
-            spread = Math.max(floor, MAD_SCALE * Quantiles.median(dev));
-        }
+        // Workdays and weekends run to different schedules (occupied hours, setback, plant time clocks), so each
+        // day is compared with the unit's normal days of its own type when there are enough of them.
+        double[] pooled = baseline(values, dominated, days, -1, floor, fixedCenter);
+        double[][] byType = {baseline(values, dominated, days, 0, floor, fixedCenter),
+                baseline(values, dominated, days, 1, floor, fixedCenter)};
+        double center = pooled[0];
+        double spread = pooled[1];
         double[] z = new double[d];
+        double[] normal = new double[d];
         for (int k = 0; k < d; k++) {
-            z[k] = Double.isNaN(center) ? Double.NaN : direction * (values[k] - center) / spread;
+            double[] b = byType[weekend(days[k]) ? 1 : 0];
+            if (Double.isNaN(b[0])) {
+                b = pooled;
+            }
+            normal[k] = b[0];
+            z[k] = Double.isNaN(b[0]) ? Double.NaN : direction * (values[k] - b[0]) / b[1];
         }
-        return new DayChannel(channel, direction, days, counts, values, dominated, center, spread, z);
+        return new DayChannel(channel, direction, days, counts, values, dominated, center, spread, normal, z);
+    }
+
+    /** Fewest reference days of one type (workday, weekend) for that type to get its own normal level. */
+    public static final int MIN_DAYS_OF_TYPE = 4;
+
+    /** Saturday or Sunday (the workweek of most commercial buildings; common practice, no source). */
+    static boolean weekend(int epochDay) {
+        java.time.DayOfWeek d = java.time.LocalDate.ofEpochDay(epochDay).getDayOfWeek();
+        return d == java.time.DayOfWeek.SATURDAY || d == java.time.DayOfWeek.SUNDAY;
+    }
+
+    /**
+     * {center, spread} of the reference days of one type (0 workdays, 1 weekends, -1 all); NaN centre when a type
+     * has fewer than {@link #MIN_DAYS_OF_TYPE} of them.
+     */
+    private static double[] baseline(double[] values, boolean[] dominated, int[] days, int type, double floor,
+                                     double fixedCenter) {
+        double[] ref = new double[values.length];
+        int r = 0;
+        for (int k = 0; k < values.length; k++) {
+            if (!dominated[k] && (type < 0 || weekend(days[k]) == (type == 1))) {
+                ref[r++] = values[k];
+            }
+        }
+        if (!Double.isNaN(fixedCenter)) {
+            return new double[] {fixedCenter, floor};
+        }
+        if (r == 0 || (type >= 0 && r < MIN_DAYS_OF_TYPE)) {
+            return new double[] {Double.NaN, floor};
+        }
+        ref = Arrays.copyOf(ref, r);
+        double center = Quantiles.median(ref);
+        double[] dev = new double[r];
+        for (int k = 0; k < r; k++) {
+            dev[k] = Math.abs(ref[k] - center);
+        }
+        return new double[] {center, Math.max(floor, MAD_SCALE * Quantiles.median(dev))};
     }
 
     /** The same days seen from the other side (direction flipped), for two-sided features. */
@@ -167,6 +202,6 @@ public record DayChannel(String channel, int direction, int[] days, int[] sample
         for (int k = 0; k < z.length; k++) {
             zf[k] = -z[k];
         }
-        return new DayChannel(channel, -direction, days, samples, value, dominated, center, spread, zf);
+        return new DayChannel(channel, -direction, days, samples, value, dominated, center, spread, normal, zf);
     }
 }

@@ -14,7 +14,9 @@ package org.tufa.analysis.episodes;
  * @param meanShift  mean deviation of the fault days from the normal level, in the fault direction, in the
  *                   channel's unit
  * @param meanZ      mean deviation of the fault days in day-to-day spreads
+ * @param meanValue  mean day value of the fault days (a share, or a feature's day median)
+ * @param meanNormal mean normal level the fault days were compared with
  */
 public record Episode(int from, int to, int firstDay, int lastDay, int faultDays, double statistic, double meanShift,
-                      double meanZ) {
+                      double meanZ, double meanValue, double meanNormal) {
 }

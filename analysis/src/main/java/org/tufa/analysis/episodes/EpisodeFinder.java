@@ -17,7 +17,8 @@ import org.tufa.analysis.significance.ScanStatistic;
  *
  * <p>Consecutive fault days form an episode; one informative day without a fault between fault days is bridged
  * (a mild day in a week-long fault), and so are days without data, unless the calendar gap exceeds
- * {@code maxGapDays}.
+ * {@code maxGapDays}. An episode needs {@code minDays} fault days: one odd day (a holiday, a storm, a test by the
+ * commissioning engineer) is part of any unit's record, a fault lasts.
  */
 public final class EpisodeFinder {
 
@@ -29,26 +30,38 @@ public final class EpisodeFinder {
      * @param bridgeDays  informative non-fault days bridged inside an episode
      * @param maxGapDays  longest calendar gap between consecutive days of an episode
      * @param maxWindow   longest window of the scan statistic, in informative days
+     * @param minDays     fewest fault days an episode needs
      */
     public record Parameters(double minZ, double gate, double minShare, int bridgeDays, int maxGapDays,
-                             int maxWindow) {
+                             int maxWindow, int minDays) {
     }
 
     private EpisodeFinder() {
     }
 
     /** Per informative day: is it a fault day. */
-    public static boolean[] faultDays(DayChannel c, Parameters p) {
+    public static boolean[] faultDays(DayChannel c, Parameters p, double[] magnitude, double magnitudeGate) {
         boolean[] out = new boolean[c.size()];
         for (int k = 0; k < out.length; k++) {
             boolean dominant = Double.isNaN(p.minShare()) ? c.dominated()[k] : c.value()[k] >= p.minShare();
-            out[k] = dominant && c.shift(k) >= p.gate() && c.z()[k] >= p.minZ();
+            boolean large = magnitude == null || magnitude[k] >= magnitudeGate;
+            out[k] = dominant && large && c.shift(k) >= p.gate() && c.z()[k] >= p.minZ();
         }
         return out;
     }
 
+    /** The episodes of a channel whose own values carry the engineering size (feature medians, rule shares). */
     public static List<Episode> find(DayChannel c, Parameters p) {
-        boolean[] fault = faultDays(c, p);
+        return find(c, p, null, Double.NaN);
+    }
+
+    /**
+     * The episodes of a share channel whose engineering size is carried apart: {@code magnitude} per informative
+     * day (e.g. how far the day's candidate samples lie from normal, in kelvin, fault side positive), which a fault
+     * day must bring to {@code magnitudeGate}; the episode's mean shift is then the mean magnitude.
+     */
+    public static List<Episode> find(DayChannel c, Parameters p, double[] magnitude, double magnitudeGate) {
+        boolean[] fault = faultDays(c, p, magnitude, magnitudeGate);
         List<Episode> out = new ArrayList<>();
         int k = 0;
         while (k < fault.length) {
@@ -72,17 +85,24 @@ public final class EpisodeFinder {
             int count = 0;
             double shift = 0;
             double z = 0;
+            double value = 0;
+            double normal = 0;
             for (int i = start; i <= last; i++) {
                 if (fault[i]) {
                     count++;
-                    shift += c.shift(i);
+                    shift += magnitude == null ? c.shift(i) : magnitude[i];
                     z += c.z()[i];
+                    value += c.value()[i];
+                    normal += c.normal()[i];
                 }
             }
             double stat = ScanStatistic.max(c.z(), start, last + 1, p.maxWindow());
-            out.add(new Episode(start, last + 1, c.days()[start], c.days()[last], count, stat, shift / count,
-                    z / count));
             k = last + 1;
+            if (count < p.minDays()) {
+                continue;
+            }
+            out.add(new Episode(start, last + 1, c.days()[start], c.days()[last], count, stat, shift / count,
+                    z / count, value / count, normal / count));
         }
         return out;
     }

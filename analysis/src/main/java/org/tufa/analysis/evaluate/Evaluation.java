@@ -32,8 +32,10 @@ import java.util.TreeSet;
 public final class Evaluation {
     /** Goal: share of analysable fault hours flagged. */
     public static final double GOAL_FLAGGED_SHARE = 0.70;
-    /** Goal: share of healthy-unit analysable hours flagged stays below this. */
-    public static final double GOAL_FALSE_SHARE = 0.02;
+    /** Goal: share of healthy units with any finding stays at or below this (issue 10). */
+    public static final double GOAL_HEALTHY_UNITS_SHARE = 0.05;
+    /** Goal: share of healthy-unit analysable hours flagged stays at or below this (issue 10). */
+    public static final double GOAL_FALSE_SHARE = 0.01;
     /** Default minimum flagged hours for an episode to count as detected. */
     public static final double DEFAULT_MIN_HOURS = 2.0;
 
@@ -78,10 +80,20 @@ public final class Evaluation {
      * and the faults per unit kind (sorted by kind; empty when the kinds are unknown or only one kind has episodes).
      */
     public record Result(double minHours, List<EpisodeScore> episodes, List<GroupScore> byFault, GroupScore allFaults,
-            GroupScore healthy, List<GroupScore> byKind) {
+            GroupScore healthy, List<GroupScore> byKind, int healthyUnitsWithFindings) {
         public Result {
             byFault = List.copyOf(byFault);
             byKind = List.copyOf(byKind);
+        }
+
+        /** Share of the healthy units with at least one flagged analysable sample; NaN without healthy units. */
+        public double healthyUnitsShare() {
+            return healthy.units() == 0 ? Double.NaN : healthyUnitsWithFindings / (double) healthy.units();
+        }
+
+        public boolean healthyUnitsMet() {
+            double share = healthyUnitsShare();
+            return Double.isNaN(share) || share <= GOAL_HEALTHY_UNITS_SHARE;
         }
 
         public boolean allDetected() {
@@ -94,11 +106,11 @@ public final class Evaluation {
 
         public boolean falseShareMet() {
             double share = healthy.flaggedShare();
-            return Double.isNaN(share) || share < GOAL_FALSE_SHARE;
+            return Double.isNaN(share) || share <= GOAL_FALSE_SHARE;
         }
 
         public boolean goalsMet() {
-            return allDetected() && flaggedShareMet() && falseShareMet();
+            return allDetected() && flaggedShareMet() && falseShareMet() && healthyUnitsMet();
         }
     }
 
@@ -151,6 +163,7 @@ public final class Evaluation {
         Set<String> faultyUnits = new TreeSet<>();
         input.truth().forEach(e -> faultyUnits.add(e.unit()));
         int healthyUnits = 0;
+        int healthyWithFindings = 0;
         double analysableHours = 0;
         double flaggedHours = 0;
         for (FleetUnit u : input.fleet()) {
@@ -161,14 +174,17 @@ public final class Evaluation {
             healthyUnits++;
             List<FlaggedInterval> flags = input.findingsByUnit().getOrDefault(u.unit(), List.of());
             double step = samples.sampleHours();
+            boolean any = false;
             for (int i = 0; i < samples.timestamps().size(); i++) {
                 if (samples.analysable(i)) {
                     analysableHours += step;
                     if (flagged(flags, samples.timestamps().get(i))) {
                         flaggedHours += step;
+                        any = true;
                     }
                 }
             }
+            healthyWithFindings += any ? 1 : 0;
         }
         GroupScore healthy = new GroupScore("healthy_units", healthyUnits, 0, 0, 0, analysableHours, flaggedHours);
         Map<String, List<EpisodeScore>> byKind = new TreeMap<>();
@@ -182,7 +198,8 @@ public final class Evaluation {
         if (byKind.size() > 1) {
             byKind.forEach((kind, list) -> kinds.add(group("all_" + kind + "_faults", list)));
         }
-        return new Result(minHours, List.copyOf(scores), List.copyOf(groups), all, healthy, kinds);
+        return new Result(minHours, List.copyOf(scores), List.copyOf(groups), all, healthy, kinds,
+                healthyWithFindings);
     }
 
     private static GroupScore group(String scope, List<EpisodeScore> list) {

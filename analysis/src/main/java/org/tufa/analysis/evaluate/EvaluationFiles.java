@@ -15,6 +15,7 @@ import java.util.TreeMap;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
 import org.apache.commons.csv.CSVRecord;
+import org.tufa.analysis.tables.SampleTableReader;
 import org.tufa.common.CsvCells;
 import org.tufa.common.InputException;
 
@@ -35,6 +36,14 @@ public final class EvaluationFiles {
 
     /** Reads everything; checks that every truth and findings unit is in the fleet. */
     public static EvaluationInput read(Path findingsDir, Path truthFile) {
+        return read(findingsDir, truthFile, 0);
+    }
+
+    /**
+     * As {@link #read(Path, Path)}, keeping only findings with at least {@code minConfidence} (read from the
+     * confidence column; files without one keep every finding).
+     */
+    public static EvaluationInput read(Path findingsDir, Path truthFile, double minConfidence) {
         Path fleetFile = findingsDir.resolve("fleet.csv");
         List<FleetUnit> fleet = new ArrayList<>();
         Map<String, FleetUnit> byUnit = new TreeMap<>();
@@ -64,6 +73,18 @@ public final class EvaluationFiles {
             if (end.isBefore(start)) {
                 throw InputException.at(findingsFile, line, "end is before start");
             }
+            if (minConfidence > 0 && r.isMapped("confidence")) {
+                double c;
+                try {
+                    c = Double.parseDouble(r.get("confidence"));
+                } catch (NumberFormatException e) {
+                    throw InputException.at(findingsFile, line, "column confidence: '" + r.get("confidence")
+                            + "' is not a number");
+                }
+                if (c < minConfidence) {
+                    return;
+                }
+            }
             findings.computeIfAbsent(unit, k -> new ArrayList<>()).add(new FlaggedInterval(unit, r.get("kind"),
                     start, end));
         });
@@ -78,7 +99,20 @@ public final class EvaluationFiles {
                 throw InputException.in(fleetFile, "unit " + u.unit() + ": folder '" + u.folder()
                         + "' is not a plain folder name under units/");
             }
-            Path modesFile = findingsDir.resolve("units").resolve(u.folder()).resolve("modes.csv");
+            Path unitDir = findingsDir.resolve("units").resolve(u.folder());
+            Path parquet = unitDir.resolve("modes.parquet");
+            if (Files.isRegularFile(parquet)) {
+                SampleTableReader.TimedTexts t = SampleTableReader.read(parquet, "timestamp", "mode");
+                for (int i = 0; i < t.texts().size(); i++) {
+                    if (!UnitSamples.MODES.contains(t.texts().get(i))) {
+                        throw InputException.in(parquet, "row " + (i + 1) + ": mode '" + t.texts().get(i)
+                                + "' is not one of " + new java.util.TreeSet<>(UnitSamples.MODES));
+                    }
+                }
+                samples.put(u.unit(), new UnitSamples(t.times(), t.texts()));
+                continue;
+            }
+            Path modesFile = unitDir.resolve("modes.csv");
             List<Instant> times = new ArrayList<>();
             List<String> modes = new ArrayList<>();
             forEachRecord(modesFile, MODES_HEADER, (r, line) -> {

@@ -125,6 +125,15 @@ public final class ModeFeatures {
         for (int k = 0; k < n; k++) {
             rawResidual[k] = response.residual(v[k], air[k], hasWater ? wat[k] : Double.NaN);
         }
+        if (!hasWater && hasOutdoor) {
+            // Without a supply-water sensor the water temperature is unknown, but plants reset it on the outdoor
+            // temperature: what the residual shares with the outdoor temperature is the reset, not the unit.
+            double[] outdoor = new double[n];
+            for (int k = 0; k < n; k++) {
+                outdoor[k] = s.outdoorAirTemperature()[samples[k]];
+            }
+            rawResidual = RobustLine.fit(outdoor, rawResidual).residuals(outdoor, rawResidual);
+        }
         double[] residual = RollingMedian.of(rawResidual, SMOOTHING_HALF_WINDOW);
         // Cooling only: the zone held above its setpoint with the coil working is a capacity shortfall (no
         // airflow, no water); the setpoint role is the active (target) setpoint. Heating setpoints are often a

@@ -30,7 +30,8 @@ public final class ClusterShifts {
         return out;
     }
 
-    static double median(double[][] rows, boolean[] mask, int column) {
+    /** Median of one column over the masked rows, NaN when none. */
+    public static double median(double[][] rows, boolean[] mask, int column) {
         double[] v = new double[rows.length];
         int n = 0;
         for (int i = 0; i < rows.length; i++) {

@@ -28,6 +28,7 @@ import org.tufa.analysis.modes.ModeThresholds;
  * @param dayZone              the zone whose midnights separate days
  * @param minDayDeviation      fewest day-to-day spreads of the unit's normal days that a fault day lies from them
  * @param maxEpisodeWindowDays longest window of the scan statistic, in days
+ * @param minEpisodeDays       fewest fault days a candidate finding rests on
  * @param decision             the fleet stage's parameters
  */
 public record AnalysisSettings(
@@ -46,6 +47,7 @@ public record AnalysisSettings(
         ZoneId dayZone,
         double minDayDeviation,
         int maxEpisodeWindowDays,
+        int minEpisodeDays,
         DecisionSettings decision) {
 
     /**
@@ -89,44 +91,44 @@ public record AnalysisSettings(
     public static AnalysisSettings defaults() {
         return new AnalysisSettings(ModeThresholds.defaults(), BandKind.TUKEY, new RunOptions(16, 2), 0.90, 20,
                 FLEET_EXTRACTION, 96, 1.1, 2.0, 2.0, 400 * 0.3048 * 0.3048 * 0.3048 / 60.0,
-                CauseTable.standard(), ZoneOffset.UTC, 3.0, 14, new DecisionSettings(0.9, 4.0, 8, 0.001, 3));
+                CauseTable.standard(), ZoneOffset.UTC, 3.0, 14, 2, new DecisionSettings(0.9, 4.0, 8, 0.001, 3));
     }
 
     public AnalysisSettings withModeThresholds(ModeThresholds m) {
         return new AnalysisSettings(m, band, bandRuns, varianceTarget, minPts, extraction, minModeSamples,
                 residualGate, activityGate, zoneErrorGate, defaultAirflow, causes, dayZone, minDayDeviation,
-                maxEpisodeWindowDays, decision);
+                maxEpisodeWindowDays, minEpisodeDays, decision);
     }
 
     public AnalysisSettings withClustering(BandKind bandKind, double variance, int minimumPoints,
                                            AutoParameters autoParameters) {
         return new AnalysisSettings(modeThresholds, bandKind, bandRuns, variance, minimumPoints, autoParameters,
                 minModeSamples, residualGate, activityGate, zoneErrorGate, defaultAirflow, causes, dayZone,
-                minDayDeviation, maxEpisodeWindowDays, decision);
+                minDayDeviation, maxEpisodeWindowDays, minEpisodeDays, decision);
     }
 
     public AnalysisSettings withCauses(CauseTable table) {
         return new AnalysisSettings(modeThresholds, band, bandRuns, varianceTarget, minPts, extraction,
                 minModeSamples, residualGate, activityGate, zoneErrorGate, defaultAirflow, table, dayZone,
-                minDayDeviation, maxEpisodeWindowDays, decision);
+                minDayDeviation, maxEpisodeWindowDays, minEpisodeDays, decision);
     }
 
     public AnalysisSettings withDayZone(ZoneId zone) {
         return new AnalysisSettings(modeThresholds, band, bandRuns, varianceTarget, minPts, extraction,
                 minModeSamples, residualGate, activityGate, zoneErrorGate, defaultAirflow, causes, zone,
-                minDayDeviation, maxEpisodeWindowDays, decision);
+                minDayDeviation, maxEpisodeWindowDays, minEpisodeDays, decision);
     }
 
     /** The settings with other engineering gates (as a run.json records them). */
     public AnalysisSettings withGates(double residual, double activity, double zoneError) {
         return new AnalysisSettings(modeThresholds, band, bandRuns, varianceTarget, minPts, extraction,
                 minModeSamples, residual, activity, zoneError, defaultAirflow, causes, dayZone, minDayDeviation,
-                maxEpisodeWindowDays, decision);
+                maxEpisodeWindowDays, minEpisodeDays, decision);
     }
 
     public AnalysisSettings withDecision(DecisionSettings d) {
         return new AnalysisSettings(modeThresholds, band, bandRuns, varianceTarget, minPts, extraction,
                 minModeSamples, residualGate, activityGate, zoneErrorGate, defaultAirflow, causes, dayZone,
-                minDayDeviation, maxEpisodeWindowDays, d);
+                minDayDeviation, maxEpisodeWindowDays, minEpisodeDays, d);
     }
 }

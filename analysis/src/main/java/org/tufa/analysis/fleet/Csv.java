@@ -6,7 +6,7 @@ import java.time.ZoneId;
 import java.time.format.DateTimeFormatter;
 import java.util.Locale;
 
-/** Formatting shared by tufa's CSV outputs: ISO-8601 times with offset, numbers that read back exactly. */
+/** Formatting shared by tufa's CSV outputs: ISO-8601 times with offset, rounded figures, quoted fields. */
 public final class Csv {
 
     private static final DateTimeFormatter ISO = DateTimeFormatter.ISO_OFFSET_DATE_TIME;
@@ -65,15 +65,9 @@ public final class Csv {
         two(c, at + 2, v % 100);
     }
 
-    /** A decimal that parses back to the same double (Double.toString); inf/-inf/nan as numpy and pandas read them. */
+    /** A decimal that parses back to the same double; inf/-inf/nan as numpy and pandas read them. */
     public static String number(double v) {
-        if (Double.isNaN(v)) {
-            return "nan";
-        }
-        if (Double.isInfinite(v)) {
-            return v > 0 ? "inf" : "-inf";
-        }
-        return Double.toString(v);
+        return org.tufa.analysis.tables.SampleTable.csvNumber(v);
     }
 
     /** A rounded figure for tables people read. */

@@ -22,8 +22,10 @@ import org.tufa.analysis.review.ReviewStep;
 import org.tufa.analysis.review.Verdict;
 import org.tufa.analysis.trends.IngestReport;
 import org.tufa.analysis.trends.PlausibleRange;
+import org.tufa.analysis.trends.ResampledSeries;
 import org.tufa.analysis.trends.SeriesKind;
 import org.tufa.analysis.trends.TimeOptions;
+import org.tufa.analysis.trends.TrendSource;
 import org.tufa.analysis.trends.TrendStore;
 
 /**
@@ -73,13 +75,23 @@ public final class FleetAnalysis {
     private FleetAnalysis() {
     }
 
+    /** Runs on trend files (CSV, long or wide, plain or gzip, or folders of them). */
     public static Result run(FleetCoverage coverage, List<Path> trends, TimeOptions timeOptions,
+                             AnalysisSettings settings, int threads, List<UnitSink> sinks, Progress progress) {
+        return run(coverage, TrendStore.opener(trends), timeOptions, settings, List.of(), threads, sinks, progress);
+    }
+
+    /**
+     * Runs on any trend source: the opener is given the series of every analysable unit, their plausible ranges
+     * (from the points' units) and the time options.
+     */
+    public static Result run(FleetCoverage coverage, TrendSource.Opener trends, TimeOptions timeOptions,
                              AnalysisSettings settings, int threads, List<UnitSink> sinks, Progress progress) {
         return run(coverage, trends, timeOptions, settings, List.of(), threads, sinks, progress);
     }
 
     /** @param verdicts the analyst's verdicts on an earlier run's findings (empty: no review) */
-    public static Result run(FleetCoverage coverage, List<Path> trends, TimeOptions timeOptions,
+    public static Result run(FleetCoverage coverage, TrendSource.Opener trends, TimeOptions timeOptions,
                              AnalysisSettings settings, List<Verdict> verdicts, int threads, List<UnitSink> sinks,
                              Progress progress) {
         StageTimes times = new StageTimes();
@@ -98,8 +110,7 @@ public final class FleetAnalysis {
             }
         }
         long t0 = System.nanoTime();
-        try (TrendStore store = TrendStore.ingest(trends, wanted, ranges, timeOptions,
-                Path.of(System.getProperty("java.io.tmpdir")))) {
+        try (TrendSource store = trends.open(wanted, ranges, timeOptions)) {
             times.add(StageTimes.Stage.READ, System.nanoTime() - t0);
             FolderNames names = new FolderNames();
             List<String> folders = new ArrayList<>();
@@ -187,7 +198,7 @@ public final class FleetAnalysis {
      * confidence), its signals again when it has some, the sinks.
      */
     private static UnitOutcome complete(UnitOutcome o, ReviewStep.UnitReview reviewed, double minConfidence,
-                                        UnitInputs in, TrendStore store, List<UnitSink> sinks, StageTimes times) {
+                                        UnitInputs in, TrendSource store, List<UnitSink> sinks, StageTimes times) {
         List<Finding> decided = reviewed.findings();
         List<Finding> listed = decided.stream().filter(f -> f.confidence() >= minConfidence
                 || reviewed.confirmed(org.tufa.analysis.review.FindingIds.of(o.unit(), f))).toList();
@@ -220,10 +231,14 @@ public final class FleetAnalysis {
         return done;
     }
 
-    private static SignalPreparation.Prepared prepare(UnitInputs in, TrendStore store) {
-        return SignalPreparation.prepare(in,
-                id -> store.seriesIds().contains(id) ? Optional.of(store.series(id)) : Optional.empty(),
-                store.gridStart(), store.interval(), store.gridLength());
+    private static SignalPreparation.Prepared prepare(UnitInputs in, TrendSource store) {
+        return prepare(in, store.read(in.seriesKinds().keySet()), store);
+    }
+
+    private static SignalPreparation.Prepared prepare(UnitInputs in, Map<String, ResampledSeries> series,
+                                                      TrendSource store) {
+        return SignalPreparation.prepare(in, id -> Optional.ofNullable(series.get(id)), store.gridStart(),
+                store.interval(), store.gridLength());
     }
 
     /** Whether this version has a detection for the unit's kind: fan coil units only (VAV boxes come next). */
@@ -236,7 +251,7 @@ public final class FleetAnalysis {
     }
 
     private static Analysed analyse(FleetCoverage coverage, UnitCoverage u, UnitInputs in, String folder,
-                                    TrendStore store, AnalysisSettings settings, StageTimes times) {
+                                    TrendSource store, AnalysisSettings settings, StageTimes times) {
         if (!u.analyzable()) {
             return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED,
                     CoverageSummary.reason(coverage, u), List.of(), null), null);
@@ -247,9 +262,12 @@ public final class FleetAnalysis {
                             : "units of kind " + u.unitKind()) + " in this version (coverage: analysable with profile "
                             + u.profileName() + ")", List.of(), null), null);
         }
+        // Outside the try: a source that cannot be read (a database gone away, a value that is not a number) stops
+        // the run with its one-line error instead of failing unit after unit.
+        long t0 = System.nanoTime();
+        Map<String, ResampledSeries> series = store.read(in.seriesKinds().keySet());
         try {
-            long t0 = System.nanoTime();
-            SignalPreparation.Prepared p = prepare(in, store);
+            SignalPreparation.Prepared p = prepare(in, series, store);
             times.add(StageTimes.Stage.RESAMPLE, System.nanoTime() - t0);
             UnitSignals s = p.signals();
             if (!UnitSignals.present(s.zoneAirTemperature()) || !UnitSignals.present(s.dischargeAirTemperature())) {

@@ -32,6 +32,7 @@ import org.tufa.analysis.findings.DirectionCheck;
 import org.tufa.analysis.findings.Finding;
 import org.tufa.analysis.findings.IndexRange;
 import org.tufa.analysis.findings.ModeHunting;
+import org.tufa.analysis.findings.NormalReference;
 import org.tufa.analysis.findings.Shift;
 import org.tufa.analysis.load.SensibleLoad;
 import org.tufa.analysis.modes.FanSignal;
@@ -165,7 +166,7 @@ public final class UnitAnalysis {
 
         EpisodeFinder.Parameters parameters(double gate, double minShare) {
             return new EpisodeFinder.Parameters(settings.minDayDeviation(), gate, minShare, 1, 4,
-                    settings.maxEpisodeWindowDays());
+                    settings.maxEpisodeWindowDays(), settings.minEpisodeDays());
         }
 
         /**
@@ -197,8 +198,8 @@ public final class UnitAnalysis {
                     continue;
                 }
                 String text = String.format(Locale.ROOT, "%s on %.0f %% of the samples on %d day(s), against %.0f %%"
-                        + " on the unit's normal days", kind, 100 * (e.meanShift() + c.center()), e.faultDays(),
-                        100 * c.center());
+                        + " on the unit's normal days", kind, 100 * e.meanValue(), e.faultDays(),
+                        100 * e.meanNormal());
                 candidates.add(new ChannelEvidence.Candidate(e, finding(mode, kind, -1, r, List.of(),
                         settings.causes().causes(kind, List.of(), null)).withEvidence(text)));
             }
@@ -207,11 +208,17 @@ public final class UnitAnalysis {
 
         ChannelEvidence evidence(String mode, DayChannel c, String unit, double gate, int[] rows,
                                  List<ChannelEvidence.Candidate> candidates) {
+            return evidence(mode, c, c.center(), c.spread(), unit, gate, rows, candidates);
+        }
+
+        /** A channel with its normal level in engineering units given apart (share channels of a feature). */
+        ChannelEvidence evidence(String mode, DayChannel c, double level, double levelSpread, String unit,
+                                 double gate, int[] rows, List<ChannelEvidence.Candidate> candidates) {
             double scan = ScanStatistic.max(c.z(), settings.maxEpisodeWindowDays());
             IndexRange span = rows.length == 0 ? null : new IndexRange(rows[0], rows[rows.length - 1] + 1);
             Finding spanFinding = span == null ? null : finding(mode, c.channel(), -1, span, List.of(), List.of());
-            return new ChannelEvidence(mode, c.channel(), c.direction(), unit, c.center(), c.spread(), gate,
-                    c.size(), scan, spanFinding, candidates);
+            return new ChannelEvidence(mode, c.channel(), c.direction(), unit, c.center(), c.spread(), level,
+                    levelSpread, gate, c.size(), scan, spanFinding, candidates);
         }
 
         Finding finding(String mode, String kind, int cluster, IndexRange r, List<Shift> shifts, List<String> causes) {
@@ -305,12 +312,16 @@ public final class UnitAnalysis {
         times.add(StageTimes.Stage.OPTICS, t3 - t2);
         AutoClusters clusters = Extraction.auto(optics, settings.extraction());
         double[] weight = dayWeights(features.sampleIndex(), cx.day());
-        int[] labels = byDays(clusters.labels(), clusters.clusterCount(), weight);
-        List<ClusterSummary> summaries = summarise(name, features, labels, clusters.clusterCount(), settings);
-        boolean[] reference = new boolean[labels.length];
-        for (int k = 0; k < labels.length; k++) {
-            reference[k] = labels[k] >= 0 && !summaries.get(labels[k]).candidateFault();
+        double[] gates = new double[features.width()];
+        for (int j = 0; j < gates.length; j++) {
+            gates[j] = gate(features.names().get(j), settings);
         }
+        NormalReference normal = NormalReference.fit(features, clusters.labels(), clusters.clusterCount(), weight,
+                gates);
+        int[] labels = normal.labels();
+        boolean[] reference = normal.reference();
+        List<ClusterSummary> summaries = summarise(name, features, labels, clusters.clusterCount(),
+                normal.referenceCount(), reference, settings);
         double referenceShare = referenceSamples(reference) / (double) labels.length;
         boolean dominant = normalDayShare(reference, labels, features.sampleIndex(), cx) >= MIN_REFERENCE_SHARE;
         evidence.addAll(clusterEvidence(name, features, labels, summaries, reference, dominant, cx));
@@ -379,35 +390,12 @@ public final class UnitAnalysis {
     }
 
     /**
-     * Relabels clusters by decreasing size counted in days ({@link #dayWeights}), ties by their first label: label 0
-     * is then the cluster covering most days of the unit's operation, the normal one. Noise stays -1.
-     */
-    static int[] byDays(int[] labels, int count, double[] weight) {
-        double[] size = new double[count];
-        for (int k = 0; k < labels.length; k++) {
-            if (labels[k] >= 0) {
-                size[labels[k]] += weight[k];
-            }
-        }
-        Integer[] order = new Integer[count];
-        for (int c = 0; c < count; c++) {
-            order[c] = c;
-        }
-        Arrays.sort(order, Comparator.comparingDouble((Integer c) -> -size[c]).thenComparingInt(c -> c));
-        int[] newLabel = new int[count];
-        for (int rank = 0; rank < count; rank++) {
-            newLabel[order[rank]] = rank;
-        }
-        int[] out = new int[labels.length];
-        for (int k = 0; k < labels.length; k++) {
-            out[k] = labels[k] < 0 ? -1 : newLabel[labels[k]];
-        }
-        return out;
-    }
-
-    /**
-     * The health features of one mode as day channels, and their episodes: the candidate-fault clusters that
-     * dominate days on which the feature strays from the unit's normal days.
+     * The health features of one mode as day channels, and their episodes. Per feature and fault side the day's
+     * value is the share of its samples in candidate-fault clusters leaning to that side; a fault day holds an
+     * unusual share of them for this unit (against its own normal days, {@link DayChannel}), at least a quarter of
+     * the day, and those samples lie past the engineering gate from normal that day. A share rather than the
+     * day's median, because many faults show for part of each day only: a leaking heating valve when the cooling
+     * valve is nearly shut, a fouled coil at high load.
      */
     private static List<ChannelEvidence> clusterEvidence(String mode, FeatureMatrix f, int[] labels,
                                                          List<ClusterSummary> summaries, boolean[] reference,
@@ -425,45 +413,82 @@ public final class UnitAnalysis {
                 continue;
             }
             String feature = f.names().get(j);
-            int[] directions = faultDirections(feature);
             double gate = gate(feature, settings);
-            // Rows in a candidate cluster whose shift on this feature passes the gate (either fault side).
-            boolean[] candidate = new boolean[n];
-            boolean[][] candidateOn = new boolean[2][n];
-            for (int k = 0; k < n; k++) {
-                int l = labels[k];
-                if (l <= 0 || !summaries.get(l).candidateFault()) {
-                    continue;
-                }
-                double shift = summaries.get(l).shifts().get(j).value();
-                for (int dir : directions) {
-                    if (dir * shift >= gate) {
-                        candidate[k] = true;
-                        candidateOn[dir > 0 ? 0 : 1][k] = true;
-                    }
-                }
-            }
-            DayChannel base = DayChannel.ofMedians(feature, 1, dayOfRow, f.column(j), candidate, cx.minDaySamples(),
+            double[] column = f.column(j);
+            double normalLevel = ClusterShifts.median(f.rows(), reference, j);
+            // The feature's own day medians: the unit's normal level and spread, for the comparison with peers.
+            DayChannel levels = DayChannel.ofMedians(feature, 1, dayOfRow, column, null, cx.minDaySamples(),
                     floor(feature));
-            if (base.size() == 0) {
+            if (levels.size() == 0) {
                 continue;
             }
-            for (int dir : directions) {
-                DayChannel c = dir > 0 ? base : base.flipped();
-                double dayGate = feature.equals("valve_activity") ? Math.max(gate, 0.5 * c.center()) : gate;
+            for (int dir : faultDirections(feature)) {
+                double dayGate = feature.equals("valve_activity") ? Math.max(gate, 0.5 * normalLevel) : gate;
+                // Rows in a candidate-fault cluster that leans to this side by at least half the gate: a fault the
+                // clustering split into neighbouring clusters still counts whole, and its samples must then pass
+                // the whole gate on the day.
+                boolean[] side = new boolean[n];
+                for (int k = 0; k < n; k++) {
+                    int l = labels[k];
+                    side[k] = l > 0 && summaries.get(l).candidateFault()
+                            && dir * summaries.get(l).shifts().get(j).value() >= 0.5 * gate;
+                }
+                DayChannel c = DayChannel.ofShares(feature, dayOfRow, side, cx.minDaySamples(), SHARE_FLOOR);
+                double[] magnitude = dayMagnitude(c, dayOfRow, side, column, normalLevel, dir);
                 List<ChannelEvidence.Candidate> candidates = new ArrayList<>();
                 if (dominant) {
-                    boolean[] side = candidateOn[dir > 0 ? 0 : 1];
-                    for (Episode e : EpisodeFinder.find(c, cx.parameters(dayGate, Double.NaN))) {
+                    for (Episode e : EpisodeFinder.find(c, cx.parameters(RULE_GATE, CLUSTER_MIN_SHARE), magnitude,
+                            dayGate)) {
                         ChannelEvidence.Candidate cand = clusterCandidate(mode, f, labels, summaries, reference,
-                                side, rows, dayOfRow, e, c, cx);
+                                side, rows, dayOfRow, e, feature, dir, c, cx);
                         if (cand != null) {
                             candidates.add(cand);
                         }
                     }
                 }
-                out.add(cx.evidence(mode, c, f.units().get(j), dayGate, rows, candidates));
+                DayChannel level = dir > 0 ? levels : levels.flipped();
+                out.add(new ChannelEvidence(mode, feature, dir, f.units().get(j), c.center(), c.spread(),
+                        normalLevel, level.spread(), dayGate, c.size(),
+                        ScanStatistic.max(c.z(), settings.maxEpisodeWindowDays()),
+                        cx.finding(mode, feature, -1, new IndexRange(rows[0], rows[n - 1] + 1), List.of(),
+                                List.of()), candidates));
             }
+        }
+        return out;
+    }
+
+    /** Share of a day's clustered samples that candidate-fault clusters must hold on a fault day. */
+    static final double CLUSTER_MIN_SHARE = 0.25;
+
+    /**
+     * Per informative day of a share channel: how far the day's side rows lie from the normal level, fault side
+     * positive (the median of the feature over them, minus normal); NaN on days without side rows.
+     */
+    private static double[] dayMagnitude(DayChannel c, int[] dayOfRow, boolean[] side, double[] column,
+                                         double normalLevel, int dir) {
+        double[] out = new double[c.size()];
+        Arrays.fill(out, Double.NaN);
+        double[] buffer = new double[dayOfRow.length];
+        int k = 0;
+        int i = 0;
+        while (i < dayOfRow.length && k < c.size()) {
+            int j = i;
+            int m = 0;
+            while (j < dayOfRow.length && dayOfRow[j] == dayOfRow[i]) {
+                if (side[j] && !Double.isNaN(column[j])) {
+                    buffer[m++] = column[j];
+                }
+                j++;
+            }
+            while (k < c.size() && c.days()[k] < dayOfRow[i]) {
+                k++;
+            }
+            if (k < c.size() && c.days()[k] == dayOfRow[i] && m > 0) {
+                Arrays.sort(buffer, 0, m);
+                double median = m % 2 == 1 ? buffer[m / 2] : 0.5 * (buffer[m / 2 - 1] + buffer[m / 2]);
+                out[k] = dir * (median - normalLevel);
+            }
+            i = j;
         }
         return out;
     }
@@ -471,7 +496,7 @@ public final class UnitAnalysis {
     private static ChannelEvidence.Candidate clusterCandidate(String mode, FeatureMatrix f, int[] labels,
                                                              List<ClusterSummary> summaries, boolean[] reference,
                                                              boolean[] side, int[] rows, int[] dayOfRow, Episode e,
-                                                             DayChannel c, Context cx) {
+                                                             String feature, int dir, DayChannel c, Context cx) {
         IndexRange r = rangeOf(rows, side, dayOfRow, e.firstDay(), e.lastDay());
         if (r == null) {
             return null;
@@ -492,14 +517,15 @@ public final class UnitAnalysis {
             }
         }
         List<Shift> shifts = ClusterShifts.of(f, inEpisode, reference);
-        DirectionCheck.Outcome dir = summaries.get(cluster).direction();
-        boolean directionFault = dir == DirectionCheck.Outcome.FAILS
+        DirectionCheck.Outcome direction = summaries.get(cluster).direction();
+        boolean directionFault = direction == DirectionCheck.Outcome.FAILS
                 && summaries.get(0).direction() == DirectionCheck.Outcome.AS_EXPECTED;
-        List<String> causes = cx.settings().causes().causes(mode, shifts, directionFault ? dir : null);
-        String unit = f.units().get(f.indexOf(c.channel()));
-        String text = String.format(Locale.ROOT, "%s %+.1f %s from the unit's normal days (%.1f day-to-day spreads)"
-                        + " on %d day(s)", c.channel(), c.direction() * e.meanShift(), unit.equals("degC") ? "K" : unit,
-                e.meanZ(), e.faultDays());
+        List<String> causes = cx.settings().causes().causes(mode, shifts, directionFault ? direction : null);
+        String unit = f.units().get(f.indexOf(feature));
+        String text = String.format(Locale.ROOT, "%s %+.1f %s from normal on %.0f %% of the samples, %d day(s) (%.0f %%"
+                        + " on the unit's normal days; %.1f day-to-day spreads)", feature, dir * e.meanShift(),
+                unit.equals("degC") ? "K" : unit, 100 * e.meanValue(), e.faultDays(), 100 * e.meanNormal(),
+                e.meanZ());
         return new ChannelEvidence.Candidate(e, cx.finding(mode, "fault_cluster", cluster, r, shifts, causes)
                 .withEvidence(text));
     }
@@ -551,10 +577,10 @@ public final class UnitAnalysis {
     }
 
     /**
-     * A valve commanded fully shut. A command below the open threshold of the modes (5 %) still passes water on
-     * most valves (a 3 % command on an equal-percentage valve cools the air by kelvins), so fan-only analysis takes
-     * only samples whose valves are commanded shut (common practice, no source). A missing command is a missing
-     * valve.
+     * A valve commanded fully shut: at most half a percent, i.e. zero as a BAS logs commands (to 1 % or 0.01).
+     * A command below the open threshold of the modes (5 %) still passes water on most valves (a 2 % command on
+     * an equal-percentage valve cools the air by kelvins), so fan-only analysis takes only samples whose valves are
+     * commanded shut (common practice, no source). A missing command is a missing valve.
      */
     static boolean shut(double command) {
         return Double.isNaN(command) || command <= SHUT_PERCENT;
@@ -567,7 +593,7 @@ public final class UnitAnalysis {
     static final double STEADY_STEP_K = 1.1;
 
     /** Largest command that counts as fully shut, percent. */
-    static final double SHUT_PERCENT = 1.0;
+    static final double SHUT_PERCENT = 0.5;
 
     /** The sides of a health feature that mean a fault: a calmer valve or a cooler zone is no fault. */
     static int[] faultDirections(String feature) {
@@ -586,27 +612,34 @@ public final class UnitAnalysis {
         return feature.equals("valve_activity") ? 0.5 : 0.15;
     }
 
-    /** Shifts, direction check and gate of every cluster against cluster 0 (the largest). */
+    /**
+     * Shifts, direction check and gate of every cluster against the normal reference ({@link NormalReference}):
+     * clusters of the reference are normal (label 0, the seed, and other regimes of normal operation); another
+     * cluster is a candidate fault when it strays from the reference beyond the gate on a health feature, on its
+     * fault side, or fails the expected-direction check where the reference passes it.
+     */
     private static List<ClusterSummary> summarise(String mode, FeatureMatrix f, int[] labels, int count,
+                                                  int referenceCount, boolean[] reference,
                                                   AnalysisSettings settings) {
         List<ClusterSummary> out = new ArrayList<>(count);
         boolean coil = !mode.equals("ventilation");
         int valve = coil ? f.indexOf(mode.equals("cooling") ? "cooling_valve_command" : "heating_valve_command") : -1;
         int discharge = f.indexOf("discharge_air_temperature");
         DirectionCheck.Outcome normalDirection = coil
-                ? direction(f, labels, 0, valve, discharge, mode.equals("cooling")) : null;
+                ? direction(f, reference, valve, discharge, mode.equals("cooling")) : null;
         for (int c = 0; c < count; c++) {
+            boolean[] in = new boolean[labels.length];
             int size = 0;
-            for (int l : labels) {
-                size += l == c ? 1 : 0;
+            for (int k = 0; k < labels.length; k++) {
+                in[k] = labels[k] == c;
+                size += in[k] ? 1 : 0;
             }
-            if (c == 0) {
-                out.add(new ClusterSummary(0, size, false, List.of(), normalDirection, List.of()));
+            List<Shift> shifts = c == 0 ? List.of() : ClusterShifts.of(f, in, reference);
+            DirectionCheck.Outcome dir = coil ? direction(f, in, valve, discharge, mode.equals("cooling")) : null;
+            if (c < referenceCount) {
+                out.add(new ClusterSummary(c, size, false, shifts, dir, List.of()));
                 continue;
             }
-            List<Shift> shifts = ClusterShifts.of(f, labels, 0, c);
-            DirectionCheck.Outcome dir = coil ? direction(f, labels, c, valve, discharge, mode.equals("cooling"))
-                    : null;
             boolean significant = false;
             for (int j = 0; j < f.width(); j++) {
                 if (!f.health()[j]) {
@@ -659,17 +692,17 @@ public final class UnitAnalysis {
         };
     }
 
-    private static DirectionCheck.Outcome direction(FeatureMatrix f, int[] labels, int cluster, int valve,
-                                                    int discharge, boolean cooling) {
+    private static DirectionCheck.Outcome direction(FeatureMatrix f, boolean[] rows, int valve, int discharge,
+                                                    boolean cooling) {
         int size = 0;
-        for (int l : labels) {
-            size += l == cluster ? 1 : 0;
+        for (boolean r : rows) {
+            size += r ? 1 : 0;
         }
         double[] v = new double[size];
         double[] d = new double[size];
         int k = 0;
-        for (int i = 0; i < labels.length; i++) {
-            if (labels[i] == cluster) {
+        for (int i = 0; i < rows.length; i++) {
+            if (rows[i]) {
                 v[k] = f.rows()[i][valve];
                 d[k++] = f.rows()[i][discharge];
             }

@@ -2,33 +2,50 @@ package org.tufa.analysis.fleet;
 
 import java.nio.file.Path;
 import java.time.ZoneId;
+import java.util.ArrayList;
+import java.util.List;
 import org.tufa.analysis.cluster.OpticsResult;
 import org.tufa.analysis.cluster.PcaResult;
 import org.tufa.analysis.features.FeatureMatrix;
 import org.tufa.analysis.modes.OperatingMode;
+import org.tufa.analysis.tables.SampleColumn;
+import org.tufa.analysis.tables.SampleFormat;
+import org.tufa.analysis.tables.SampleTable;
 import org.tufa.common.OutputFiles;
 
 /**
- * Writes one unit's files under {@code DIR/units/<folder>/}: {@code modes.csv} (every sample's mode and band
- * state), {@code summary.json} (notes, clusters, shifts, PCA loadings, findings; written once
- * the fleet stage has decided), and per clustered mode
- * {@code features.csv}, {@code scores.csv} and {@code reachability.csv}. Numbers in the per-mode files are
- * written with full double precision (a form that parses back to the same double), so the clustering can be re-run elsewhere
- * and reproduces the ordering exactly.
+ * Writes one unit's files under {@code DIR/units/<folder>/}: {@code modes} (every sample's mode and band state),
+ * {@code summary.json} (notes, clusters, shifts, PCA loadings, findings; written once the fleet stage has decided),
+ * and per clustered mode {@code features}, {@code scores} and {@code reachability}. The per-sample tables are
+ * Parquet ({@code .parquet}) or CSV ({@code .csv}), same columns either way ({@link SampleFormat}). Numbers are
+ * written at full double precision, so the clustering can be re-run elsewhere and reproduces the ordering exactly.
  */
 public final class UnitFiles implements UnitSink {
 
+    private static final List<SampleColumn> MODE_COLUMNS = List.of(SampleColumn.time("timestamp"),
+            SampleColumn.text("mode"), SampleColumn.flag("in_band"));
+    private static final List<SampleColumn> REACHABILITY_COLUMNS = List.of(SampleColumn.integer("order"),
+            SampleColumn.time("timestamp"), SampleColumn.real("reachability"), SampleColumn.real("core_distance"),
+            SampleColumn.integer("cluster"));
+
     private final Path unitsDir;
     private final ZoneId zone;
+    private final SampleFormat format;
     /** Formatted time of every grid sample, made once per run: every unit shares the grid. */
     private volatile GridTimes gridTimes;
 
     private record GridTimes(java.time.Instant start, java.time.Duration interval, String[] text) {
     }
 
+    /** Per-sample tables as CSV, as tufa wrote them before Parquet. */
     public UnitFiles(Path outDir, ZoneId zone) {
+        this(outDir, zone, SampleFormat.CSV);
+    }
+
+    public UnitFiles(Path outDir, ZoneId zone, SampleFormat format) {
         this.unitsDir = outDir.resolve("units");
         this.zone = zone;
+        this.format = format;
     }
 
     private Path folder(UnitOutcome o) {
@@ -57,22 +74,22 @@ public final class UnitFiles implements UnitSink {
         }
         UnitAnalysis.Result r = o.result();
         String[] times = times(r);
-        OutputFiles.writeText(dir.resolve("modes.csv"), w -> {
-            w.write("timestamp,mode,in_band\n");
+        long start = r.gridStart().getEpochSecond();
+        long step = r.interval().getSeconds();
+        SampleTable.write(dir, "modes", format, MODE_COLUMNS, t -> {
             byte[] codes = r.modes().codes();
             for (int i = 0; i < codes.length; i++) {
-                w.write(times[i]);
-                w.write(',');
-                w.write(OperatingMode.ofCode(codes[i]).label());
-                w.write(',');
+                t.time(start + i * step, times[i]);
+                t.text(OperatingMode.ofCode(codes[i]).label());
                 byte b = r.bandState()[i];
-                w.write(b == UnitAnalysis.Result.IN_BAND ? "true" : b == UnitAnalysis.Result.OUT_OF_BAND ? "false" : "");
-                w.write('\n');
+                t.flag(b == UnitAnalysis.Result.IN_BAND ? Boolean.TRUE
+                        : b == UnitAnalysis.Result.OUT_OF_BAND ? Boolean.FALSE : null);
+                t.endRow();
             }
         });
         for (ModeResult m : r.modeResults()) {
             if (m.analyzed()) {
-                writeMode(dir.resolve(m.mode()), m, times);
+                writeMode(dir.resolve(m.mode()), m, times, start, step);
             }
         }
     }
@@ -89,7 +106,8 @@ public final class UnitFiles implements UnitSink {
                     java.time.Instant start = r.gridStart();
                     long step = r.interval().toNanos();
                     for (int i = 0; i < n; i++) {
-                        text[i] = Csv.time(start.plusNanos(step * i), zone);
+                        // Parquet stores the instant; the text is needed only for CSV.
+                        text[i] = format == SampleFormat.CSV ? Csv.time(start.plusNanos(step * i), zone) : "";
                     }
                     g = new GridTimes(r.gridStart(), r.interval(), text);
                     gridTimes = g;
@@ -99,45 +117,49 @@ public final class UnitFiles implements UnitSink {
         return g.text();
     }
 
-    private void writeMode(Path dir, ModeResult m, String[] times) {
+    private void writeMode(Path dir, ModeResult m, String[] times, long start, long step) {
         OutputFiles.ensureFolder(dir);
         FeatureMatrix f = m.features();
-        OutputFiles.writeText(dir.resolve("features.csv"), w -> {
-            w.write("timestamp," + String.join(",", f.names()) + "\n");
+        int[] sample = f.sampleIndex();
+        List<SampleColumn> featureColumns = new ArrayList<>();
+        featureColumns.add(SampleColumn.time("timestamp"));
+        f.names().forEach(n -> featureColumns.add(SampleColumn.real(n)));
+        SampleTable.write(dir, "features", format, featureColumns, t -> {
             for (int i = 0; i < f.size(); i++) {
-                w.write(times[f.sampleIndex()[i]]);
+                t.time(start + sample[i] * step, times[sample[i]]);
                 for (double v : f.rows()[i]) {
-                    w.write(',');
-                    w.write(Csv.number(v));
+                    t.real(v);
                 }
-                w.write('\n');
+                t.endRow();
             }
         });
         PcaResult pca = m.pca();
-        OutputFiles.writeText(dir.resolve("scores.csv"), w -> {
-            w.write("timestamp");
-            for (int k = 1; k <= pca.componentCount(); k++) {
-                w.write(",pc" + k);
-            }
-            w.write('\n');
+        List<SampleColumn> scoreColumns = new ArrayList<>();
+        scoreColumns.add(SampleColumn.time("timestamp"));
+        for (int k = 1; k <= pca.componentCount(); k++) {
+            scoreColumns.add(SampleColumn.real("pc" + k));
+        }
+        SampleTable.write(dir, "scores", format, scoreColumns, t -> {
             double[][] scores = pca.scores();
             for (int i = 0; i < scores.length; i++) {
-                w.write(times[f.sampleIndex()[i]]);
+                t.time(start + sample[i] * step, times[sample[i]]);
                 for (double v : scores[i]) {
-                    w.write(',');
-                    w.write(Csv.number(v));
+                    t.real(v);
                 }
-                w.write('\n');
+                t.endRow();
             }
         });
         OpticsResult o = m.optics();
         int[] order = o.ordering();
-        OutputFiles.writeText(dir.resolve("reachability.csv"), w -> {
-            w.write("order,timestamp,reachability,core_distance,cluster\n");
+        SampleTable.write(dir, "reachability", format, REACHABILITY_COLUMNS, t -> {
             for (int k = 0; k < order.length; k++) {
                 int i = order[k];
-                w.write(k + "," + times[f.sampleIndex()[i]] + "," + Csv.number(o.reachabilityOf(i))
-                        + "," + Csv.number(o.coreDistanceOf(i)) + "," + m.labels()[i] + "\n");
+                t.integer(k);
+                t.time(start + sample[i] * step, times[sample[i]]);
+                t.real(o.reachabilityOf(i));
+                t.real(o.coreDistanceOf(i));
+                t.integer(m.labels()[i]);
+                t.endRow();
             }
         });
     }

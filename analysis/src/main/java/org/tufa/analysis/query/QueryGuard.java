@@ -33,14 +33,14 @@ import org.tufa.common.InputException;
  * <li>{@code SERVICE} sends the query to another endpoint over HTTP: refused, unless the endpoint is named with
  * {@code --allow-service};</li>
  * <li>{@code FROM} and {@code FROM NAMED} ask the engine to load a file or URL as the dataset: refused (the
- * dataset is the model given with {@code --model});</li>
+ * dataset is the model given with {@code --model}, or read from {@code --store});</li>
  * <li>function and property-function IRIs in the {@code java:} scheme make ARQ load that class by name and run
  * it: refused (a property function is a plain predicate; a longer property path never loads code).</li>
  * </ul>
  * The query is checked on its algebra (so prefixes, sub-queries and {@code EXISTS} patterns are all seen) before
  * it runs, and the execution context repeats the refusal ({@link #sandbox}) in case a form slips past the check.
  */
-final class QueryGuard {
+public final class QueryGuard {
 
     /** ARQ's scheme for functions loaded as Java classes by name. */
     static final String JAVA_SCHEME = "java:";
@@ -58,7 +58,8 @@ final class QueryGuard {
             String first = !query.getGraphURIs().isEmpty() ? query.getGraphURIs().get(0)
                     : query.getNamedGraphURIs().get(0);
             throw new InputException(source + ": FROM / FROM NAMED <" + first + "> would load another file or URL; "
-                    + "tufa query runs on the --model file (and its vocabulary) only: remove the FROM clause");
+                    + "tufa query runs on the model of --model or --store (and its vocabulary) only: remove the FROM "
+                    + "clause");
         }
         Op op = Algebra.compile(query);
         ExprVisitorBase functions = new ExprVisitorBase() {
@@ -139,7 +140,7 @@ final class QueryGuard {
      * The execution context of a user query: no HTTP SERVICE calls unless endpoints were allowed, and function
      * registries that never load a class named by a {@code java:} IRI.
      */
-    static void sandbox(Context context, boolean servicesAllowed) {
+    public static void sandbox(Context context, boolean servicesAllowed) {
         context.set(ARQ.httpServiceAllowed, servicesAllowed);
         FunctionRegistry functions = new FunctionRegistry() {
             private final FunctionRegistry standard = FunctionRegistry.get();

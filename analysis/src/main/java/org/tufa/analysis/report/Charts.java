@@ -280,8 +280,8 @@ final class Charts {
     }
 
     /**
-     * Draws the chart into a white RGB image and writes it as PNG. ImageIO's PNG writer adds no time stamp, so the
-     * same chart gives the same bytes.
+     * Draws the chart into a white RGB image and writes it as an 8-bit palette PNG ({@link PaletteImage}: about half
+     * the bytes of true colour). ImageIO's PNG writer adds no time stamp, so the same chart gives the same bytes.
      */
     static void writePng(JFreeChart chart, int width, int height, Path file) {
         BufferedImage image = new BufferedImage(width, height, BufferedImage.TYPE_INT_RGB);
@@ -293,6 +293,7 @@ final class Charts {
             g.dispose();
         }
         ImageWriter writer = ImageIO.getImageWritersByFormatName("png").next();
+        BufferedImage palette = PaletteImage.reduce(image);
         try {
             org.tufa.common.OutputFiles.write(file, out -> {
                 try (ImageOutputStream stream = ImageIO.createImageOutputStream(out)) {
@@ -302,7 +303,7 @@ final class Charts {
                     // encoded in 10 ms instead of 18 ms with the default, and the file was smaller (61 kB vs 65 kB).
                     param.setCompressionMode(ImageWriteParam.MODE_EXPLICIT);
                     param.setCompressionQuality(0.7f);
-                    writer.write(null, new IIOImage(image, null, null), param);
+                    writer.write(null, new IIOImage(palette, null, null), param);
                 }
             });
         } finally {

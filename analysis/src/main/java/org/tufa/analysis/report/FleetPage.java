@@ -1,5 +1,8 @@
 package org.tufa.analysis.report;
 
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.ZoneId;
 import java.util.List;
@@ -10,9 +13,11 @@ import org.tufa.analysis.coverage.PointRef;
 import org.tufa.analysis.coverage.RoleMatch;
 import org.tufa.analysis.coverage.UnitCoverage;
 import org.tufa.analysis.findings.Finding;
+import org.tufa.analysis.findings.Shift;
 import org.tufa.analysis.fleet.FleetAnalysis;
 import org.tufa.analysis.fleet.FleetOutputs;
 import org.tufa.analysis.fleet.UnitOutcome;
+import org.tufa.analysis.review.ReviewStep;
 
 /**
  * The fleet page, {@code DIR/report/index.html}: unit counts, ranking, the findings table (sortable), every unit
@@ -40,6 +45,21 @@ public final class FleetPage {
         return index;
     }
 
+    /** "N files, X.X MB" for a report folder: what the console says after writing it. */
+    public static String describeSize(Path reportDir) {
+        long files = 0;
+        long bytes = 0;
+        try (java.util.stream.Stream<Path> s = Files.walk(reportDir)) {
+            for (Path p : s.filter(Files::isRegularFile).toList()) {
+                files++;
+                bytes += Files.size(p);
+            }
+        } catch (IOException e) {
+            throw new UncheckedIOException("cannot list " + reportDir + ": " + e.getMessage(), e);
+        }
+        return String.format(java.util.Locale.ROOT, "%d files, %.1f MB", files, bytes / 1e6);
+    }
+
     static String page(FleetAnalysis.Result result, FleetCoverage coverage, ZoneId zone) {
         List<UnitOutcome> units = result.units();
         Map<String, UnitOutcome> byUnit = new TreeMap<>();
@@ -58,9 +78,12 @@ public final class FleetPage {
         return b.toString();
     }
 
-    private static String link(UnitOutcome u) {
-        String name = u.label().isEmpty() ? u.unit() : u.label();
-        return "<a href=\"units/" + Html.esc(u.folder()) + "/index.html\">" + Html.esc(name) + "</a>";
+    private static String name(UnitOutcome u) {
+        return u.label().isEmpty() ? u.unit() : u.label();
+    }
+
+    private static String href(UnitOutcome u) {
+        return "units/" + u.folder() + "/index.html";
     }
 
     private static void counts(StringBuilder b, FleetAnalysis.Result result, FleetCoverage coverage, ZoneId zone) {
@@ -149,27 +172,18 @@ public final class FleetPage {
             return;
         }
         b.append("<p>Units with findings, by their most confident finding, then fault hours (overlapping findings "
-                + "counted once), then estimated sensible energy moved during the findings.</p>\n"
-                + "<table class=\"sortable\">\n<thead><tr><th class=\"num\">rank</th><th>unit</th>"
-                + "<th class=\"num\">top confidence</th><th class=\"num\">fault hours</th>"
-                + "<th class=\"num\">energy (kWh)</th><th class=\"num\">findings</th></tr></thead>\n<tbody>\n");
+                + "counted once), then estimated sensible energy moved during the findings.</p>\n");
+        DataTable t = new DataTable("ranking", "../ranking.csv").column("rank", true).column("unit", false)
+                .column("top confidence", true).column("fault hours", true).column("energy (kWh)", true)
+                .column("findings", true);
         int rank = 1;
         for (UnitOutcome u : ranked) {
-            b.append("<tr><td class=\"num\" data-sort=\"").append(rank).append("\">").append(rank).append("</td><td>")
-                    .append(link(u)).append("</td>");
-            num(b, u.topConfidence(), 3);
-            num(b, u.faultHours(), 1);
-            num(b, u.faultEnergyKwh(), 0);
-            b.append("<td class=\"num\" data-sort=\"").append(u.findings().size()).append("\">")
-                    .append(u.findings().size()).append("</td></tr>\n");
+            t.row().sorted(Integer.toString(rank), rank).link(name(u), href(u)).number(u.topConfidence(), 3)
+                    .number(u.faultHours(), 1).number(u.faultEnergyKwh(), 0)
+                    .sorted(Integer.toString(u.findings().size()), u.findings().size());
             rank++;
         }
-        b.append("</tbody>\n</table>\n");
-    }
-
-    private static void num(StringBuilder b, double v, int decimals) {
-        b.append("<td class=\"num\" data-sort=\"").append(Double.isNaN(v) ? "-1e300" : Html.fixed(v, 6))
-                .append("\">").append(Html.fixed(v, decimals)).append("</td>");
+        t.appendTo(b);
     }
 
     private static void findings(StringBuilder b, FleetAnalysis.Result result, ZoneId zone) {
@@ -182,84 +196,78 @@ public final class FleetPage {
             return;
         }
         ReviewControls.toolbar(b, result, zone);
-        b.append("<p>Click a column header to sort (needs JavaScript; without it the table stays in unit and time "
-                + "order). Details, charts and candidate causes on each unit's page.</p>\n"
-                + "<table class=\"sortable\">\n<thead><tr><th>unit</th><th class=\"num\">confidence</th>"
-                + "<th>mode</th><th>kind</th><th>cluster</th>"
-                + "<th>start</th><th>end</th><th class=\"num\">hours</th><th class=\"num\">energy (kWh)</th>"
-                + "<th>evidence</th><th>shift from normal</th><th>candidate causes</th><th>id</th>"
-                + "<th>review: verdict, cause, note</th></tr></thead>\n<tbody>\n");
+        b.append("<p>Click a column header to sort. Details, charts and candidate causes on each unit's page.</p>\n");
+        DataTable t = new DataTable("findings", "../findings.csv").column("unit", false).column("confidence", true)
+                .column("mode", false).column("kind", false).column("cluster", false).column("start", true)
+                .column("end", true).column("hours", true).column("energy (kWh)", true).column("evidence", false)
+                .column("shift from normal", false).column("candidate causes", false).column("id", false)
+                .column("review: verdict, cause, note", false);
         for (UnitOutcome u : units) {
             for (Finding f : u.findings()) {
-                b.append("<tr><td>").append(link(u)).append("</td>");
-                num(b, f.confidence(), 3);
-                b.append("<td>").append(Html.esc(f.mode()))
-                        .append("</td><td>").append(Html.esc(f.kind())).append("</td><td>")
-                        .append(f.cluster() < 0 ? "" : "C" + f.cluster()).append("</td><td class=\"t\" data-sort=\"")
-                        .append(f.start().getEpochSecond()).append("\">").append(Times.local(f.start(), zone))
-                        .append("</td><td class=\"t\" data-sort=\"").append(f.end().getEpochSecond()).append("\">")
-                        .append(Times.local(f.end(), zone)).append("</td>");
-                num(b, f.hours(), 1);
-                num(b, f.energyKwh(), 1);
-                b.append("<td>").append(Html.esc(f.evidence())).append("</td><td>").append(Html.shifts(f.shifts()))
-                        .append("</td><td>").append(Html.esc(String.join(" | ", f.causes())))
-                        .append("</td><td><code>").append(u.mark(f).findingId()).append("</code></td>")
-                        .append(ReviewControls.cell(u, f, zone)).append("</tr>\n");
+                ReviewStep.Mark mark = u.mark(f);
+                t.row().link(name(u), href(u)).number(f.confidence(), 3).text(f.mode()).text(f.kind())
+                        .text(f.cluster() < 0 ? "" : "C" + f.cluster())
+                        .time(Times.local(f.start(), zone), f.start().getEpochSecond())
+                        .time(Times.local(f.end(), zone), f.end().getEpochSecond())
+                        .number(f.hours(), 1).number(f.energyKwh(), 1).text(f.evidence())
+                        .text(String.join("\n", f.shifts().stream().map(Shift::describe).toList()))
+                        .text(String.join(" | ", f.causes())).text(mark.findingId())
+                        .review(mark.findingId(), ReviewControls.statusText(mark, zone));
             }
         }
-        b.append("</tbody>\n</table>\n");
+        t.appendTo(b);
     }
 
     private static void unitTable(StringBuilder b, List<UnitOutcome> units) {
-        b.append("<h2>Units</h2>\n<table class=\"sortable\">\n<thead><tr><th>unit</th><th>IRI</th><th>status</th>"
-                + "<th>modes clustered</th><th class=\"num\">fault hours</th><th class=\"num\">energy (kWh)</th>"
-                + "<th>reason</th></tr></thead>\n<tbody>\n");
+        b.append("<h2>Units</h2>\n");
+        DataTable t = new DataTable("units", "../fleet.csv").column("unit", false).column("IRI", false)
+                .column("status", false).column("modes clustered", false).column("fault hours", true)
+                .column("energy (kWh)", true).column("reason", false);
         for (UnitOutcome u : units) {
-            b.append("<tr><td>").append(link(u)).append("</td><td><code>").append(Html.esc(u.unit()))
-                    .append("</code></td><td").append(u.status().equals(UnitOutcome.FAILED) ? " class=\"failed\"" : "")
-                    .append('>').append(Html.esc(u.status())).append("</td><td>")
-                    .append(Html.esc(u.analyzedModes().replace(";", ", "))).append("</td>");
-            num(b, u.faultHours(), 1);
-            num(b, u.faultEnergyKwh(), 0);
-            b.append("<td>").append(Html.esc(u.reason())).append("</td></tr>\n");
+            DataTable.Row r = t.row().link(name(u), href(u)).text(u.unit());
+            if (u.status().equals(UnitOutcome.FAILED)) {
+                r.styled(u.status(), "failed", null);
+            } else {
+                r.text(u.status());
+            }
+            r.text(u.analyzedModes().replace(";", ", ")).number(u.faultHours(), 1).number(u.faultEnergyKwh(), 0)
+                    .text(u.reason());
         }
-        b.append("</tbody>\n</table>\n");
+        t.appendTo(b);
     }
 
     private static void coverageMatrix(StringBuilder b, FleetCoverage coverage, Map<String, UnitOutcome> byUnit) {
         List<String> roles = coverage.roleNames();
         b.append("<h2>Coverage: points found per unit and role</h2>\n<p>&quot;found&quot;: exactly one point "
                 + "qualifies (hover for its name); <strong>missing</strong>: none does; <em>ambiguous</em>: "
-                + "several do and the model must say which is meant (the role is then not used).</p>\n"
-                + "<table>\n<thead><tr><th>unit</th><th>profile</th>");
-        roles.forEach(r -> b.append("<th>").append(Html.esc(r.replace('_', ' '))).append("</th>"));
-        b.append("</tr></thead>\n<tbody>\n");
+                + "several do and the model must say which is meant (the role is then not used); empty: not a "
+                + "role of the unit's profile.</p>\n");
+        DataTable t = new DataTable("coverage", "../coverage.csv").column("unit", false).column("profile", false);
+        roles.forEach(r -> t.column(r.replace('_', ' '), false));
         for (UnitCoverage u : coverage.units()) {
             UnitOutcome o = byUnit.get(u.unit());
-            b.append("<tr><td>").append(o == null ? Html.esc(u.label().isEmpty() ? u.unit() : u.label()) : link(o))
-                    .append("</td><td>").append(Html.esc(u.profileName())).append("</td>");
+            DataTable.Row row = o == null ? t.row().text(u.label().isEmpty() ? u.unit() : u.label())
+                    : t.row().link(name(o), href(o));
+            row.text(u.profileName());
             for (String role : roles) {
                 RoleMatch m = u.roles().get(role);
                 if (m == null) {
-                    b.append("<td></td>"); // not a role of this unit's profile
+                    row.text("");
                     continue;
                 }
                 switch (m.status()) {
                     case FOUND -> {
                         PointRef p = m.point().orElse(null);
-                        String name = p == null ? "" : p.label() != null ? p.label() : p.iri();
-                        b.append("<td class=\"found\" title=\"").append(Html.esc(name)).append("\">found</td>");
+                        row.styled("found", "found", p == null ? "" : p.label() != null ? p.label() : p.iri());
                     }
-                    case MISSING -> b.append("<td class=\"missing\">missing</td>");
-                    case AMBIGUOUS -> b.append("<td class=\"ambiguous\" title=\"")
-                            .append(Html.esc(String.join(", ", m.candidates().stream().map(p -> p.label() != null
-                                    ? p.label() : p.iri()).toList()))).append("\">ambiguous (")
-                            .append(m.candidates().size()).append(")</td>");
+                    case MISSING -> row.styled("missing", "missing", null);
+                    case AMBIGUOUS -> row.styled("ambiguous (" + m.candidates().size() + ")", "ambiguous",
+                            String.join(", ", m.candidates().stream().map(p -> p.label() != null ? p.label()
+                                    : p.iri()).toList()));
                     default -> throw new IllegalStateException("unknown match status " + m.status());
                 }
             }
-            b.append("</tr>\n");
         }
-        b.append("</tbody>\n</table>\n");
+        t.appendTo(b);
     }
 }

@@ -92,6 +92,7 @@ final class Html {
             h1{font-size:1.5em}h2{font-size:1.25em;margin-top:1.6em;border-bottom:1px solid #ccc}h3{font-size:1.08em}
             table{border-collapse:collapse;margin:.5em 0 1em}th,td{border:1px solid #bbb;padding:.2em .45em;\
             text-align:left;vertical-align:top}th{background:#eee}td.num,th.num{text-align:right}td.t{white-space:nowrap}
+            .datatable td{white-space:pre-line}.datatable td.t{white-space:nowrap}
             table.sortable th{cursor:pointer}table.sortable th:after{content:" \\2195";color:#777;font-weight:normal}
             .caution{border:2px solid #D55E00;background:#fff6ef;padding:.5em .8em}
             .found{background:#e8f4fb}.missing{background:#fbe3d3;font-weight:bold}.ambiguous{background:#fdf3c4;\
@@ -121,5 +122,34 @@ final class Html {
             return s!==null?parseFloat(s):c.textContent.trim().toLowerCase();};
             rows.sort(function(a,b){var x=key(a),y=key(b);var d=(x<y?-1:x>y?1:0);return asc?d:-d;});
             rows.forEach(function(r){tb.appendChild(r);});});});});
-            """;
+            document.querySelectorAll('div.datatable').forEach(function(box){
+            var data=JSON.parse(document.getElementById(box.id+'-data').textContent);var rows=data.rows.slice();
+            var per=PAGE_ROWS;var page=0;var sortCol=-1;var asc=true;
+            var text=function(c){return typeof c==='string'?c:typeof c==='number'?data.strings[c]:c.t;};
+            var key=function(c){if(typeof c==='object'&&c.s!==undefined){return c.s;}return text(c).toLowerCase();};
+            var table=document.createElement('table');var head=table.createTHead().insertRow();
+            var body=table.createTBody();var nav=document.createElement('p');nav.className='small pager';
+            var prev=document.createElement('button');prev.textContent='previous';
+            var next=document.createElement('button');next.textContent='next';var where=document.createElement('span');
+            nav.appendChild(prev);nav.appendChild(document.createTextNode(' '));nav.appendChild(where);
+            nav.appendChild(document.createTextNode(' '));nav.appendChild(next);
+            var show=function(){body.textContent='';var from=page*per;var to=Math.min(rows.length,from+per);
+            for(var i=from;i<to;i++){var tr=body.insertRow();rows[i].forEach(function(c,j){var td=tr.insertCell();
+            if(data.columns[j].n){td.className='num';}
+            if(typeof c==='object'){if(c.c){td.className=c.c;}if(c.ti){td.title=c.ti;}
+            if(c.f){td.setAttribute('data-finding',c.f);}
+            if(c.h){var a=document.createElement('a');a.href=c.h;a.textContent=c.t;td.appendChild(a);return;}}
+            td.textContent=text(c);});}
+            where.textContent='rows '+(rows.length?from+1:0)+'-'+to+' of '+rows.length;
+            prev.disabled=page===0;next.disabled=to>=rows.length;nav.hidden=rows.length<=per;};
+            data.columns.forEach(function(col,j){var th=document.createElement('th');th.textContent=col.t;
+            if(col.n){th.className='num';}th.addEventListener('click',function(){asc=sortCol===j?!asc:true;sortCol=j;
+            head.querySelectorAll('th').forEach(function(h){h.removeAttribute('aria-sort');});
+            th.setAttribute('aria-sort',asc?'ascending':'descending');
+            rows.sort(function(a,b){var x=key(a[j]),y=key(b[j]);var d=(x<y?-1:x>y?1:0);return asc?d:-d;});
+            page=0;show();});head.appendChild(th);});
+            prev.addEventListener('click',function(){page--;show();});
+            next.addEventListener('click',function(){page++;show();});
+            table.className='sortable';box.appendChild(table);box.appendChild(nav);show();});
+            """.replace("PAGE_ROWS", Integer.toString(DataTable.PAGE_ROWS));
 }

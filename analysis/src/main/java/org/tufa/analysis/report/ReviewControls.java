@@ -27,7 +27,8 @@ import org.tufa.analysis.review.Verdict;
  * download of a local Blob (no server, no network; works from {@code file://}). Verdicts the run read that belong to
  * no listed finding (rejected findings no longer listed, verdicts that matched nothing) are written back unchanged,
  * so saving never loses a verdict. The controls are made by the script for every {@code td.review} cell, also for
- * cells added later (a table that is redrawn keeps its verdicts: they live in the page's state, not in the cells).
+ * cells added later: the findings table is drawn by the page's data-table script a page of rows at a time, and a
+ * redrawn or re-sorted table keeps its verdicts (they live in the page's state, not in the cells).
  * Without JavaScript the cells show the review status as text.
  */
 final class ReviewControls {
@@ -71,6 +72,22 @@ final class ReviewControls {
         if (!mark.overlapping().isEmpty()) {
             s.append(s.length() == 0 ? "" : "<br>").append("<span class=\"small\">overlaps ")
                     .append(Html.esc(FleetOutputs.overlaps(mark, zone))).append("</span>");
+        }
+        return s.toString();
+    }
+
+    /** The same status as plain text (for a data table's cell, which is inserted as text). */
+    static String statusText(ReviewStep.Mark mark, ZoneId zone) {
+        StringBuilder s = new StringBuilder();
+        if (mark.own() != null) {
+            s.append(mark.own().decision().word().replace('_', ' '));
+            if (!mark.own().cause().isEmpty()) {
+                s.append(": ").append(mark.own().cause());
+            }
+            s.append(" (review ").append(mark.own().where()).append(")");
+        }
+        if (!mark.overlapping().isEmpty()) {
+            s.append(s.length() == 0 ? "" : "\n").append("overlaps ").append(FleetOutputs.overlaps(mark, zone));
         }
         return s.toString();
     }

@@ -24,7 +24,7 @@ import java.util.List;
  * <p>Controllers usually log local time, producing both effects at each transition (notes section 9). Within an
  * unambiguous stretch the offset is cached, so the common case costs no allocation. Not thread-safe.
  */
-final class LocalTimeResolver {
+public final class LocalTimeResolver {
 
     private final ZoneId zone;
     private final ZoneRules rules;
@@ -41,13 +41,13 @@ final class LocalTimeResolver {
     /** Stamps inside a spring-forward gap, shifted forward. */
     long skipped;
 
-    LocalTimeResolver(ZoneId zone) {
+    public LocalTimeResolver(ZoneId zone) {
         this.zone = zone;
         this.rules = zone.getRules();
     }
 
     /** Epoch seconds of a local wall time given as seconds since 1970-01-01T00:00 (local). */
-    long toEpochSecond(long local) {
+    public long toEpochSecond(long local) {
         if (local >= fixedFromLocal && local < fixedToLocal) {
             secondPass = false;
             previousLocal = local;
@@ -81,6 +81,21 @@ final class LocalTimeResolver {
         }
         previousLocal = local;
         return result;
+    }
+
+    /** Stamps read so far in a fall-back overlap with the earlier offset. */
+    public long repeatedFirstPass() {
+        return repeatedFirstPass;
+    }
+
+    /** Stamps read so far in a fall-back overlap with the later offset. */
+    public long repeatedSecondPass() {
+        return repeatedSecondPass;
+    }
+
+    /** Stamps read so far inside a spring-forward gap. */
+    public long skipped() {
+        return skipped;
     }
 
     /** Remembers the local-time stretch around {@code ldt} in which {@code offset} holds without ambiguity. */

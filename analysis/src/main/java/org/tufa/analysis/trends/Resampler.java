@@ -103,6 +103,42 @@ public final class Resampler {
         return out;
     }
 
+    /**
+     * One series on a grid, with its sample counts: the shared last step of every trend source.
+     *
+     * @param times sample times in epoch seconds, sorted ascending
+     * @param values sample values, same length
+     */
+    public static ResampledSeries resample(String id, SeriesKind kind, long[] times, double[] values, TrendGrid grid,
+                                           long maxGap) {
+        long gridStart = grid.start();
+        long interval = grid.interval();
+        int gridLength = grid.cells();
+        double[] out = kind == SeriesKind.BINARY
+                ? binary(times, values, gridStart, interval, gridLength, maxGap)
+                : analog(times, values, gridStart, interval, gridLength, maxGap);
+        boolean[] hasSample = new boolean[gridLength];
+        int raw = 0;
+        long gridEnd = gridStart + gridLength * interval;
+        for (long t : times) {
+            if (t >= gridStart && t < gridEnd) {
+                raw++;
+                hasSample[(int) ((t - gridStart) / interval)] = true;
+            }
+        }
+        int withSamples = 0;
+        int held = 0;
+        for (int k = 0; k < gridLength; k++) {
+            if (hasSample[k]) {
+                withSamples++;
+            } else if (!Double.isNaN(out[k])) {
+                held++;
+            }
+        }
+        return new ResampledSeries(id, kind, java.time.Instant.ofEpochSecond(gridStart),
+                java.time.Duration.ofSeconds(interval), out, raw, withSamples, held);
+    }
+
     /** Number of samples with {@code gridStart <= t < gridStart + cells*interval}. */
     public static int samplesInGrid(long[] times, long gridStart, long interval, int cells) {
         long gridEnd = gridStart + cells * interval;
@@ -117,7 +153,20 @@ public final class Resampler {
 
     /** Sorts samples by time, keeping file order among equal times (stable); returns the inputs when sorted. */
     static SpillStore.Samples sortedByTime(SpillStore.Samples samples) {
-        long[] t = samples.epochSeconds();
+        return sortedByTime(samples.epochSeconds(), samples.values());
+    }
+
+    /** Sorts two parallel arrays by time in place, keeping the given order among equal times (stable). */
+    public static void sortByTime(long[] times, double[] values) {
+        SpillStore.Samples sorted = sortedByTime(new SpillStore.Samples(times, values));
+        if (sorted.epochSeconds() != times) {
+            System.arraycopy(sorted.epochSeconds(), 0, times, 0, times.length);
+            System.arraycopy(sorted.values(), 0, values, 0, values.length);
+        }
+    }
+
+    private static SpillStore.Samples sortedByTime(long[] t, double[] v) {
+        SpillStore.Samples samples = new SpillStore.Samples(t, v);
         boolean sorted = true;
         for (int i = 1; i < t.length && sorted; i++) {
             sorted = t[i - 1] <= t[i];

@@ -6,6 +6,7 @@ import java.nio.file.Path;
 import java.time.Duration;
 import java.time.Instant;
 import java.util.ArrayList;
+import java.util.Collection;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
@@ -23,7 +24,7 @@ import org.tufa.common.InputException;
  * not with the fleet. {@link #series} loads and resamples one series; it is thread-safe, for worker threads that
  * each handle one unit. Close the store to delete its temp file.
  */
-public final class TrendStore implements AutoCloseable {
+public final class TrendStore implements TrendSource {
 
     /** Spill buffers in total during ingest: at most about this many bytes, whatever the number of series. */
     private static final long SPILL_BUFFER_BYTES = 48L << 20;
@@ -47,6 +48,12 @@ public final class TrendStore implements AutoCloseable {
         this.interval = interval;
         this.maxGap = maxGap;
         this.gridLength = gridLength;
+    }
+
+    /** Opens these trend files for a fleet run: {@link #ingest} with temp files in {@code java.io.tmpdir}. */
+    public static TrendSource.Opener opener(List<Path> inputs) {
+        return (wanted, ranges, options) -> ingest(inputs, wanted, ranges, options,
+                Path.of(System.getProperty("java.io.tmpdir")));
     }
 
     /** Ingest with temp files in {@code java.io.tmpdir}. */
@@ -150,27 +157,10 @@ public final class TrendStore implements AutoCloseable {
             }
             IngestReport report = new IngestReport(fileReports, new ArrayList<>(reader.unknownSeries()), spans,
                     neverSeen, laterDuplicates, laterConflicts);
-            long interval = options.interval().getSeconds();
-            long start;
-            long end;
-            if (options.from() != null) {
-                start = Math.floorDiv(options.from().getEpochSecond(), interval) * interval;
-            } else {
-                start = minTime == Long.MAX_VALUE ? 0 : Math.floorDiv(minTime, interval) * interval;
-            }
-            if (options.to() != null) {
-                end = -Math.floorDiv(-options.to().getEpochSecond(), interval) * interval;
-            } else {
-                end = maxTime == Long.MIN_VALUE ? start : (Math.floorDiv(maxTime, interval) + 1) * interval;
-            }
-            long cells = Math.max(0, (end - start) / interval);
-            if (cells > Integer.MAX_VALUE - 8) {
-                throw new InputException("the trend data span " + cells + " grid cells of " + options.interval()
-                        + "; choose a longer interval or a shorter window (from/to)");
-            }
-            checkGridDensity(cells, spans, options.interval());
-            return new TrendStore(spill, index, kinds, report, start, interval, options.maxGap().getSeconds(),
-                    (int) cells);
+            TrendGrid grid = TrendGrid.of(options, minTime, maxTime);
+            checkGridDensity(grid.cells(), spans, options.interval());
+            return new TrendStore(spill, index, kinds, report, grid.start(), grid.interval(),
+                    options.maxGap().getSeconds(), grid.cells());
         } catch (RuntimeException e) {
             spill.close();
             throw e;
@@ -233,20 +223,35 @@ public final class TrendStore implements AutoCloseable {
         return name.endsWith(".csv") || name.endsWith(".csv.gz");
     }
 
+    @Override
     public IngestReport report() {
         return report;
     }
 
+    @Override
+    public Map<String, ResampledSeries> read(Collection<String> seriesIds) {
+        Map<String, ResampledSeries> out = new TreeMap<>();
+        for (String id : seriesIds) {
+            if (index.containsKey(id)) {
+                out.put(id, series(id));
+            }
+        }
+        return out;
+    }
+
     /** Start of grid cell 0, the same for every series. */
+    @Override
     public Instant gridStart() {
         return Instant.ofEpochSecond(gridStart);
     }
 
+    @Override
     public Duration interval() {
         return Duration.ofSeconds(interval);
     }
 
     /** Number of grid cells, the same for every series. */
+    @Override
     public int gridLength() {
         return gridLength;
     }
@@ -267,30 +272,8 @@ public final class TrendStore implements AutoCloseable {
             throw new IllegalArgumentException("series " + id + " was not requested at ingest");
         }
         SpillStore.Samples samples = Resampler.sortedByTime(spill.read(i));
-        long[] times = samples.epochSeconds();
-        double[] values = kinds[i] == SeriesKind.BINARY
-                ? Resampler.binary(times, samples.values(), gridStart, interval, gridLength, maxGap)
-                : Resampler.analog(times, samples.values(), gridStart, interval, gridLength, maxGap);
-        boolean[] hasSample = new boolean[gridLength];
-        int raw = 0;
-        long gridEnd = gridStart + gridLength * interval;
-        for (long t : times) {
-            if (t >= gridStart && t < gridEnd) {
-                raw++;
-                hasSample[(int) ((t - gridStart) / interval)] = true;
-            }
-        }
-        int withSamples = 0;
-        int held = 0;
-        for (int k = 0; k < gridLength; k++) {
-            if (hasSample[k]) {
-                withSamples++;
-            } else if (!Double.isNaN(values[k])) {
-                held++;
-            }
-        }
-        return new ResampledSeries(id, kinds[i], Instant.ofEpochSecond(gridStart), Duration.ofSeconds(interval),
-                values, raw, withSamples, held);
+        return Resampler.resample(id, kinds[i], samples.epochSeconds(), samples.values(),
+                new TrendGrid(gridStart, interval, gridLength), maxGap);
     }
 
     /** Deletes the temp file. */

@@ -14,7 +14,7 @@ package org.tufa.analysis.trends;
  * "How to read floating point numbers accurately", PLDI 1990). Everything else falls back to
  * {@link Double#parseDouble} after a strict syntax check.
  */
-final class ValueParser {
+public final class ValueParser {
 
     private static final double[] POWERS_OF_TEN = {
         1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15, 1e16, 1e17, 1e18,
@@ -23,6 +23,18 @@ final class ValueParser {
     private static final long EXACT_MANTISSA_LIMIT = 1L << 53;
 
     private ValueParser() {
+    }
+
+    /**
+     * A value given as text (a database column of text type, say): a number, or for a binary series also a binary
+     * word; NaN when unreadable or blank.
+     */
+    public static double parse(String text, SeriesKind kind) {
+        byte[] b = text.strip().getBytes(java.nio.charset.StandardCharsets.UTF_8);
+        if (b.length == 0) {
+            return Double.NaN;
+        }
+        return kind == SeriesKind.BINARY ? binary(b, 0, b.length) : number(b, 0, b.length);
     }
 
     /** The number in {@code b[start, end)} (trimmed, non-empty), or NaN when it is not a plain decimal number. */
@@ -84,6 +96,12 @@ final class ValueParser {
     private static double slow(byte[] b, int start, int end) {
         double v = Double.parseDouble(new String(b, start, end - start, java.nio.charset.StandardCharsets.US_ASCII));
         return Double.isFinite(v) ? v : Double.NaN;
+    }
+
+    /** {@link #isNonFinite(byte[], int, int)} on a value given as text (a database column of text type). */
+    public static boolean isNonFinite(String text) {
+        byte[] b = text.strip().getBytes(java.nio.charset.StandardCharsets.UTF_8);
+        return b.length > 0 && isNonFinite(b, 0, b.length);
     }
 
     /**

@@ -52,6 +52,36 @@ class ReportTest {
                     fleet.loads().get(i));
         }
         FleetPage.write(FleetPage.reportDir(out), fleet.result(), fleet.coverage(), SyntheticFleet.ZONE);
+        // The files the fleet page points readers without JavaScript to.
+        org.tufa.analysis.fleet.FleetOutputs.write(out, fleet.result(), SyntheticFleet.ZONE, java.util.Map.of(),
+                List.of());
+        org.tufa.analysis.coverage.CoverageFiles.write(fleet.coverage(), out);
+    }
+
+    /** The fleet page's data tables by id: their JSON, as the page's script reads it. */
+    static java.util.Map<String, com.google.gson.JsonObject> tables(String html) {
+        java.util.Map<String, com.google.gson.JsonObject> out = new java.util.TreeMap<>();
+        Matcher m = Pattern.compile("<script type=\"application/json\" id=\"([^\"]+)-data\">(.*?)</script>",
+                Pattern.DOTALL).matcher(html);
+        while (m.find()) {
+            if (!html.contains("<div class=\"datatable\" id=\"" + m.group(1) + "\"")) {
+                continue; // the review controls' state (review-data) is data of another kind
+            }
+            out.put(m.group(1), com.google.gson.JsonParser.parseString(m.group(2)).getAsJsonObject());
+        }
+        return out;
+    }
+
+    /**
+     * Every cell of a table as its JSON: a string (a number stands for a string of the table's string list), or an
+     * object with t, h, s, c, ti.
+     */
+    static List<com.google.gson.JsonElement> cells(com.google.gson.JsonObject table) {
+        List<com.google.gson.JsonElement> out = new java.util.ArrayList<>();
+        var strings = table.getAsJsonArray("strings");
+        table.getAsJsonArray("rows").forEach(r -> r.getAsJsonArray().forEach(c -> out.add(
+                c.isJsonPrimitive() && c.getAsJsonPrimitive().isNumber() ? strings.get(c.getAsInt()) : c)));
+        return out;
     }
 
     private static List<Path> pages() throws IOException {
@@ -65,14 +95,32 @@ class ReportTest {
         Path report = FleetPage.reportDir(fixture);
         assertTrue(Files.isRegularFile(report.resolve("index.html")));
         String index = Files.readString(report.resolve("index.html"));
+        var tables = tables(index);
+        assertEquals(java.util.Set.of("coverage", "findings", "ranking", "units"), tables.keySet());
+        List<String> links = cells(tables.get("units")).stream().filter(c -> c.isJsonObject()
+                && c.getAsJsonObject().has("h")).map(c -> c.getAsJsonObject().get("h").getAsString()).toList();
         for (UnitOutcome u : fleet.result().units()) {
             assertTrue(Files.isRegularFile(report.resolve("units").resolve(u.folder()).resolve("index.html")),
                     u.folder());
-            assertTrue(index.contains("href=\"units/" + u.folder() + "/index.html\""), u.folder());
+            assertTrue(links.contains("units/" + u.folder() + "/index.html"), u.folder());
         }
+        for (String link : links) {
+            assertTrue(Files.isRegularFile(report.resolve(link)), link);
+        }
+        assertEquals(fleet.result().units().size(), tables.get("units").getAsJsonArray("rows").size());
         assertEquals(fleet.result().units().size() + 1, pages().size());
-        assertTrue(index.contains("<td class=\"missing\">missing</td>"), "a missing role is spelled out");
-        assertTrue(index.contains("ambiguous (2)"), "an ambiguous role is marked");
+        List<String> coverageCells = cells(tables.get("coverage")).stream().filter(c -> c.isJsonObject()
+                && c.getAsJsonObject().has("c")).map(c -> c.getAsJsonObject().get("c").getAsString() + ":"
+                + c.getAsJsonObject().get("t").getAsString()).toList();
+        assertTrue(coverageCells.contains("missing:missing"), "a missing role is spelled out");
+        assertTrue(coverageCells.contains("ambiguous:ambiguous (2)"), "an ambiguous role is marked");
+        // Long texts are stored once: every candidate-cause text of findings.csv is in the table's cells.
+        java.util.Set<String> texts = new java.util.TreeSet<>();
+        cells(tables.get("findings")).forEach(c -> texts.add(c.isJsonObject() ? c.getAsJsonObject().get("t")
+                .getAsString() : c.getAsString()));
+        for (UnitOutcome u : fleet.result().units()) {
+            u.findings().forEach(f -> assertTrue(texts.contains(String.join(" | ", f.causes())), f.toString()));
+        }
         assertTrue(index.contains("<th class=\"num\">units found</th>"));
     }
 
@@ -108,7 +156,12 @@ class ReportTest {
     void labelsWithHtmlSpecialsAreEscapedEverywhere() throws IOException {
         String escaped = "FCU &lt;1&gt; &amp; &quot;A&quot; &#39;b&#39;";
         String index = Files.readString(FleetPage.reportDir(fixture).resolve("index.html"));
-        assertTrue(index.contains(escaped), "fleet page shows the escaped label");
+        // The fleet page's tables hold the label as data (the script inserts it as text, never as HTML), with <, >,
+        // & and ' escaped in the JSON so that it cannot end the script element.
+        assertTrue(cells(tables(index).get("units")).stream().anyMatch(c -> c.isJsonObject()
+                && c.getAsJsonObject().get("t").getAsString().equals("FCU <1> & \"A\" 'b'")), "label kept as data");
+        assertTrue(index.contains("FCU \\u003c1\\u003e \\u0026 \\\"A\\\" \\u0027b\\u0027"),
+                "label escaped in the page");
         String unit = Files.readString(FleetPage.reportDir(fixture).resolve("units/FCU-1/index.html"));
         assertTrue(unit.contains("<title>" + escaped + " - tufa unit report</title>"));
         String note = Files.readString(FleetPage.reportDir(fixture).resolve("units/FCU-2/index.html"));
