@@ -16,6 +16,7 @@ import org.tufa.analysis.labels.DataCard;
 import org.tufa.analysis.labels.LabelExport;
 import org.tufa.analysis.review.ReviewFile;
 import org.tufa.analysis.review.Verdict;
+import org.tufa.analysis.tables.SampleFormat;
 import org.tufa.common.InputException;
 import org.tufa.common.OutputFiles;
 import picocli.CommandLine.Command;
@@ -29,7 +30,7 @@ import picocli.CommandLine.Spec;
                 + "units and scaled), a label (fault with the confirmed cause, normal, unlabelled) and where the "
                 + "label came from (the review, the detection's normal reference, or label spreading on reviewed "
                 + "units, with its confidence).",
-            "Writes DIR2/units/<folder>/<mode>.csv, the data card DIR2/labels.md and DIR2/labels.json."})
+            "Writes DIR2/units/<folder>/<mode>.parquet (or .csv), the data card DIR2/labels.md and DIR2/labels.json."})
 public final class LabelsCommand implements Callable<Integer> {
 
     @Spec
@@ -74,6 +75,11 @@ public final class LabelsCommand implements Callable<Integer> {
     @Option(names = "--no-spread", description = "Only the labels of the review and the detection; no spreading.")
     boolean noSpread;
 
+    @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "parquet",
+            description = "Per-sample files: parquet (compressed, typed) or csv, same columns (default: "
+                    + "${DEFAULT-VALUE}).")
+    String format;
+
     @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: all cores).")
     int threads = Runtime.getRuntime().availableProcessors();
 
@@ -90,6 +96,12 @@ public final class LabelsCommand implements Callable<Integer> {
             p = new LabelSpreading.Parameters(k, gamma, neighbours, alpha, maxIter, tol);
         } catch (IllegalArgumentException e) {
             throw new InputException("--gamma, --neighbours, --alpha, --max-iter or --tol: " + e.getMessage());
+        }
+        SampleFormat sampleFormat;
+        try {
+            sampleFormat = SampleFormat.fromName(format);
+        } catch (IllegalArgumentException e) {
+            throw new InputException("--format: '" + format + "' is not a format; use parquet or csv");
         }
         if (threads < 1 || threads > AnalyzeCommand.MAX_THREADS) {
             throw new InputException("--threads " + threads + ": give 1 to " + AnalyzeCommand.MAX_THREADS);
@@ -108,7 +120,7 @@ public final class LabelsCommand implements Callable<Integer> {
         }
         AnalysisFolder folder = AnalysisFolder.open(analysis);
         List<Verdict> verdicts = ReviewFile.read(review, folder.knownUnits());
-        LabelExport.Settings settings = new LabelExport.Settings(p, !noSpread);
+        LabelExport.Settings settings = new LabelExport.Settings(p, !noSpread, sampleFormat);
         LabelExport.Result result = LabelExport.run(folder, verdicts, settings, out, threads);
         DataCard.write(out, result, settings, analysis, review, sha256(review), verdicts, folder.zone());
         summary(result, verdicts).forEach(stdout::println);

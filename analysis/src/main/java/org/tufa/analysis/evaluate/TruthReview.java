@@ -22,12 +22,19 @@ public final class TruthReview {
     private TruthReview() {
     }
 
-    /** The verdicts, one per finding, in the findings' order; dated the day after the last finding ends. */
+    /**
+     * The verdicts, one per finding id, in the findings' order; dated the day after the last finding ends. Findings
+     * of two channels of the same cluster episode share an id and get one verdict.
+     */
     public static List<Verdict> fit(List<AnalysisFolder.Listed> findings, List<TruthEpisode> truth, ZoneId zone) {
         Instant last = findings.stream().map(AnalysisFolder.Listed::end).max(Instant::compareTo).orElse(Instant.EPOCH);
         LocalDate date = last.atZone(zone).toLocalDate().plusDays(1);
         List<Verdict> out = new ArrayList<>();
+        java.util.Set<String> seen = new java.util.HashSet<>();
         for (AnalysisFolder.Listed f : findings) {
+            if (!seen.add(f.id())) {
+                continue; // two channels of one cluster episode: one finding id, one verdict
+            }
             TruthEpisode best = null;
             long bestOverlap = 0;
             for (TruthEpisode e : truth) {

@@ -24,16 +24,18 @@ import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
 import org.apache.commons.csv.CSVRecord;
 import org.tufa.analysis.fleet.AnalysisSettings;
+import org.tufa.analysis.fleet.Csv;
 import org.tufa.analysis.fleet.UnitAnalysis;
 import org.tufa.analysis.review.KnownUnits;
+import org.tufa.analysis.tables.SampleTableReader;
 import org.tufa.common.CsvCells;
 import org.tufa.common.InputException;
 
 /**
  * A folder {@code tufa analyze} wrote, as the labelled-data stages read it: the units ({@code fleet.csv}), the listed
  * findings ({@code findings.csv}), the run's zone and engineering gates ({@code run.json}), each unit's modes
- * ({@code units/<folder>/summary.json}) and each clustered mode's samples ({@code features.csv} with the cluster of
- * each sample from {@code reachability.csv}). Every problem is a one-line error naming the file and line.
+ * ({@code units/<folder>/summary.json}) and each clustered mode's samples ({@code features} with the cluster of
+ * each sample from {@code reachability}, Parquet or CSV). Every problem is a one-line error naming the file and line.
  */
 public final class AnalysisFolder {
 
@@ -211,20 +213,57 @@ public final class AnalysisFolder {
         return out;
     }
 
-    /** The clustered samples of a unit's mode. */
+    /**
+     * The clustered samples of a unit's mode, from its Parquet tables ({@code features.parquet},
+     * {@code reachability.parquet}) or, for a run with {@code --sample-files csv}, its CSV tables.
+     */
     public Samples samples(Unit u, Mode m) {
         Path modeDir = dir.resolve("units").resolve(u.folder()).resolve(m.mode());
+        return Files.isRegularFile(modeDir.resolve("features.parquet")) ? parquetSamples(modeDir, m)
+                : csvSamples(modeDir, m);
+    }
+
+    private Samples parquetSamples(Path modeDir, Mode m) {
+        Path features = modeDir.resolve("features.parquet");
+        Path reach = modeDir.resolve("reachability.parquet");
+        SampleTableReader.TimedNumbers r = SampleTableReader.readNumbers(reach, "timestamp", List.of("cluster"));
+        Map<Instant, Integer> clusterOf = new HashMap<>();
+        for (int i = 0; i < r.size(); i++) {
+            clusterOf.put(r.times()[i], (int) r.columns()[0][i]);
+        }
+        SampleTableReader.TimedNumbers f = SampleTableReader.readNumbers(features, "timestamp", m.features());
+        int n = f.size();
+        String[] text = new String[n];
+        double[][] values = new double[n][m.features().size()];
+        int[] cluster = new int[n];
+        for (int i = 0; i < n; i++) {
+            text[i] = Csv.time(f.times()[i], zone);
+            for (int j = 0; j < values[i].length; j++) {
+                values[i][j] = f.columns()[j][i];
+            }
+            Integer c = clusterOf.get(f.times()[i]);
+            if (c == null) {
+                throw InputException.in(features, "sample " + text[i] + " (row " + (i + 1) + ") is not in " + reach);
+            }
+            cluster[i] = c;
+        }
+        return new Samples(text, f.times(), values, cluster);
+    }
+
+    private Samples csvSamples(Path modeDir, Mode m) {
         Path features = modeDir.resolve("features.csv");
         Path reach = modeDir.resolve("reachability.csv");
-        Map<String, Integer> clusterOf = new HashMap<>();
+        Map<Instant, Integer> clusterOf = new HashMap<>();
         lines(reach, "order,timestamp,reachability,core_distance,cluster", (cells, line) -> {
             if (cells.length != 5) {
                 throw InputException.at(reach, line, "expected 5 fields, found " + cells.length);
             }
-            clusterOf.put(cells[1], (int) number(reach, line, cells[4]));
+            clusterOf.put(time(reach, line, cells[1]), (int) number(reach, line, cells[4]));
         });
         List<String> text = new ArrayList<>();
+        List<Instant> times = new ArrayList<>();
         List<double[]> rows = new ArrayList<>();
+        List<Integer> clusters = new ArrayList<>();
         String header = "timestamp," + String.join(",", m.features());
         int width = m.features().size();
         lines(features, header, (cells, line) -> {
@@ -235,21 +274,18 @@ public final class AnalysisFolder {
             for (int j = 0; j < width; j++) {
                 v[j] = number(features, line, cells[j + 1]);
             }
-            text.add(cells[0]);
-            rows.add(v);
-        });
-        int n = text.size();
-        Instant[] times = new Instant[n];
-        int[] cluster = new int[n];
-        for (int i = 0; i < n; i++) {
-            times[i] = time(features, i + 2, text.get(i));
-            Integer c = clusterOf.get(text.get(i));
+            Instant t = time(features, line, cells[0]);
+            Integer c = clusterOf.get(t);
             if (c == null) {
-                throw InputException.at(features, i + 2, "sample " + text.get(i) + " is not in " + reach);
+                throw InputException.at(features, line, "sample " + cells[0] + " is not in " + reach);
             }
-            cluster[i] = c;
-        }
-        return new Samples(text.toArray(String[]::new), times, rows.toArray(double[][]::new), cluster);
+            text.add(cells[0]);
+            times.add(t);
+            rows.add(v);
+            clusters.add(c);
+        });
+        return new Samples(text.toArray(String[]::new), times.toArray(Instant[]::new), rows.toArray(double[][]::new),
+                clusters.stream().mapToInt(Integer::intValue).toArray());
     }
 
     private interface RecordHandler {

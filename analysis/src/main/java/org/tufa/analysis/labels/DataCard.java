@@ -40,12 +40,15 @@ public final class DataCard {
         b.append("Data card of the samples `tufa labels` labelled from the analysis in `").append(analysis)
                 .append("` and the analyst's review `").append(review).append("` (SHA-256 ").append(sha)
                 .append(").\n\n");
-        b.append("**What the files hold.** One CSV file per unit and clustered operating mode, `units/<folder>/<mode>"
-                + ".csv`: every sample the analysis clustered (its time stamp, ISO 8601 with offset), its features in "
-                + "engineering units as in the analysis' `features.csv`, its health features divided by their "
-                + "engineering gates (`<feature>_scaled`, the space the clustering worked in), its cluster, and "
-                + "`label`, `cause`, `source`, `confidence` and `review_line` (the line of the review file whose "
-                + "verdict gave the label). Numbers at full double precision.\n\n");
+        b.append("**What the files hold.** One table per unit and clustered operating mode, `units/<folder>/<mode>"
+                + ".").append(s.format().extension()).append("` (").append(s.format() == org.tufa.analysis.tables
+                .SampleFormat.PARQUET ? "Apache Parquet" : "CSV with a header row").append("): every sample the "
+                + "analysis clustered (`timestamp`, the sample's start), its features in engineering units as in "
+                + "the analysis' `features` table, its health features divided by their engineering gates "
+                + "(`<feature>_scaled`, the space the clustering worked in), its `cluster` (-1 noise), and "
+                + "`label`, `cause`, `source`, `confidence` (1 for a person's or the detection's label, the spread "
+                + "share for spreading, NaN when unlabelled) and `review_line` (the line of the review file whose "
+                + "verdict gave the label, 0 when none). Numbers at full double precision.\n\n");
         b.append("**Labels and their sources.**\n\n| label | source | meaning |\n|---|---|---|\n"
                 + "| fault | review | a person confirmed a finding covering the sample; `cause` is the cause they "
                 + "named |\n"
@@ -150,6 +153,7 @@ public final class DataCard {
         p.addProperty("alpha", s.spreading().alpha());
         p.addProperty("max_iter", s.spreading().maxIter());
         p.addProperty("tol", s.spreading().tol());
+        p.addProperty("format", s.format().extension());
         o.add("parameters", p);
         JsonArray classes = new JsonArray();
         r.classes().forEach(classes::add);
@@ -162,6 +166,9 @@ public final class DataCard {
             f.addProperty("folder", part.unit().folder());
             f.addProperty("mode", part.mode());
             f.addProperty("file", part.file());
+            JsonArray features = new JsonArray();
+            part.features().forEach(features::add);
+            f.add("features", features);
             f.addProperty("samples", part.samples());
             f.addProperty("reviewed", part.reviewed());
             JsonObject counts = new JsonObject();

@@ -1,7 +1,5 @@
 package org.tufa.analysis.labels;
 
-import java.io.IOException;
-import java.io.Writer;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.HashSet;
@@ -16,8 +14,10 @@ import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import org.tufa.analysis.cluster.LabelSpreading;
 import org.tufa.analysis.cluster.LabelSpreadingResult;
-import org.tufa.analysis.fleet.Csv;
 import org.tufa.analysis.review.Verdict;
+import org.tufa.analysis.tables.SampleColumn;
+import org.tufa.analysis.tables.SampleFormat;
+import org.tufa.analysis.tables.SampleTable;
 import org.tufa.common.InputException;
 import org.tufa.common.OutputFiles;
 
@@ -26,7 +26,8 @@ import org.tufa.common.OutputFiles;
  * health features scaled by their gates as the clustering saw them), its label from {@link SampleLabels} and, on
  * units an analyst reviewed, the labels spread to the unlabelled samples ({@link LabelSpreading} on the scaled health
  * features, one graph per unit and mode: the features are relative to the unit's own normal). Writes
- * {@code units/<folder>/<mode>.csv} per unit and mode; {@link DataCard} writes labels.md and labels.json.
+ * {@code units/<folder>/<mode>.parquet} (or {@code .csv}) per unit and mode; {@link DataCard} writes labels.md and
+ * labels.json. A sample without a confidence (unlabelled) has NaN; a label no verdict gave has review line 0.
  */
 public final class LabelExport {
 
@@ -37,23 +38,25 @@ public final class LabelExport {
     /**
      * @param spreading the label-spreading parameters
      * @param spread    whether to spread at all
+     * @param format    the per-sample files' format
      */
-    public record Settings(LabelSpreading.Parameters spreading, boolean spread) {
+    public record Settings(LabelSpreading.Parameters spreading, boolean spread, SampleFormat format) {
     }
 
     /**
      * One unit's mode as written.
      *
      * @param file       the per-sample file, relative to the output folder
+     * @param features   its feature columns (engineering units), in order
      * @param counts     samples per "label/source" (fault/review, normal/detection, ...)
      * @param causes     fault samples per cause and source ("cause/review", "cause/spreading")
      * @param iterations label-spreading steps (0 when not spread)
      * @param converged  whether the spreading converged
      * @param lines      the review-file lines whose verdicts labelled at least one sample
      */
-    public record Part(AnalysisFolder.Unit unit, String mode, String file, int samples, Map<String, Integer> counts,
-                       Map<String, Integer> causes, boolean reviewed, int iterations, boolean converged,
-                       java.util.Set<Long> lines) {
+    public record Part(AnalysisFolder.Unit unit, String mode, String file, List<String> features, int samples,
+                       Map<String, Integer> counts, Map<String, Integer> causes, boolean reviewed, int iterations,
+                       boolean converged, java.util.Set<Long> lines) {
     }
 
     /** The export: the classes (normal first, then the confirmed causes) and every part in unit and mode order. */
@@ -144,8 +147,9 @@ public final class LabelExport {
                     }
                 }
             }
-            String file = "units/" + u.folder() + "/" + m.mode() + ".csv";
-            write(out.resolve(file), m, s, scaled, labels, confidence);
+            String file = "units/" + u.folder() + "/" + m.mode() + "." + settings.format().extension();
+            write(out.resolve("units").resolve(u.folder()), m.mode(), settings.format(), m, s, scaled, labels,
+                    confidence);
             Map<String, Integer> counts = new TreeMap<>();
             Map<String, Integer> causes = new TreeMap<>();
             java.util.Set<Long> lines = new java.util.TreeSet<>();
@@ -158,7 +162,8 @@ public final class LabelExport {
                     causes.merge(labels.cause()[i] + "/" + labels.source()[i], 1, Integer::sum);
                 }
             }
-            parts.add(new Part(u, m.mode(), file, s.size(), counts, causes, reviewed, iterations, converged, lines));
+            parts.add(new Part(u, m.mode(), file, m.features(), s.size(), counts, causes, reviewed, iterations,
+                    converged, lines));
         }
         return parts;
     }
@@ -206,46 +211,38 @@ public final class LabelExport {
         return LabelSpreading.fit(scaled, y, classes.size(), p);
     }
 
-    private static void write(Path file, AnalysisFolder.Mode m, AnalysisFolder.Samples s, double[][] scaled,
-                              SampleLabels.Labels labels, double[] confidence) {
-        OutputFiles.writeText(file, w -> {
-            List<String> header = new ArrayList<>();
-            header.add("timestamp");
-            header.addAll(m.features());
-            m.healthFeatures().forEach(h -> header.add(h + "_scaled"));
-            header.addAll(LABEL_COLUMNS);
-            w.write(String.join(",", header));
-            w.write('\n');
+    private static void write(Path dir, String name, SampleFormat format, AnalysisFolder.Mode m,
+                              AnalysisFolder.Samples s, double[][] scaled, SampleLabels.Labels labels,
+                              double[] confidence) {
+        OutputFiles.ensureFolder(dir);
+        List<SampleColumn> columns = new ArrayList<>();
+        columns.add(SampleColumn.time("timestamp"));
+        m.features().forEach(f -> columns.add(SampleColumn.real(f)));
+        m.healthFeatures().forEach(h -> columns.add(SampleColumn.real(h + "_scaled")));
+        columns.add(SampleColumn.integer("cluster"));
+        columns.add(SampleColumn.text("label"));
+        columns.add(SampleColumn.text("cause"));
+        columns.add(SampleColumn.text("source"));
+        columns.add(SampleColumn.real("confidence"));
+        columns.add(SampleColumn.integer("review_line"));
+        SampleTable.write(dir, name, format, columns, t -> {
             for (int i = 0; i < s.size(); i++) {
-                row(w, s, scaled, labels, confidence, i);
+                t.time(s.times()[i].getEpochSecond(), s.timeText()[i]);
+                for (double v : s.values()[i]) {
+                    t.real(v);
+                }
+                for (double v : scaled[i]) {
+                    t.real(v);
+                }
+                t.integer(s.cluster()[i]);
+                t.text(labels.label()[i]);
+                t.text(labels.cause()[i]);
+                t.text(labels.source()[i]);
+                t.real(confidence[i]);
+                t.integer((int) labels.verdictLine()[i]);
+                t.endRow();
             }
         });
-    }
-
-    private static void row(Writer w, AnalysisFolder.Samples s, double[][] scaled, SampleLabels.Labels labels,
-                            double[] confidence, int i) throws IOException {
-        w.write(s.timeText()[i]);
-        for (double v : s.values()[i]) {
-            w.write(',');
-            w.write(Csv.number(v));
-        }
-        for (double v : scaled[i]) {
-            w.write(',');
-            w.write(Csv.number(v));
-        }
-        w.write(',');
-        w.write(Integer.toString(s.cluster()[i]));
-        w.write(',');
-        w.write(labels.label()[i]);
-        w.write(',');
-        w.write(Csv.field(labels.cause()[i]));
-        w.write(',');
-        w.write(labels.source()[i]);
-        w.write(',');
-        w.write(Double.isNaN(confidence[i]) ? "" : Csv.number(confidence[i]));
-        w.write(',');
-        w.write(labels.verdictLine()[i] == 0 ? "" : Long.toString(labels.verdictLine()[i]));
-        w.write('\n');
     }
 
     /** Totals over all parts: "label/source" -> samples. */

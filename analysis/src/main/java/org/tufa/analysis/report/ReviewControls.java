@@ -156,14 +156,16 @@ final class ReviewControls {
 
     /**
      * The page's review script (no library). State: one entry per finding id, filled from the embedded verdicts;
-     * every control writes to it (events are caught on the document, so rows drawn later work too). Saving writes
-     * the review file's rows: every finding with a verdict, in the table's original order, then the carried ones.
+     * every control writes to it (events are caught on the document, so rows drawn later work too). Findings of two
+     * channels of the same cluster episode share an id ({@code FindingIds}: unit, mode, kind, start), so they share
+     * one verdict: an edit in one row shows in the other. Saving writes the review file's rows: every finding id
+     * with a verdict, once, in the table's original order, then the carried ones.
      * Text cells a spreadsheet would run as a formula get a leading apostrophe and cells with a comma, quote or line
      * break are quoted, as tufa's own CSV writer does.
      */
     static final String SCRIPT = """
             (function(){var el=document.getElementById('review-data');if(!el){return;}
-            var data=JSON.parse(el.textContent);var byId={};var state={};var dirty=0;
+            var data=JSON.parse(el.textContent);var byId={};var state={};var dirty=0;var cells=0;
             data.findings.forEach(function(f){byId[f.id]=f;var v=f.verdict;
             state[f.id]=v?{verdict:v.verdict,cause:v.cause,note:v.note,reviewer:v.reviewer,date:v.date,changed:false}
             :{verdict:'',cause:'',note:'',reviewer:'',date:'',changed:false};});
@@ -174,11 +176,11 @@ final class ReviewControls {
             ['v-confirmed','v-rejected','v-not_sure'].forEach(function(c){tr.classList.remove(c);});
             if(s.verdict){tr.classList.add('v-'+s.verdict);}}
             function build(td){var id=td.getAttribute('data-finding');var f=byId[id];var s=state[id];
-            if(!f||td.getAttribute('data-ready')){return;}td.setAttribute('data-ready','1');td.textContent='';
+            if(!f||td.getAttribute('data-ready')){return;}td.setAttribute('data-ready','1');td.textContent='';cells++;
             var group=document.createElement('div');group.setAttribute('role','radiogroup');
             group.setAttribute('aria-label','verdict');
             words.forEach(function(w){var l=document.createElement('label');var r=document.createElement('input');
-            r.type='radio';r.name='verdict-'+id;r.value=w[0];r.className='review-verdict';r.checked=(s.verdict===w[0]);
+            r.type='radio';r.name='verdict-'+id+'-'+cells;r.value=w[0];r.className='review-verdict';r.checked=(s.verdict===w[0]);
             l.appendChild(r);l.appendChild(document.createTextNode(' '+w[1]));group.appendChild(l);});
             td.appendChild(group);var list=document.createElement('datalist');list.id='causes-'+id;
             f.causes.forEach(function(c){var o=document.createElement('option');o.value=c;list.appendChild(o);});
@@ -198,7 +200,13 @@ final class ReviewControls {
             if(t.classList.contains('review-verdict')){if(!t.checked){return;}s.verdict=t.value;}
             else if(t.classList.contains('review-cause')){s.cause=t.value;}
             else if(t.classList.contains('review-note')){s.note=t.value;}else{return;}
-            s.changed=true;dirty++;paint(td);count();}
+            s.changed=true;dirty++;sync(td);count();}
+            function sync(td){var id=td.getAttribute('data-finding');var s=state[id];
+            document.querySelectorAll('td.review[data-finding]').forEach(function(o){
+            if(o.getAttribute('data-finding')!==id){return;}
+            o.querySelectorAll('input.review-verdict').forEach(function(r){r.checked=(r.value===s.verdict);});
+            var c=o.querySelector('input.review-cause');if(c&&c!==document.activeElement){c.value=s.cause;}
+            var n=o.querySelector('input.review-note');if(n&&n!==document.activeElement){n.value=s.note;}paint(o);});}
             document.addEventListener('change',edit);document.addEventListener('input',function(ev){
             if(ev.target.type==='text'){edit(ev);}});
             function cell(t){t=t==null?'':String(t);if(/^[=+\\-@\\t\\r]/.test(t)){t="'"+t;}
@@ -206,7 +214,8 @@ final class ReviewControls {
             function row(r){return [cell(r.unit),r.mode,r.kind,r.start,r.end,r.finding_id,r.verdict,cell(r.cause),
             cell(r.note),cell(r.reviewer),r.date].join(',');}
             function save(){var who=document.getElementById('review-reviewer').value.trim();var lines=[data.header];
-            data.findings.forEach(function(f){var s=state[f.id];if(!s.verdict){return;}
+            var written={};data.findings.forEach(function(f){var s=state[f.id];if(!s.verdict||written[f.id]){return;}
+            written[f.id]=1;
             if(s.changed){s.reviewer=who;s.date=today();s.changed=false;}
             lines.push(row({unit:f.unit,mode:f.mode,kind:f.kind,start:f.start,end:f.end,finding_id:f.id,
             verdict:s.verdict,cause:s.cause.trim(),note:s.note.trim(),reviewer:s.reviewer,date:s.date}));});
