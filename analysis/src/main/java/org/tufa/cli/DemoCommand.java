@@ -133,7 +133,7 @@ public final class DemoCommand implements Callable<Integer> {
         step(stdout, "9/10 train a cause classifier on the labels, check it leaving one unit out, diagnose -> "
                 + diagnosis);
         code = run("diagnose", "--labels", labels.toString(), "--analysis", reviewed.toString(), "--out",
-                diagnosis.toString(), "--held-out-units");
+                diagnosis.toString());
         if (code != ExitCodes.OK) {
             return code;
         }
