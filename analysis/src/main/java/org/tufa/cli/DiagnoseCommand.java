@@ -93,7 +93,7 @@ public final class DiagnoseCommand implements Callable<Integer> {
         List<Diagnosis.HeldOut> heldOut = Diagnosis.leaveOneUnitOut(parts, data.verdicts(), settings);
         DiagnosisFiles.writeHeldOut(out.resolve(DiagnosisFiles.HELD_OUT), heldOut, zone);
         List<String> lines = new ArrayList<>(DiagnosisFiles.heldOutLines(heldOut));
-        Diagnosis.Model model = Diagnosis.train(parts, settings);
+        Diagnosis.Model model = Diagnosis.train(parts, data.verdicts(), settings);
         lines.add("Classifier: " + model.forests().size() + " forest(s) (modes " + String.join(", ",
                 model.forests().keySet()) + "), classes " + String.join(", ", model.classes()) + ", trained on "
                 + parts.stream().map(Samples.Part::unit).distinct().count() + " reviewed unit(s)");
@@ -109,8 +109,8 @@ public final class DiagnoseCommand implements Callable<Integer> {
                 }
                 List<Samples.Part> unitParts = DiagnosisFiles.parts(folder, u, listed);
                 for (AnalysisFolder.Listed f : listed) {
-                    rows.add(new DiagnosisFiles.Row(f, Diagnosis.diagnose(model, unitParts, f.mode(), f.start(),
-                            f.end()), trained.contains(u.iri())));
+                    rows.add(new DiagnosisFiles.Row(f, Diagnosis.diagnose(model, unitParts, f.mode(), f.kind(),
+                            f.start(), f.end()), trained.contains(u.iri())));
                 }
             }
             DiagnosisFiles.writeDiagnosis(out.resolve(DiagnosisFiles.DIAGNOSIS), rows, zone);

@@ -19,7 +19,9 @@ import org.tufa.analysis.labels.SampleLabels;
  * spread labels at or above {@code minSpreadConfidence}. Each unit's mode gives at most {@code perClass} samples of
  * each class, evenly spaced in time, so that long normal periods and long faults do not drown short ones. A period is
  * diagnosed by averaging its samples' class probabilities: the diagnosed cause is the fault class with most of the
- * fault probability, its probability that class's share of it; the normal share says how normal the period looks.
+ * fault probability, weighted by how often each cause was confirmed for findings of the same kind (a naive-Bayes
+ * style product of the two, common practice); its probability is its share of the weighted total. The normal share
+ * says how normal the period's samples look.
  */
 public final class Diagnosis {
 
@@ -32,16 +34,23 @@ public final class Diagnosis {
         public static final Settings DEFAULT = new Settings(CauseForest.Options.DEFAULT, 300, 0.8);
     }
 
-    /** A forest per mode (absent: no training sample of that mode). */
-    public record Model(Map<String, CauseForest> forests) {
+    /**
+     * A forest per mode (absent: no training sample of that mode) and, per finding kind, the confirmed causes of
+     * the training verdicts of that kind with their counts.
+     */
+    public record Model(Map<String, CauseForest> forests, Map<String, Map<String, Integer>> kinds) {
         public Model {
             forests = java.util.Collections.unmodifiableMap(new TreeMap<>(forests));
+            Map<String, Map<String, Integer>> k = new TreeMap<>();
+            kinds.forEach((kind, c) -> k.put(kind, java.util.Collections.unmodifiableMap(new TreeMap<>(c))));
+            kinds = java.util.Collections.unmodifiableMap(k);
         }
 
-        /** Every class any forest knows, normal first. */
+        /** Every class any forest or verdict knows, normal first. */
         public List<String> classes() {
             TreeSet<String> causes = new TreeSet<>();
             forests.values().forEach(f -> causes.addAll(f.classes()));
+            kinds.values().forEach(c -> causes.addAll(c.keySet()));
             causes.remove(SampleLabels.NORMAL);
             List<String> out = new ArrayList<>();
             out.add(SampleLabels.NORMAL);
@@ -72,8 +81,15 @@ public final class Diagnosis {
     private Diagnosis() {
     }
 
-    /** Forests per mode from the parts' labelled samples. */
-    public static Model train(List<Samples.Part> parts, Settings settings) {
+    /** Forests per mode from the parts' labelled samples; cause counts per kind from the confirmed verdicts. */
+    public static Model train(List<Samples.Part> parts, List<LabelledData.Reviewed> verdicts, Settings settings) {
+        Map<String, Map<String, Integer>> kinds = new TreeMap<>();
+        java.util.Set<String> ids = new java.util.HashSet<>();
+        for (LabelledData.Reviewed v : verdicts) {
+            if (v.verdict().equals("confirmed") && (v.findingId().isEmpty() || ids.add(v.findingId()))) {
+                kinds.computeIfAbsent(v.kind(), k -> new TreeMap<>()).merge(cause(v), 1, Integer::sum);
+            }
+        }
         Map<String, List<Samples.Part>> byMode = new TreeMap<>();
         parts.forEach(p -> byMode.computeIfAbsent(p.mode(), k -> new ArrayList<>()).add(p));
         Map<String, CauseForest> forests = new LinkedHashMap<>();
@@ -83,7 +99,11 @@ public final class Diagnosis {
                 forests.put(e.getKey(), f);
             }
         }
-        return new Model(forests);
+        return new Model(forests, kinds);
+    }
+
+    private static String cause(LabelledData.Reviewed v) {
+        return v.cause().isEmpty() ? SampleLabels.NO_CAUSE : v.cause();
     }
 
     private static CauseForest trainMode(List<Samples.Part> parts, Settings settings) {
@@ -159,8 +179,8 @@ public final class Diagnosis {
      *
      * @param unitParts the unit's samples, one part per mode
      */
-    public static Diagnosed diagnose(Model model, List<Samples.Part> unitParts, String mode, Instant start,
-                                     Instant end) {
+    public static Diagnosed diagnose(Model model, List<Samples.Part> unitParts, String mode, String kind,
+                                     Instant start, Instant end) {
         Map<String, Double> mass = new TreeMap<>();
         int samples = 0;
         double normal = 0;
@@ -197,25 +217,42 @@ public final class Diagnosis {
             }
             samples += rows.size();
         }
-        if (!anyModel) {
-            return Diagnosed.none("no classifier for mode " + mode + " (no labelled samples of it)", 0, Double.NaN);
-        }
-        if (samples == 0) {
-            return Diagnosed.none("no sample of the mode in the period with the classifier's features", 0,
-                    Double.NaN);
-        }
+        // The forest's share of the fault probability per cause (uniform over the known causes without samples),
+        // times the share of that cause among the confirmed findings of this kind (add-one smoothing, Laplace's
+        // rule of succession): a mode-hunting finding is diagnosed mostly by its kind, a cluster by its samples.
+        List<String> causes = new ArrayList<>(model.classes());
+        causes.remove(SampleLabels.NORMAL);
         double total = mass.values().stream().mapToDouble(Double::doubleValue).sum();
-        if (!(total > 0)) {
-            return Diagnosed.none("every sample looks like normal operation to the classifier", samples,
-                    normal / samples);
+        boolean fromSamples = samples > 0 && total > 0;
+        Map<String, Integer> ofKind = model.kinds().getOrDefault(kind, Map.of());
+        int kindTotal = ofKind.values().stream().mapToInt(Integer::intValue).sum();
+        if (!fromSamples && kindTotal == 0) {
+            String why = !anyModel ? "no classifier for mode " + mode + " (no labelled samples of it)"
+                    : samples == 0 ? "no sample of the mode in the period with the classifier's features"
+                    : "every sample looks like normal operation to the classifier";
+            return Diagnosed.none(why + ", and no confirmed finding of kind " + kind + " to learn from", samples,
+                    samples == 0 ? Double.NaN : normal / samples);
+        }
+        Map<String, Double> score = new TreeMap<>();
+        double sum = 0;
+        for (String c : causes) {
+            double forest = fromSamples ? mass.getOrDefault(c, 0.0) / total : 1.0 / causes.size();
+            double prior = (ofKind.getOrDefault(c, 0) + 1.0) / (kindTotal + causes.size());
+            score.put(c, forest * prior);
+            sum += forest * prior;
         }
         String best = null;
-        for (Map.Entry<String, Double> e : mass.entrySet()) {
-            if (best == null || e.getValue() > mass.get(best)) {
+        for (Map.Entry<String, Double> e : score.entrySet()) {
+            if (best == null || e.getValue() > score.get(best)) {
                 best = e.getKey();
             }
         }
-        return new Diagnosed(best, mass.get(best) / total, normal / samples, samples, "");
+        if (best == null || !(sum > 0)) {
+            return Diagnosed.none("no cause known to the classifier", samples, samples == 0 ? Double.NaN
+                    : normal / samples);
+        }
+        return new Diagnosed(best, score.get(best) / sum, samples == 0 ? Double.NaN : normal / samples, samples,
+                fromSamples ? "" : "from the finding's kind only (no sample the forest could read)");
     }
 
     /**
@@ -236,9 +273,10 @@ public final class Diagnosis {
             String unit = e.getKey();
             List<Samples.Part> training = parts.stream().filter(p -> !p.unit().equals(unit)).toList();
             List<Samples.Part> own = parts.stream().filter(p -> p.unit().equals(unit)).toList();
-            Model m = train(training, settings);
+            List<LabelledData.Reviewed> others = verdicts.stream().filter(v -> !v.unit().equals(unit)).toList();
+            Model m = train(training, others, settings);
             for (LabelledData.Reviewed v : e.getValue()) {
-                Diagnosed d = diagnose(m, own, v.mode(), v.start(), v.end());
+                Diagnosed d = diagnose(m, own, v.mode(), v.kind(), v.start(), v.end());
                 String truth = v.cause().isEmpty() ? SampleLabels.NO_CAUSE : v.cause();
                 out.add(new HeldOut(v, d, d.cause().equals(truth)));
             }

@@ -69,10 +69,34 @@ class DiagnosisTest {
                 assertTrue(h.diagnosed().probability() > 0.8, h.diagnosed().toString());
             }
         }
-        Diagnosis.Model all = Diagnosis.train(parts, Diagnosis.Settings.DEFAULT);
+        Diagnosis.Model all = Diagnosis.train(parts, verdicts, Diagnosis.Settings.DEFAULT);
         assertEquals(List.of("normal", "a", "b", "c"), all.classes());
-        Diagnosis.Diagnosed quiet = Diagnosis.diagnose(all, List.of(parts.get(6)), "cooling", T0,
+        Diagnosis.Diagnosed quiet = Diagnosis.diagnose(all, List.of(parts.get(6)), "cooling", "fault_cluster", T0,
                 T0.plusSeconds(3600L * 50));
         assertTrue(quiet.normalShare() > 0.8, "a healthy period looks normal: " + quiet);
+    }
+
+    @Test
+    void aFindingWithoutReadableSamplesIsDiagnosedByItsKindAndSaysSo() {
+        Random r = new Random(11);
+        List<Samples.Part> parts = List.of(unit("u0", 0, "a", r), unit("u1", 5, "b", r), unit("u2", 9, null, r));
+        List<LabelledData.Reviewed> verdicts = new ArrayList<>(List.of(confirmed("u0", "a"), confirmed("u1", "b")));
+        for (String u : List.of("u0", "u1")) {
+            verdicts.add(new LabelledData.Reviewed(2, u, "any", "mode_hunting", T0.plusSeconds(3600L * 400),
+                    T0.plusSeconds(3600L * 420), u + "-hunt", "confirmed", "oscillation"));
+        }
+        Diagnosis.Model m = Diagnosis.train(parts, verdicts, Diagnosis.Settings.DEFAULT);
+        // Hours 400-420 lie after every sample: nothing for the forest to read.
+        Diagnosis.Diagnosed d = Diagnosis.diagnose(m, List.of(parts.get(2)), "any", "mode_hunting",
+                T0.plusSeconds(3600L * 400), T0.plusSeconds(3600L * 420));
+        assertEquals("oscillation", d.cause());
+        assertEquals(0, d.samples());
+        // Add-one smoothing over the causes a, b, oscillation: (2 + 1) / (2 + 3).
+        assertEquals(0.6, d.probability(), 1e-12);
+        assertTrue(d.why().contains("kind only"), d.why());
+        Diagnosis.Diagnosed unknown = Diagnosis.diagnose(m, List.of(parts.get(2)), "any", "never_seen",
+                T0.plusSeconds(3600L * 400), T0.plusSeconds(3600L * 420));
+        assertEquals("", unknown.cause(), "no samples and an unknown kind: no cause, and why");
+        assertTrue(unknown.why().contains("no confirmed finding of kind never_seen"), unknown.why());
     }
 }
