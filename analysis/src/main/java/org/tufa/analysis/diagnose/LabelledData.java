@@ -78,9 +78,8 @@ public final class LabelledData {
         } catch (IOException e) {
             throw InputException.in(index, "cannot read: " + e.getMessage());
         } catch (RuntimeException e) {
-            throw InputException.in(index, "not an index tufa labels wrote (" + e.getClass().getSimpleName()
-                    + (e.getMessage() == null ? "" : ": " + e.getMessage().lines().findFirst().orElse(""))
-                    + "); run tufa labels again with this version");
+            throw InputException.in(index, "not an index tufa labels wrote (not JSON, or a field missing or of "
+                    + "the wrong kind); run tufa labels again with this version");
         }
         for (Table t : tables) {
             if (t.file().contains("..") || t.file().startsWith("/")) {
