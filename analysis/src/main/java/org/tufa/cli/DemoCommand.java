@@ -9,6 +9,11 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.concurrent.Callable;
+import org.tufa.analysis.evaluate.EvaluationFiles;
+import org.tufa.analysis.evaluate.TruthReview;
+import org.tufa.analysis.labels.AnalysisFolder;
+import org.tufa.analysis.review.ReviewFile;
+import org.tufa.analysis.review.Verdict;
 import org.tufa.analysis.simulate.DemoTrends;
 import org.tufa.analysis.simulate.Season;
 import org.tufa.analysis.simulate.SimulationPlan;
@@ -94,6 +99,11 @@ public final class DemoCommand implements Callable<Integer> {
         stdout.printf(java.util.Locale.ROOT, "%nDemo done in %.1f s. Open %s in a browser; tables in %s and %s.%n",
                 (System.nanoTime() - start) / 1e9, out.resolve("report").resolve("index.html"),
                 out.resolve("fleet.csv"), out.resolve("findings.csv"));
+        if (review) {
+            stdout.println("Review loop: " + out.resolve("review.csv") + ", the re-run in " + out.resolve("reviewed")
+                    + ", labelled samples and their data card in " + out.resolve("labels") + ", diagnosed causes in "
+                    + out.resolve("diagnosis") + " (candidates to verify).");
+        }
         stdout.flush();
         return code;
     }
@@ -109,12 +119,11 @@ public final class DemoCommand implements Callable<Integer> {
         Path labels = out.resolve("labels");
         Path diagnosis = out.resolve("diagnosis");
         step(stdout, "6/10 review every finding as an analyst who knew the injected faults would -> " + reviewFile);
-        org.tufa.analysis.labels.AnalysisFolder first = org.tufa.analysis.labels.AnalysisFolder.open(out);
-        List<org.tufa.analysis.review.Verdict> verdicts = org.tufa.analysis.evaluate.TruthReview.fit(first.findings(),
-                org.tufa.analysis.evaluate.EvaluationFiles.read(out, truth).truth(), season.zone());
-        org.tufa.analysis.review.ReviewFile.write(reviewFile, verdicts, season.zone());
-        long confirmed = verdicts.stream().filter(v -> v.decision() == org.tufa.analysis.review.Verdict.Decision
-                .CONFIRMED).count();
+        AnalysisFolder first = AnalysisFolder.open(out);
+        List<Verdict> verdicts = TruthReview.fit(first.findings(), EvaluationFiles.read(out, truth).truth(),
+                season.zone());
+        ReviewFile.write(reviewFile, verdicts, season.zone());
+        long confirmed = verdicts.stream().filter(v -> v.decision() == Verdict.Decision.CONFIRMED).count();
         stdout.println("Review: " + verdicts.size() + " verdict(s), " + confirmed + " confirmed (cause: the injected "
                 + "fault), " + (verdicts.size() - confirmed) + " rejected (no fault there)");
         step(stdout, "7/10 analyse again with the review -> " + reviewed);

@@ -5,7 +5,6 @@ import java.io.Reader;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.time.Duration;
 import java.time.Instant;
 import java.time.OffsetDateTime;
 import java.time.format.DateTimeParseException;
@@ -52,20 +51,7 @@ public final class DiagnosisScore {
         int off = 0;
         Map<String, int[]> byFault = new TreeMap<>();
         for (Diagnosed d : rows) {
-            TruthEpisode best = null;
-            long most = 0;
-            for (TruthEpisode e : truth) {
-                if (!e.unit().equals(d.unit())) {
-                    continue;
-                }
-                Instant s = d.start().isAfter(e.start()) ? d.start() : e.start();
-                Instant en = d.end().isBefore(e.end()) ? d.end() : e.end();
-                long overlap = Duration.between(s, en).toSeconds();
-                if (overlap > most) {
-                    most = overlap;
-                    best = e;
-                }
-            }
+            TruthEpisode best = TruthReview.mostOverlapping(d.unit(), d.start(), d.end(), truth);
             if (best == null) {
                 off++;
                 continue;

@@ -35,20 +35,7 @@ public final class TruthReview {
             if (!seen.add(f.id())) {
                 continue; // two channels of one cluster episode: one finding id, one verdict
             }
-            TruthEpisode best = null;
-            long bestOverlap = 0;
-            for (TruthEpisode e : truth) {
-                if (!e.unit().equals(f.unit())) {
-                    continue;
-                }
-                Instant s = f.start().isAfter(e.start()) ? f.start() : e.start();
-                Instant en = f.end().isBefore(e.end()) ? f.end() : e.end();
-                long overlap = Duration.between(s, en).toSeconds();
-                if (overlap > bestOverlap) {
-                    bestOverlap = overlap;
-                    best = e;
-                }
-            }
+            TruthEpisode best = mostOverlapping(f.unit(), f.start(), f.end(), truth);
             Verdict.Decision d = best == null ? Verdict.Decision.REJECTED : Verdict.Decision.CONFIRMED;
             String note = best == null ? "no injected fault on this unit at this time"
                     : "overlaps the injected " + best.fault() + " episode from " + best.start() + " to " + best.end();
@@ -56,6 +43,25 @@ public final class TruthReview {
                     best == null ? "" : best.fault(), note, REVIEWER, date));
         }
         return out;
+    }
+
+    /** The unit's injected episode that overlaps the period most, null when none overlaps it. */
+    static TruthEpisode mostOverlapping(String unit, Instant start, Instant end, List<TruthEpisode> truth) {
+        TruthEpisode best = null;
+        long most = 0;
+        for (TruthEpisode e : truth) {
+            if (!e.unit().equals(unit)) {
+                continue;
+            }
+            Instant s = start.isAfter(e.start()) ? start : e.start();
+            Instant en = end.isBefore(e.end()) ? end : e.end();
+            long overlap = Duration.between(s, en).toSeconds();
+            if (overlap > most) {
+                most = overlap;
+                best = e;
+            }
+        }
+        return best;
     }
 
     /**
