@@ -691,7 +691,7 @@ public final class UnitAnalysis {
     }
 
     /** The shift of a health feature that makes a cluster a candidate fault, in the feature's unit. */
-    static double gate(String feature, AnalysisSettings settings) {
+    public static double gate(String feature, AnalysisSettings settings) {
         return switch (feature) {
             case "valve_activity" -> settings.activityGate();
             case "zone_error" -> settings.zoneErrorGate();
