@@ -20,6 +20,8 @@ import org.tufa.analysis.features.UnitSignals;
 import org.tufa.analysis.kinds.UnitKind;
 import org.tufa.analysis.kinds.UnitKinds;
 import org.tufa.analysis.findings.Finding;
+import org.tufa.analysis.review.ReviewStep;
+import org.tufa.analysis.review.Verdict;
 import org.tufa.analysis.trends.IngestReport;
 import org.tufa.analysis.trends.PlausibleRange;
 import org.tufa.analysis.trends.ResampledSeries;
@@ -35,8 +37,9 @@ import org.tufa.analysis.trends.TrendStore;
  *       written as it finishes ({@link UnitSink#analysed}), and only its small summary and its evidence are kept;</li>
  *   <li>decides every candidate finding at once for the whole fleet ({@link FleetDecision}): against the fleet's
  *       healthy units, the unit's peers and fleet-wide effects, with a false-discovery rate over all tests;</li>
- *   <li>hands each unit its decided findings ({@link UnitSink#decided}), with its signals prepared again from the
- *       trend store when it has findings to show.</li>
+ *   <li>applies the analyst's verdicts, when there is a review ({@link ReviewStep}), then hands each unit its
+ *       decided findings ({@link UnitSink#decided}), with its signals prepared again from the trend store when it
+ *       has findings to show.</li>
  * </ol>
  * One unit's failure never stops the fleet: it becomes a {@code failed} row. Results are collected in unit order
  * and the decision is made on them in that order, so the outputs are the same bytes whatever the thread count.
@@ -55,11 +58,19 @@ public final class FleetAnalysis {
      */
     public record Result(List<UnitOutcome> units, List<FleetDecision.FleetFinding> fleetFindings,
                          List<FleetDecision.ChannelNull> nulls, int tests, int fleetBelowConfidence,
-                         IngestReport ingest, StageTimes times) {
+                         IngestReport ingest, StageTimes times, ReviewStep.Result review) {
         public Result {
             units = List.copyOf(units);
             fleetFindings = List.copyOf(fleetFindings);
             nulls = List.copyOf(nulls);
+            review = review == null ? ReviewStep.Result.NONE : review;
+        }
+
+        /** A run without a review. */
+        public Result(List<UnitOutcome> units, List<FleetDecision.FleetFinding> fleetFindings,
+                      List<FleetDecision.ChannelNull> nulls, int tests, int fleetBelowConfidence, IngestReport ingest,
+                      StageTimes times) {
+            this(units, fleetFindings, nulls, tests, fleetBelowConfidence, ingest, times, null);
         }
     }
 
@@ -69,7 +80,7 @@ public final class FleetAnalysis {
     /** Runs on trend files (CSV, long or wide, plain or gzip, or folders of them). */
     public static Result run(FleetCoverage coverage, List<Path> trends, TimeOptions timeOptions,
                              AnalysisSettings settings, int threads, List<UnitSink> sinks, Progress progress) {
-        return run(coverage, TrendStore.opener(trends), timeOptions, settings, threads, sinks, progress);
+        return run(coverage, TrendStore.opener(trends), timeOptions, settings, List.of(), threads, sinks, progress);
     }
 
     /**
@@ -78,6 +89,13 @@ public final class FleetAnalysis {
      */
     public static Result run(FleetCoverage coverage, TrendSource.Opener trends, TimeOptions timeOptions,
                              AnalysisSettings settings, int threads, List<UnitSink> sinks, Progress progress) {
+        return run(coverage, trends, timeOptions, settings, List.of(), threads, sinks, progress);
+    }
+
+    /** @param verdicts the analyst's verdicts on an earlier run's findings (empty: no review) */
+    public static Result run(FleetCoverage coverage, TrendSource.Opener trends, TimeOptions timeOptions,
+                             AnalysisSettings settings, List<Verdict> verdicts, int threads, List<UnitSink> sinks,
+                             Progress progress) {
         StageTimes times = new StageTimes();
         List<UnitCoverage> units = new ArrayList<>(coverage.units());
         units.sort(java.util.Comparator.comparing(UnitCoverage::unit));
@@ -132,13 +150,15 @@ public final class FleetAnalysis {
                 }
                 long t1 = System.nanoTime();
                 FleetDecision.Decision decision = decide(kept, inputs, settings);
+                ReviewStep.Result review = ReviewStep.apply(decision.findings(), verdicts);
                 times.add(StageTimes.Stage.DECISION, System.nanoTime() - t1);
                 double min = settings.decision().minConfidence();
                 List<Future<UnitOutcome>> finals = new ArrayList<>();
                 for (Kept k : kept) {
                     UnitOutcome o = k.outcome();
-                    List<Finding> decided = decision.findings().getOrDefault(o.unit(), List.of());
-                    finals.add(pool.submit(() -> complete(o, decided, min, inputs.get(o.unit()), store, sinks,
+                    ReviewStep.UnitReview reviewed = review.unit(o.unit(),
+                            decision.findings().getOrDefault(o.unit(), List.of()));
+                    finals.add(pool.submit(() -> complete(o, reviewed, min, inputs.get(o.unit()), store, sinks,
                             times)));
                 }
                 List<UnitOutcome> outcomes = new ArrayList<>(units.size());
@@ -148,7 +168,7 @@ public final class FleetAnalysis {
                 List<FleetDecision.FleetFinding> fleet = decision.fleet().stream()
                         .filter(f -> f.finding().confidence() >= min).toList();
                 return new Result(outcomes, fleet, decision.nulls(), decision.tests(),
-                        decision.fleet().size() - fleet.size(), store.report(), times);
+                        decision.fleet().size() - fleet.size(), store.report(), times, review);
             } catch (InterruptedException e) {
                 Thread.currentThread().interrupt();
                 throw new IllegalStateException("interrupted", e);
@@ -168,10 +188,15 @@ public final class FleetAnalysis {
     private record Kept(UnitOutcome outcome, List<ChannelEvidence> evidence) {
     }
 
-    /** Phase 3 for one unit: its decided findings, its signals again when it has some, the sinks. */
-    private static UnitOutcome complete(UnitOutcome o, List<Finding> decided, double minConfidence, UnitInputs in,
-                                        TrendSource store, List<UnitSink> sinks, StageTimes times) {
-        List<Finding> listed = decided.stream().filter(f -> f.confidence() >= minConfidence).toList();
+    /**
+     * Phase 3 for one unit: its decided findings after the review (a confirmed finding is listed whatever its
+     * confidence), its signals again when it has some, the sinks.
+     */
+    private static UnitOutcome complete(UnitOutcome o, ReviewStep.UnitReview reviewed, double minConfidence,
+                                        UnitInputs in, TrendSource store, List<UnitSink> sinks, StageTimes times) {
+        List<Finding> decided = reviewed.findings();
+        List<Finding> listed = decided.stream().filter(f -> f.confidence() >= minConfidence
+                || reviewed.confirmed(org.tufa.analysis.review.FindingIds.of(o.unit(), f))).toList();
         int below = decided.size() - listed.size();
         List<String> notes = new ArrayList<>();
         if (o.summary() != null) {
@@ -183,6 +208,7 @@ public final class FleetAnalysis {
                 }
             }
         }
+        notes.addAll(reviewed.notes());
         UnitSignals signals = null;
         double[] load = null;
         if (!listed.isEmpty()) {
@@ -191,7 +217,7 @@ public final class FleetAnalysis {
             load = in.kind().load(signals);
             times.add(StageTimes.Stage.RESAMPLE, System.nanoTime() - t0);
         }
-        UnitOutcome done = o.decided(listed, below, notes, load);
+        UnitOutcome done = o.decided(listed, below, notes, load, reviewed);
         long w = System.nanoTime();
         for (UnitSink sink : sinks) {
             sink.decided(done, signals, load);

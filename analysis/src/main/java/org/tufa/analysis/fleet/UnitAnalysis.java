@@ -287,6 +287,11 @@ public final class UnitAnalysis {
             return ModeResult.skipped(name, modeSamples, "only " + features.size() + " complete samples in "
                     + name + " inside the load band");
         }
+        if (everyColumnConstant(features)) {
+            // Nothing varies (a frozen sensor or a held value, say): PCA and OPTICS have nothing to separate.
+            return ModeResult.skipped(name, modeSamples, "every health feature of " + name + " holds one value ("
+                    + String.join(", ", features.healthNames()) + "): a frozen sensor or a held trend value?");
+        }
         PcaResult pca = Pca.fit(scaledByGate(features, kind, settings),
                 ComponentRule.cumulativeVariance(settings.varianceTarget()), Pca.Scaling.CENTRE_ONLY);
         long t2 = System.nanoTime();
@@ -582,6 +587,20 @@ public final class UnitAnalysis {
             }
         }
         return rows;
+    }
+
+    /** Whether every health feature (the columns PCA sees) holds one value over the mode's samples. */
+    private static boolean everyColumnConstant(FeatureMatrix f) {
+        double[][] rows = f.healthRows();
+        for (int j = 0; j < rows[0].length; j++) {
+            double first = rows[0][j];
+            for (double[] row : rows) {
+                if (row[j] != first) {
+                    return false;
+                }
+            }
+        }
+        return true;
     }
 
     private static int[] indices(boolean[] mask) {

@@ -86,6 +86,9 @@ public interface UnitKind {
      */
     FeatureMatrix features(String mode, UnitSignals s, int[] samples, ModeSplit modes);
 
+    /** The names of the kind's health features (over all its modes). */
+    List<String> healthFeatures();
+
     /** How a health feature of this kind is judged. */
     HealthFeature health(String feature, AnalysisSettings settings);
 

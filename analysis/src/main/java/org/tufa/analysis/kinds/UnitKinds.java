@@ -14,6 +14,20 @@ public final class UnitKinds {
     private UnitKinds() {
     }
 
+    /**
+     * The engineering gate of a health feature known by its name alone (an analysis folder read back): the gate
+     * of the first kind, in {@link #ALL}'s order, that names the feature among its own; a name no kind claims gets
+     * the fan coil gates (the residual gate).
+     */
+    public static double gate(String feature, org.tufa.analysis.fleet.AnalysisSettings settings) {
+        for (UnitKind kind : ALL) {
+            if (kind.healthFeatures().contains(feature)) {
+                return kind.health(feature, settings).gate();
+            }
+        }
+        return FanCoilKind.INSTANCE.health(feature, settings).gate();
+    }
+
     /** The detection for units of a profile's {@code tufa:unitKind}, or empty when this version has none. */
     public static Optional<UnitKind> of(String unitKind) {
         return ALL.stream().filter(k -> k.name().equals(unitKind)).findFirst();

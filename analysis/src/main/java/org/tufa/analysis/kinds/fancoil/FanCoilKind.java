@@ -10,6 +10,8 @@ import java.util.Map;
 import org.tufa.analysis.coverage.PointRef;
 import org.tufa.analysis.coverage.Profile;
 import org.tufa.analysis.coverage.UnitCoverage;
+import org.tufa.analysis.episodes.DayIndex;
+import org.tufa.analysis.episodes.UsualHours;
 import org.tufa.analysis.features.FeatureMatrix;
 import org.tufa.analysis.features.RollingMedian;
 import org.tufa.analysis.features.UnitSignals;
@@ -166,6 +168,11 @@ public final class FanCoilKind implements UnitKind {
      * peers.
      */
     @Override
+    public List<String> healthFeatures() {
+        return List.of("coil_residual", "valve_activity", "zone_error", "discharge_offset");
+    }
+
+    @Override
     public HealthFeature health(String feature, AnalysisSettings settings) {
         return switch (feature) {
             case "valve_activity" -> new HealthFeature(feature, HealthFeature.RISE_ONLY, settings.activityGate(),
@@ -211,7 +218,27 @@ public final class FanCoilKind implements UnitKind {
         out.add(new RuleChannel("any", "mode_hunting", running, hunting(s, settings),
                 RuleChannel.DEFAULT_MIN_SHARE, Double.NaN, false));
         out.addAll(balanceRules(modes, s, settings));
+        out.add(outsideUsualHours(s, modes, running, settings));
         return out;
+    }
+
+    /**
+     * Running in the hours the unit usually does not run ({@link UsualHours}): the share of the day's usually-off
+     * samples with the fan running, against the unit's own days (night cycling is some units' normal; judged
+     * against them, short runs that follow the weather on every unit at once become fleet-wide findings). The
+     * hours are the unit's own, so the share is not compared with peers.
+     */
+    private static RuleChannel outsideUsualHours(UnitSignals s, ModeSplit modes, boolean[] running,
+                                                 AnalysisSettings settings) {
+        int[] day = DayIndex.of(s.gridStart(), s.interval(), s.size(), settings.dayZone());
+        int[] hour = DayIndex.hourOf(s.gridStart(), s.interval(), s.size(), settings.dayZone());
+        boolean[] hasData = new boolean[running.length];
+        for (int i = 0; i < hasData.length; i++) {
+            hasData[i] = modes.at(i) != OperatingMode.NO_DATA;
+        }
+        UsualHours usual = UsualHours.fit(day, hour, hasData, running);
+        return new RuleChannel("any", "running_outside_usual_hours", usual.eligible(day, hour, hasData), running,
+                RuleChannel.DEFAULT_MIN_SHARE, Double.NaN, false);
     }
 
     /** How long a coil takes to reach the zone's temperature after its valve shuts (common practice, no source). */

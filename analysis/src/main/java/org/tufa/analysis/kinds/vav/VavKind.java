@@ -172,6 +172,12 @@ public final class VavKind implements UnitKind {
      * damper residuals are against the box's own curves, so they are not compared with peers.
      */
     @Override
+    public List<String> healthFeatures() {
+        return List.of(VavFeatures.SUPPLY_OFFSET, VavFeatures.DISCHARGE_LEVEL, "reheat_residual", "airflow_error",
+                "damper_residual", "zone_error");
+    }
+
+    @Override
     public HealthFeature health(String feature, AnalysisSettings settings) {
         return switch (feature) {
             case "airflow_error" -> new HealthFeature(feature, HealthFeature.BOTH_SIDES, AIRFLOW_ERROR_GATE,
