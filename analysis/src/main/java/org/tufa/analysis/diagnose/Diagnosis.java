@@ -90,8 +90,19 @@ public final class Diagnosis {
                 kinds.computeIfAbsent(v.kind(), k -> new TreeMap<>()).merge(cause(v), 1, Integer::sum);
             }
         }
-        Map<String, List<Samples.Part>> byMode = new TreeMap<>();
-        parts.forEach(p -> byMode.computeIfAbsent(p.mode(), k -> new ArrayList<>()).add(p));
+        Map<String, List<Samples.Part>> sameMode = new TreeMap<>();
+        parts.forEach(p -> sameMode.computeIfAbsent(p.mode(), k -> new ArrayList<>()).add(p));
+        // Two kinds of unit may name a mode alike (a fan coil unit's and a VAV box's cooling) with features that
+        // share nothing: such a mode gets one forest per first feature (its kind's lead health feature).
+        Map<String, List<Samples.Part>> byKey = new TreeMap<>();
+        for (Map.Entry<String, List<Samples.Part>> e : sameMode.entrySet()) {
+            boolean mixed = e.getValue().stream().map(Diagnosis::leadFeature).distinct().count() > 1;
+            for (Samples.Part p : e.getValue()) {
+                byKey.computeIfAbsent(mixed ? e.getKey() + "/" + leadFeature(p) : e.getKey(),
+                        k -> new ArrayList<>()).add(p);
+            }
+        }
+        Map<String, List<Samples.Part>> byMode = byKey;
         Map<String, CauseForest> forests = new LinkedHashMap<>();
         for (Map.Entry<String, List<Samples.Part>> e : byMode.entrySet()) {
             CauseForest f = trainMode(e.getValue(), settings);
@@ -100,6 +111,11 @@ public final class Diagnosis {
             }
         }
         return new Model(forests, kinds);
+    }
+
+    /** A part's first feature: the lead health feature of its kind in that mode (empty when it has none). */
+    private static String leadFeature(Samples.Part p) {
+        return p.features().isEmpty() ? "" : p.features().get(0);
     }
 
     private static String cause(LabelledData.Reviewed v) {
@@ -136,6 +152,17 @@ public final class Diagnosis {
                 }
             }
         }
+        // A cause with fewer samples than two leaves cannot be learnt by the forest; its samples are left out of
+        // this mode's training (common practice, no source).
+        Map<String, Integer> count = new TreeMap<>();
+        y.forEach(c -> count.merge(c, 1, Integer::sum));
+        int minClass = 2 * settings.forest().nodeSize();
+        for (int k = y.size() - 1; k >= 0; k--) {
+            if (!y.get(k).equals(SampleLabels.NORMAL) && count.get(y.get(k)) < minClass) {
+                y.remove(k);
+                x.remove(k);
+            }
+        }
         if (x.size() < 2) {
             return null;
         }
@@ -147,7 +174,13 @@ public final class Diagnosis {
         }
         classes.addAll(causes);
         int[] yi = y.stream().mapToInt(classes::indexOf).toArray();
-        return CauseForest.fit(x.toArray(double[][]::new), yi, classes, features, settings.forest());
+        try {
+            return CauseForest.fit(x.toArray(double[][]::new), yi, classes, features, settings.forest());
+        } catch (IllegalArgumentException e) {
+            // Smile's out-of-bag figures fail when the out-of-bag predictions never name a class (one too rare
+            // beside the others to be predicted): the mode then has no forest, as a mode with too few samples.
+            return null;
+        }
     }
 
     /** The class a sample trains as, or null when it does not train. */
@@ -190,6 +223,9 @@ public final class Diagnosis {
                 continue;
             }
             CauseForest f = model.forests().get(p.mode());
+            if (f == null) {
+                f = model.forests().get(p.mode() + "/" + leadFeature(p));
+            }
             if (f == null) {
                 continue;
             }

@@ -99,4 +99,53 @@ class DiagnosisTest {
         assertEquals("", unknown.cause(), "no samples and an unknown kind: no cause, and why");
         assertTrue(unknown.why().contains("no confirmed finding of kind never_seen"), unknown.why());
     }
+
+    /** The same unit as a part of another kind: its own features (a VAV box's) under the same mode name. */
+    static Samples.Part otherKind(Samples.Part p) {
+        return new Samples.Part(p.unit(), p.mode(), List.of("g1", "g2", "g3"), p.times(), p.values(), p.label(),
+                p.cause(), p.source(), p.confidence());
+    }
+
+    /**
+     * Two kinds of unit that name a mode alike with features that share nothing (a fan coil unit's cooling and a
+     * VAV box's) get one forest each, and each unit is diagnosed by its own kind's; a cause too rare to learn (4
+     * samples, fewer than two leaves of 5) is left out of training instead of failing the forest.
+     */
+    @Test
+    void twoKindsSharingAModeNameGetAForestEachAndARareCauseIsLeftOut() {
+        Random r = new Random(5);
+        List<Samples.Part> parts = new ArrayList<>();
+        List<LabelledData.Reviewed> verdicts = new ArrayList<>();
+        String[] causes = {"a", "b", "a", "b", null};
+        for (int u = 0; u < causes.length; u++) {
+            Samples.Part fcu = unit("f" + u, 10 * u, causes[u], r);
+            parts.add(fcu);
+            parts.add(otherKind(unit("v" + u, 7 * u, causes[u], r)));
+            if (causes[u] != null) {
+                verdicts.add(confirmed("f" + u, causes[u]));
+                verdicts.add(confirmed("v" + u, causes[u]));
+            }
+        }
+        Samples.Part rare = unit("v9", 3, "a", r);
+        String[] cause = rare.cause().clone();
+        for (int i = 100; i < 104; i++) {
+            cause[i] = "rare";
+        }
+        for (int i = 104; i < 150; i++) {
+            cause[i] = "";
+            rare.label()[i] = "normal";
+            rare.source()[i] = "detection";
+        }
+        parts.add(otherKind(new Samples.Part(rare.unit(), rare.mode(), rare.features(), rare.times(), rare.values(),
+                rare.label(), cause, rare.source(), rare.confidence())));
+        Diagnosis.Model m = Diagnosis.train(parts, verdicts, Diagnosis.Settings.DEFAULT);
+        assertEquals(List.of("cooling/f1", "cooling/g1"), List.copyOf(m.forests().keySet()));
+        assertEquals(false, m.forests().get("cooling/g1").classes().contains("rare"));
+        Diagnosis.Diagnosed fan = Diagnosis.diagnose(m, List.of(parts.get(0)), "cooling", "fault_cluster",
+                T0.plusSeconds(3600L * 100), T0.plusSeconds(3600L * 150));
+        Diagnosis.Diagnosed box = Diagnosis.diagnose(m, List.of(parts.get(3)), "cooling", "fault_cluster",
+                T0.plusSeconds(3600L * 100), T0.plusSeconds(3600L * 150));
+        assertEquals("a", fan.cause(), fan.toString());
+        assertEquals("b", box.cause(), box.toString());
+    }
 }
