@@ -13,7 +13,7 @@ import org.tufa.analysis.trends.SeriesKind;
  * how the fan signal is to be read, and the nominal airflow.
  */
 public record UnitInputs(String unit, String label, Map<String, PointRef> points, FanSignal fanSignal,
-                         double nominalAirflow, boolean airflowFromModel) {
+                         double nominalAirflow, boolean airflowFromModel) implements java.io.Serializable {
 
     /** Roles the per-unit analysis reads. */
     public static final java.util.List<String> ROLES = java.util.List.of(

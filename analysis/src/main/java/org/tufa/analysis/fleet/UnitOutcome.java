@@ -20,7 +20,7 @@ import org.tufa.analysis.findings.Finding;
  */
 public record UnitOutcome(String unit, String label, String folder, String status, String reason, List<String> notes,
                           UnitAnalysis.Result result, UnitSummary summary, List<Finding> findings,
-                          int belowConfidence, Totals totals) {
+                          int belowConfidence, Totals totals) implements java.io.Serializable {
 
     public static final String ANALYZED = "analyzed";
     public static final String SKIPPED = "skipped";
@@ -28,7 +28,7 @@ public record UnitOutcome(String unit, String label, String folder, String statu
 
     /** The figures of one fleet.csv row. */
     public record Totals(String modes, int samplesUsed, int clusters, int faultClusters, double faultHours,
-                         double faultEnergyKwh) {
+                         double faultEnergyKwh) implements java.io.Serializable {
 
         static final Totals NONE = new Totals("", 0, 0, 0, 0, 0);
 

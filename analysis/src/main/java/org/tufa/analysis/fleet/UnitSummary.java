@@ -17,7 +17,7 @@ import org.tufa.analysis.modes.OperatingMode;
  * @param modes       one summary per clustered mode, in the analysis' order
  */
 public record UnitSummary(Instant gridStart, Duration interval, int samples, int[] modeCounts, boolean fanInferred,
-                          List<ModeSummary> modes) {
+                          List<ModeSummary> modes) implements java.io.Serializable {
 
     public UnitSummary {
         modeCounts = modeCounts.clone();
