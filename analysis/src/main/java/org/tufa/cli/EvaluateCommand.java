@@ -22,7 +22,7 @@ public final class EvaluateCommand implements Callable<Integer> {
     CommandSpec spec;
 
     @Option(names = "--findings", required = true, paramLabel = "DIR",
-            description = "Directory the analysis wrote (fleet.csv, findings.csv, units/<folder>/modes.csv).")
+            description = "Directory the analysis wrote (fleet.csv, findings.csv, units/<folder>/modes.parquet or .csv).")
     Path findings;
 
     @Option(names = "--truth", required = true, paramLabel = "FILE", description = "Ground truth, truth.csv.")

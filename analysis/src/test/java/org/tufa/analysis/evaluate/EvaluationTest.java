@@ -114,12 +114,36 @@ class EvaluationTest {
                 + "low_chw_flow,1,1,0,0,1,3.50,2.00,0.5714," + goal + ",false\n"
                 + "stuck_cooling_valve,1,1,1,0,0,0.00,0.00,," + goal + ",false\n"
                 + "all_faults,3,3,1,0,1,5.50,2.50,0.4545," + goal + ",false\n"
-                + "healthy_units,1,0,0,0,0,7.00,1.00,0.1429,flagged share < 0.02,false\n",
+                + "healthy_units,1,0,0,0,0,7.00,1.00,0.1429,flagged share <= 0.01,false\n"
+                // u3 has no truth row and two findings: one healthy unit of one has a finding (worked by hand).
+                + "healthy_units_with_findings,1,0,0,0,0,,,1.0000,share of healthy units <= 0.05,false\n",
                 Files.readString(dir.resolve("evaluation.csv")));
 
         // With --min-hours 0.5 the fan failure's 0.5 flagged hours are enough.
         Evaluation.Result lenient = Evaluation.fit(EvaluationFiles.read(dir, truth), 0.5);
         assertEquals(2, lenient.allFaults().detected());
+    }
+
+    @Test
+    void minConfidenceScoresOnlyConfidentFindings(@TempDir Path dir) throws IOException {
+        Path truth = workedExample(dir);
+        // The same findings with a confidence column: u3's two (the false flags) below 0.9, the others above.
+        List<String> lines = Files.readAllLines(dir.resolve("findings.csv"));
+        StringBuilder withConfidence = new StringBuilder(lines.get(0) + ",confidence\n");
+        for (String line : lines.subList(1, lines.size())) {
+            withConfidence.append(line).append(line.startsWith("urn:u3,") ? ",0.5" : ",0.95").append('\n');
+        }
+        Files.writeString(dir.resolve("findings.csv"), withConfidence);
+
+        Evaluation.Result all = Evaluation.fit(EvaluationFiles.read(dir, truth, 0), 2.0);
+        assertEquals(1, all.healthyUnitsWithFindings());
+        assertEquals(1.0 / 7.0, all.healthy().flaggedShare(), 1e-12);
+
+        Evaluation.Result confident = Evaluation.fit(EvaluationFiles.read(dir, truth, 0.9), 2.0);
+        assertEquals(0, confident.healthyUnitsWithFindings());
+        assertEquals(0.0, confident.healthy().flaggedShare(), 1e-12);
+        // The faulty units' findings are all above 0.9: their scores are those of the worked example.
+        assertEquals(2.5, confident.allFaults().flaggedHours(), 1e-12);
     }
 
     @Test
@@ -133,7 +157,8 @@ class EvaluationTest {
         assertTrue(table.contains("all_faults") && table.contains("1/2 +1"), table);
         assertTrue(table.contains("goal: every injected episode detected (>= 2 h flagged): 1/2 (NOT met); 1 more on "
                 + "units not analysed (coverage excluded them, or no detection for their kind yet)"), table);
-        assertTrue(table.contains("goal: < 2 % of healthy-unit hours flagged: 14.3% (NOT met)"), table);
+        assertTrue(table.contains("goal: <= 1 % of healthy-unit hours flagged: 14.3% (NOT met)"), table);
+        assertTrue(table.contains("goal: <= 5 % of healthy units with any finding: 1 of 1 (100.0%) (NOT met)"), table);
         assertTrue(Files.exists(dir.resolve("evaluation.csv")));
         List<String> episodes = Files.readAllLines(dir.resolve("evaluation_episodes.csv"));
         assertEquals("urn:u1,low_chw_flow,2031-07-01T14:00Z,2031-07-01T18:00Z,0.800,true,true,3.50,2.00,true",

@@ -25,6 +25,9 @@ import org.tufa.analysis.coverage.ModelLoader;
 import org.tufa.analysis.coverage.ProfileCatalog;
 import org.tufa.analysis.coverage.UnitClasses;
 import org.tufa.analysis.coverage.Vocabulary;
+import org.tufa.analysis.evaluate.Evaluation;
+import org.tufa.analysis.evaluate.EvaluationFiles;
+import org.tufa.analysis.evaluate.EvaluationReport;
 import org.tufa.analysis.simulate.DemoSimulation;
 import org.tufa.analysis.simulate.DemoTargets;
 import org.tufa.analysis.simulate.DemoTrends;
@@ -345,6 +348,26 @@ public final class FleetBenchmark {
         System.out.println("load average     before " + m.loadBefore() + " | after " + m.loadAfter());
         System.out.printf(Locale.ROOT, "result           %s (targets: under %.0f s wall, under %.0f MB heap)%n",
                 m.exitCode() == 0 && m.passes() ? "PASS" : "FAIL", TARGET_SECONDS, TARGET_HEAP_MB);
+        detection(s.dir().resolve(DemoTrends.TRUTH_FILE), out);
+    }
+
+    /**
+     * The detection figures beside the speed: the fleet's totals from {@code tufa evaluate}'s scoring against the
+     * simulator's ground truth (a speed-up that costs findings shows here).
+     */
+    private static void detection(Path truth, Path out) {
+        if (!Files.isRegularFile(truth) || !Files.isRegularFile(out.resolve("findings.csv"))) {
+            System.out.println("detection        not scored (no truth.csv or findings.csv)");
+            return;
+        }
+        Evaluation.Result result = Evaluation.fit(EvaluationFiles.read(out, truth), Evaluation.DEFAULT_MIN_HOURS);
+        System.out.println("detection        (tufa evaluate against the simulator's truth)");
+        for (String line : EvaluationReport.table(result)) {
+            if (line.startsWith("all_") || line.startsWith("healthy") || line.startsWith("goal")
+                    || line.startsWith("fault ")) {
+                System.out.println("  " + line);
+            }
+        }
     }
 
     /** Mean, min and max samples used per analysed unit, from fleet.csv (column samples_used). */
