@@ -57,6 +57,13 @@ same=yes
 for f in fleet.csv findings.csv fleet_findings.csv ranking.csv; do
   cmp -s "$work/local/$f" "$work/spark/$f" || { same=no; echo "differs: $f" >&2; }
 done
+# Per-unit files: the same data; parquet-java may list a column's encodings in another order in a Parquet footer
+# from one JVM to the next (it keeps them in a hash set), so those are counted, not required equal.
+unit_files=0 unit_differ=0
+while IFS= read -r f; do
+  unit_files=$((unit_files + 1))
+  cmp -s "$work/local/$f" "$work/spark/$f" || unit_differ=$((unit_differ + 1))
+done < <(cd "$work/local" && find units -type f | sort)
 units=$(($(wc -l < "$work/local/fleet.csv") - 1))
 findings=$(($(wc -l < "$work/local/findings.csv") - 1))
 printf '%-6s %6s %9s %10s %12s  %s\n' engine units findings "wall_s" "peak_rss_MB" "heap (tufa's own line)"
@@ -65,5 +72,6 @@ for name in local spark; do
   heap=$(grep -o 'peak heap.*' "$work/$name.log" | head -1)
   printf '%-6s %6d %9d %10.1f %12d  %s\n' "$name" "$units" "$findings" "$wall" $((rss / 1024)) "$heap"
 done
-echo "fleet files identical: $same"
+echo "fleet files identical: $same; per-unit files: $unit_differ of $unit_files differ in bytes"
+echo "load average at the end: $(cut -d' ' -f1-3 /proc/loadavg)"
 [ "$same" = yes ]

@@ -7,6 +7,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.function.Supplier;
+import org.apache.spark.SparkException;
 import org.apache.spark.api.java.JavaSparkContext;
 import org.apache.spark.api.java.function.Function;
 import org.tufa.analysis.fleet.AnalysisSettings;
@@ -65,8 +66,19 @@ final class SparkUnitEngine implements UnitEngine {
             List<FleetPlan> parts = split(plan, wanted);
             TrendGrid grid = new TrendGrid(store.gridStart().getEpochSecond(), store.interval().getSeconds(),
                     store.gridLength());
-            List<PartResult> results = sc.parallelize(parts, Math.max(1, parts.size()))
-                    .map(new AnalysePart(files, time, grid, settings, sinks)).collect();
+            List<PartResult> results;
+            try {
+                results = sc.parallelize(parts, Math.max(1, parts.size()))
+                        .map(new AnalysePart(files, time, grid, settings, sinks)).collect();
+            } catch (Exception e) {
+                // Scala throws SparkException (checked) undeclared. Its message holds the remote stack trace: keep
+                // its first line.
+                if (e instanceof SparkException) {
+                    String first = e.getMessage() == null ? "" : e.getMessage().lines().findFirst().orElse("");
+                    throw new IllegalStateException("a Spark task failed: " + first, e);
+                }
+                throw e;
+            }
             List<FleetAnalysis.Kept> kept = new ArrayList<>(plan.units().size());
             for (PartResult r : results) {
                 if (r.error() != null) {
@@ -77,9 +89,32 @@ final class SparkUnitEngine implements UnitEngine {
                     times.add(s, r.nanos()[s.ordinal()]);
                 }
             }
+            Path missing = missingUnitFile(kept, sinks);
+            if (missing != null) {
+                throw new InputException("--out " + sinks.out() + ": the executors wrote the per-unit files where "
+                        + "the driver cannot see them (" + missing + " is missing); put --out on a file system that "
+                        + "every executor and the driver share");
+            }
             progress.unitDone(kept.size(), plan.units().size());
             return kept;
         };
+    }
+
+    /**
+     * The first per-sample table phase 1 should have written but that this process cannot see (an --out on each
+     * executor's own disk), or null when all are there.
+     */
+    static Path missingUnitFile(List<FleetAnalysis.Kept> kept, UnitSinks sinks) {
+        Path units = Path.of(sinks.out()).resolve("units");
+        for (FleetAnalysis.Kept k : kept) {
+            if (k.outcome().summary() != null) {
+                Path modes = units.resolve(k.outcome().folder()).resolve("modes." + sinks.format().extension());
+                if (!java.nio.file.Files.isRegularFile(modes)) {
+                    return modes;
+                }
+            }
+        }
+        return null;
     }
 
     @Override
