@@ -202,8 +202,8 @@ final class SparkUnitEngine implements UnitEngine {
         private TrendSource open(FleetPlan part, StageTimes times) {
             long t0 = System.nanoTime();
             List<Path> paths = files.stream().map(Path::of).toList();
-            TrendStore store = part.wanted().isEmpty() ? null : TrendStore.ingest(paths, part.wanted(), part.ranges(), time, grid,
-                            Path.of(System.getProperty("java.io.tmpdir")));
+            TrendStore store = part.wanted().isEmpty() ? null : TrendStore.ingest(paths, part.wanted(),
+                    part.ranges(), time, grid, Path.of(System.getProperty("java.io.tmpdir")));
             times.add(StageTimes.Stage.READ, System.nanoTime() - t0);
             return store;
         }

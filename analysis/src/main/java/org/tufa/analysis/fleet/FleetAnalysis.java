@@ -34,6 +34,10 @@ import org.tufa.analysis.trends.TrendStore;
  * </ol>
  * One unit's failure never stops the fleet: it becomes a {@code failed} row. Results are collected in unit order
  * and the decision is made on them in that order, so the outputs are the same bytes whatever the thread count.
+ *
+ * <p>Phase 1 is per unit and pure but for its sinks ({@link #analyse}); an engine may run it elsewhere
+ * ({@link UnitAnalyser}: the spark module's executors) and hand back each unit's {@link Kept}, and the decision
+ * and phase 3 then run here as always, so every engine writes the same files.
  */
 public final class FleetAnalysis {
 

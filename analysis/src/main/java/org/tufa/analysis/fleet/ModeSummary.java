@@ -25,7 +25,8 @@ import org.tufa.analysis.findings.ClusterSummary;
  */
 public record ModeSummary(String mode, boolean analyzed, String reason, int modeSamples, Band band,
                           int samplesClustered, List<String> features, List<String> featureUnits, Pca pca, int minPts,
-                          List<ClusterSummary> clusters, int noise, double referenceShare, boolean dominantRegime) implements java.io.Serializable {
+                          List<ClusterSummary> clusters, int noise, double referenceShare, boolean dominantRegime)
+        implements java.io.Serializable {
 
     /** Load band figures. */
     public record Band(BandKind kind, double q1, double q3, double low, double high, int inBand, int outOfBand,
