@@ -82,7 +82,9 @@ final class SparkUnitEngine implements UnitEngine {
             List<FleetAnalysis.Kept> kept = new ArrayList<>(plan.units().size());
             for (PartResult r : results) {
                 if (r.error() != null) {
-                    throw new InputException(r.error());
+                    // The driver read the same files without error: what failed is an executor's view of them.
+                    throw new InputException(r.error() + " (on a Spark executor: the trend files must be where "
+                            + "every executor can read them)");
                 }
                 kept.addAll(r.kept());
                 for (StageTimes.Stage s : StageTimes.Stage.values()) {
