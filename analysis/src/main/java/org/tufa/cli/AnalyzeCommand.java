@@ -26,6 +26,9 @@ import org.tufa.analysis.fleet.FleetReport;
 import org.tufa.analysis.modes.ModeThresholds;
 import org.tufa.analysis.fleet.UnitSink;
 import org.tufa.analysis.report.FleetPage;
+import org.tufa.analysis.review.KnownUnits;
+import org.tufa.analysis.review.ReviewFile;
+import org.tufa.analysis.review.Verdict;
 import org.tufa.analysis.tables.SampleFormat;
 import org.tufa.analysis.trends.TimeOptions;
 import java.nio.file.Files;
@@ -159,6 +162,12 @@ public final class AnalyzeCommand implements Callable<Integer> {
     @Option(names = "--no-report", description = "Skip the HTML report (DIR/report/index.html and one page per unit).")
     boolean noReport;
 
+    @Option(names = "--review", paramLabel = "FILE",
+            description = "An analyst's verdicts on an earlier run's findings (review.csv, saved from the report): "
+                    + "rejected findings' periods and signatures count as normal operation of their unit and are "
+                    + "not listed again, confirmed ones are listed and marked.")
+    Path review;
+
     @Override
     public Integer call() {
         PrintWriter stdout = spec.commandLine().getOut();
@@ -213,6 +222,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
             heap.stop();
             return ExitCodes.CHECK_FAILED;
         }
+        List<Verdict> verdicts = review == null ? List.of() : ReviewFile.read(review, knownUnits(assessed));
         ProgressBar bar = new ProgressBar(stderr, "units");
         long start = System.nanoTime();
         UnitSinks unitSinks = new UnitSinks(out.toAbsolutePath().toString(), zone, sampleFormat, !noReport);
@@ -220,13 +230,16 @@ public final class AnalyzeCommand implements Callable<Integer> {
         FleetAnalysis.UnitAnalyser analyser = engine == null ? null
                 : engine.analyser(input.files(), input.database() != null, unitSinks);
         FleetAnalysis.Result result = FleetAnalysis.run(assessed.coverage(), input.opener(assessed.coverage()), time,
-                settings, threads, sinks, bar::update, analyser);
+                settings, verdicts, threads, sinks, bar::update, analyser);
         CoverageFiles.write(assessed.coverage(), out);
         List<Path> inputs = new ArrayList<>();
         if (fleet.model != null) {
             inputs.add(fleet.model);
         }
         inputs.addAll(input.files());
+        if (review != null) {
+            inputs.add(review);
+        }
         Map<String, Object> parameters = parameters(settings, time, zone);
         parameters.putAll(input.parameters());
         if (engine != null) {
@@ -272,6 +285,9 @@ public final class AnalyzeCommand implements Callable<Integer> {
         Map<String, Path> inputs = new LinkedHashMap<>(fleet.inputs());
         if (causes != null) {
             inputs.put("--causes", causes);
+        }
+        if (review != null) {
+            inputs.put("--review", review);
         }
         for (Path t : input.files()) {
             if (Files.isDirectory(t)) {
@@ -418,8 +434,16 @@ public final class AnalyzeCommand implements Callable<Integer> {
         p.put("min_fleet_units", s.decision().minFleetUnits());
         p.put("causes", causes == null ? "built-in" : causes.toString());
         p.put("strict", strict);
+        p.put("review", review == null ? "none" : review.toString());
         p.put("sample_files", sampleFiles.toLowerCase(java.util.Locale.ROOT));
         return p;
+    }
+
+    /** The fleet's units by IRI with their labels: the names a review file may use. */
+    static KnownUnits knownUnits(FleetModelOptions.Assessed assessed) {
+        Map<String, String> labels = new java.util.TreeMap<>();
+        assessed.coverage().units().forEach(u -> labels.put(u.unit(), u.label()));
+        return new KnownUnits(labels);
     }
 
     private List<String> assessedClasses() {

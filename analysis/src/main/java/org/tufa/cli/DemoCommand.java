@@ -9,6 +9,11 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.concurrent.Callable;
+import org.tufa.analysis.evaluate.EvaluationFiles;
+import org.tufa.analysis.evaluate.TruthReview;
+import org.tufa.analysis.labels.AnalysisFolder;
+import org.tufa.analysis.review.ReviewFile;
+import org.tufa.analysis.review.Verdict;
 import org.tufa.analysis.simulate.DemoTrends;
 import org.tufa.analysis.simulate.Season;
 import org.tufa.analysis.simulate.SimulationPlan;
@@ -47,6 +52,11 @@ public final class DemoCommand implements Callable<Integer> {
     @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: all cores).")
     int threads = Runtime.getRuntime().availableProcessors();
 
+    @Option(names = "--review", description = "Then the review loop: a review file derived from the ground truth (as "
+            + "an analyst who verified every finding would write it), a re-run with it, labelled data, label "
+            + "spreading, a cause classifier and its leave-one-unit-out check, and the diagnosed causes scored.")
+    boolean review;
+
     @Override
     public Integer call() throws IOException {
         PrintWriter stdout = spec.commandLine().getOut();
@@ -57,36 +67,88 @@ public final class DemoCommand implements Callable<Integer> {
         Path rules = copy("rules.tufa", input);
         Path model = out.resolve("model.ttl");
 
-        step(stdout, "1/5 map the point list to a Brick model");
+        String of = review ? "/10 " : "/5 ";
+        step(stdout, "1" + of + "map the point list to a Brick model");
         int code = run("map", "--points", points.toString(), "--rules", rules.toString(), "--out", model.toString(),
                 "--report", out.resolve("mapping.csv").toString());
         if (code != ExitCodes.OK) {
             return code;
         }
-        step(stdout, "2/5 coverage: which units have the points the analysis needs");
+        step(stdout, "2" + of + "coverage: which units have the points the analysis needs");
         code = run("coverage", "--model", model.toString(), "--out", out.resolve("coverage").toString(), "--list", "8");
         if (code != ExitCodes.OK) {
             return code;
         }
         Season season = fullYear ? Season.fullYear(2031) : Season.summer(2031);
         Path trends = out.resolve(fullYear ? "trends-year" : "trends-summer");
-        step(stdout, "3/5 simulate " + (fullYear ? "the year" : "the summer") + " 2031 with known faults -> " + trends);
+        step(stdout, "3" + of + "simulate " + (fullYear ? "the year" : "the summer") + " 2031 with known faults -> " + trends);
         simulate(model, season, trends, stdout);
 
-        step(stdout, "4/5 analyse every unit, per operating mode");
+        step(stdout, "4" + of + "analyse every unit, per operating mode");
         code = run("analyze", "--model", model.toString(), "--trends",
                 trends.resolve(DemoTrends.TRENDS_FILE).toString(), "--out", out.toString(), "--timezone",
                 season.zone().getId(), "--threads", Integer.toString(threads));
         if (code != ExitCodes.OK) {
             return code;
         }
-        step(stdout, "5/5 score the findings against the known faults (the demo's ground truth)");
+        step(stdout, "5" + of + "score the findings against the known faults (the demo's ground truth)");
         code = run("evaluate", "--findings", out.toString(), "--truth", trends.resolve(DemoTrends.TRUTH_FILE).toString());
+        if (review && code == ExitCodes.OK) {
+            code = reviewLoop(model, trends, season, stdout);
+        }
         stdout.printf(java.util.Locale.ROOT, "%nDemo done in %.1f s. Open %s in a browser; tables in %s and %s.%n",
                 (System.nanoTime() - start) / 1e9, out.resolve("report").resolve("index.html"),
                 out.resolve("fleet.csv"), out.resolve("findings.csv"));
+        if (review) {
+            stdout.println("Review loop: " + out.resolve("review.csv") + ", the re-run in " + out.resolve("reviewed")
+                    + ", labelled samples and their data card in " + out.resolve("labels") + ", diagnosed causes in "
+                    + out.resolve("diagnosis") + " (candidates to verify).");
+        }
         stdout.flush();
         return code;
+    }
+
+    /**
+     * Steps 6 to 10: the review an analyst who knew the truth would write, the re-run with it, the labelled data,
+     * the classifier and the scores. Outputs under DIR/review.csv, DIR/reviewed/, DIR/labels/, DIR/diagnosis/.
+     */
+    private int reviewLoop(Path model, Path trends, Season season, PrintWriter stdout) {
+        Path truth = trends.resolve(DemoTrends.TRUTH_FILE);
+        Path reviewFile = out.resolve("review.csv");
+        Path reviewed = out.resolve("reviewed");
+        Path labels = out.resolve("labels");
+        Path diagnosis = out.resolve("diagnosis");
+        step(stdout, "6/10 review every finding as an analyst who knew the injected faults would -> " + reviewFile);
+        AnalysisFolder first = AnalysisFolder.open(out);
+        List<Verdict> verdicts = TruthReview.fit(first.findings(), EvaluationFiles.read(out, truth).truth(),
+                season.zone());
+        ReviewFile.write(reviewFile, verdicts, season.zone());
+        long confirmed = verdicts.stream().filter(v -> v.decision() == Verdict.Decision.CONFIRMED).count();
+        stdout.println("Review: " + verdicts.size() + " verdict(s), " + confirmed + " confirmed (cause: the injected "
+                + "fault), " + (verdicts.size() - confirmed) + " rejected (no fault there)");
+        step(stdout, "7/10 analyse again with the review -> " + reviewed);
+        int code = run("analyze", "--model", model.toString(), "--trends", trends.resolve(DemoTrends.TRENDS_FILE)
+                .toString(), "--out", reviewed.toString(), "--timezone", season.zone().getId(), "--threads",
+                Integer.toString(threads), "--review", reviewFile.toString());
+        if (code != ExitCodes.OK) {
+            return code;
+        }
+        step(stdout, "8/10 export the labelled samples and spread the labels -> " + labels);
+        code = run("labels", "--analysis", reviewed.toString(), "--review", reviewFile.toString(), "--out",
+                labels.toString(), "--threads", Integer.toString(threads));
+        if (code != ExitCodes.OK) {
+            return code;
+        }
+        step(stdout, "9/10 train a cause classifier on the labels, check it leaving one unit out, diagnose -> "
+                + diagnosis);
+        code = run("diagnose", "--labels", labels.toString(), "--analysis", reviewed.toString(), "--out",
+                diagnosis.toString());
+        if (code != ExitCodes.OK) {
+            return code;
+        }
+        step(stdout, "10/10 score the re-run, the review's effect and the diagnosed causes against the known faults");
+        return run("evaluate", "--findings", reviewed.toString(), "--truth", truth.toString(), "--review",
+                reviewFile.toString(), "--diagnosis", diagnosis.resolve("diagnosis.csv").toString());
     }
 
     /** Simulates the season unless the folder already holds the same simulation (same season and seed). */

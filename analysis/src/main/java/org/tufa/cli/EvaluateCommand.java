@@ -37,6 +37,16 @@ public final class EvaluateCommand implements Callable<Integer> {
                     + "default: ${DEFAULT-VALUE}, every listed finding). For curves of recall against false flags.")
     double minConfidence;
 
+    @Option(names = "--review", paramLabel = "FILE",
+            description = "The review.csv the run in --findings was made with: count its findings that flag a "
+                    + "rejected period again (the target is none).")
+    Path review;
+
+    @Option(names = "--diagnosis", paramLabel = "FILE",
+            description = "diagnosis.csv of tufa diagnose: score the diagnosed causes against the truth (and the "
+                    + "leave-one-unit-out held_out.csv beside it, when there is one).")
+    Path diagnosis;
+
     @Option(names = "--require-goals",
             description = "Exit with code 3 when a goal is not met (for scripted checks).")
     boolean requireGoals;
@@ -60,6 +70,31 @@ public final class EvaluateCommand implements Callable<Integer> {
         if (input.repeatedEpisodes() > 0) {
             spec.commandLine().getOut().println("note: " + input.repeatedEpisodes() + " row(s) of " + truth
                     + " repeat an earlier episode (same unit, fault, start and end); each episode is counted once");
+        }
+        if (review != null) {
+            org.tufa.analysis.labels.AnalysisFolder folder = org.tufa.analysis.labels.AnalysisFolder.open(findings);
+            var verdicts = org.tufa.analysis.review.ReviewFile.read(review, folder.knownUnits());
+            var h = org.tufa.analysis.evaluate.TruthReview.honoured(verdicts, folder.findings());
+            spec.commandLine().getOut().printf(java.util.Locale.ROOT, "review: %d rejected verdict(s); listed "
+                    + "findings that flag a rejected period again (same unit, mode and kind): %d (target 0)%s; "
+                    + "overlapping a rejected period in another mode or kind (shown with both): %d%n", h.rejected(),
+                    h.flaggedAgain(), h.flaggedAgain() == 0 ? " (met)" : " (NOT met)", h.overlapOtherKind());
+        }
+        if (diagnosis != null) {
+            var score = org.tufa.analysis.evaluate.DiagnosisScore.fit(
+                    org.tufa.analysis.evaluate.DiagnosisScore.read(diagnosis), input.truth());
+            org.tufa.analysis.evaluate.DiagnosisScore.lines("diagnosed causes of the listed findings (in-sample "
+                    + "for units the classifier was trained on)", score).forEach(spec.commandLine().getOut()::println);
+            Path heldOut = diagnosis.resolveSibling(org.tufa.analysis.diagnose.DiagnosisFiles.HELD_OUT);
+            if (java.nio.file.Files.isRegularFile(heldOut)) {
+                var loo = org.tufa.analysis.evaluate.DiagnosisScore.fit(
+                        org.tufa.analysis.evaluate.DiagnosisScore.read(heldOut), input.truth());
+                org.tufa.analysis.evaluate.DiagnosisScore.lines("diagnosed causes leaving one unit out (confirmed "
+                        + "findings)", loo).forEach(spec.commandLine().getOut()::println);
+                spec.commandLine().getOut().println("goal: the diagnosis names the injected fault for >= 80 % of "
+                        + "confirmed episodes leaving one unit out: " + loo.share() + (loo.onFaults() > 0
+                        && loo.right() >= 0.8 * loo.onFaults() ? " (met)" : " (NOT met)"));
+            }
         }
         EvaluationReport.writeSummary(findings.resolve(EvaluationReport.SUMMARY_FILE), result);
         EvaluationReport.writeEpisodes(findings.resolve(EvaluationReport.EPISODES_FILE), result);

@@ -14,7 +14,8 @@ import picocli.CommandLine.Command;
         versionProvider = Tufa.Version.class,
         description = "Terminal Unit Fleet Analysis: point list to Brick model to per-unit fault candidates.",
         subcommands = {org.tufa.mapper.cli.MapCommand.class, CoverageCommand.class, QueryCommand.class,
-                AnalyzeCommand.class, EvaluateCommand.class, DemoCommand.class, LoadCommand.class, ServeCommand.class, CommandLine.HelpCommand.class})
+                AnalyzeCommand.class, EvaluateCommand.class, LabelsCommand.class, DiagnoseCommand.class, DemoCommand.class,
+                LoadCommand.class, ServeCommand.class, CommandLine.HelpCommand.class})
 public final class Tufa implements Runnable {
 
     @CommandLine.Spec

@@ -93,11 +93,12 @@ public final class FleetDecision {
      * Channels whose normal level means the same on every unit, so peers can be compared on it: not the coil
      * residual (relative to the unit's own coil by construction), the valve activity or hunting (they follow the
      * unit's control style: a two-position valve always moves more than a modulating one), nor the share outside
-     * the load band (the band is the unit's own).
+     * the load band or the unit's usual hours (the band and the hours are the unit's own).
      */
     static boolean comparableAcrossUnits(ChannelEvidence c) {
         return switch (c.channel()) {
-            case "coil_residual", "valve_activity", "mode_hunting", "out_of_band_high", "out_of_band_low" -> false;
+            case "coil_residual", "valve_activity", "mode_hunting", "out_of_band_high", "out_of_band_low",
+                 "running_outside_usual_hours" -> false;
             default -> true;
         };
     }
@@ -273,22 +274,8 @@ public final class FleetDecision {
         if (runStart != Integer.MIN_VALUE) {
             runs.add(new int[] {runStart, previous});
         }
-        for (int[] run : runs) {
-            List<Test> members = new ArrayList<>();
-            for (Test t : channelTests) {
-                if (t.finding == null) {
-                    continue;
-                }
-                ChannelEvidence.Candidate c = candidateOf(t);
-                int inside = 0;
-                int total = c.episode().lastDay() - c.episode().firstDay() + 1;
-                for (int d = c.episode().firstDay(); d <= c.episode().lastDay(); d++) {
-                    inside += d >= run[0] && d <= run[1] ? 1 : 0;
-                }
-                if (2 * inside >= total) {
-                    members.add(t);
-                }
-            }
+        for (int[] run : joinReaching(runs, channelTests)) {
+            List<Test> members = members(run, channelTests);
             if (members.size() < settings.minFleetUnits()) {
                 continue;
             }
@@ -325,6 +312,60 @@ public final class FleetDecision {
             }
             fleetTests.add(new Test(f, Math.min(1, tail * perDay.size()), fleetFindings.size() - 1));
         }
+    }
+
+    /** The episodes lying mostly (half their days or more) inside a run of fleet-wide days. */
+    private static List<Test> members(int[] run, List<Test> channelTests) {
+        List<Test> members = new ArrayList<>();
+        for (Test t : channelTests) {
+            if (t.finding == null) {
+                continue;
+            }
+            ChannelEvidence.Candidate c = candidateOf(t);
+            int inside = 0;
+            int total = c.episode().lastDay() - c.episode().firstDay() + 1;
+            for (int d = c.episode().firstDay(); d <= c.episode().lastDay(); d++) {
+                inside += d >= run[0] && d <= run[1] ? 1 : 0;
+            }
+            if (2 * inside >= total) {
+                members.add(t);
+            }
+        }
+        return members;
+    }
+
+    /**
+     * Runs of fleet-wide days whose member episodes overlap in time (a cold spell broken by a mild day, say) are one
+     * shared event: joined, they make one fleet finding instead of overlapping ones.
+     */
+    private static List<int[]> joinReaching(List<int[]> runs, List<Test> channelTests) {
+        List<int[]> out = new ArrayList<>();
+        int[] current = null;
+        for (int[] run : runs) {
+            if (current != null && episodeDays(current, channelTests)[1] >= episodeDays(run, channelTests)[0] - 1) {
+                current = new int[] {current[0], run[1]};
+                continue;
+            }
+            if (current != null) {
+                out.add(current);
+            }
+            current = run;
+        }
+        if (current != null) {
+            out.add(current);
+        }
+        return out;
+    }
+
+    /** First and last day of the member episodes of a run (the run itself when it has none). */
+    private static int[] episodeDays(int[] run, List<Test> channelTests) {
+        int first = run[0];
+        int last = run[1];
+        for (Test t : members(run, channelTests)) {
+            first = Math.min(first, candidateOf(t).episode().firstDay());
+            last = Math.max(last, candidateOf(t).episode().lastDay());
+        }
+        return new int[] {first, last};
     }
 
     /** P(X >= k) for X Poisson with mean lambda (the complement of the Poisson sum). */

@@ -39,4 +39,18 @@ public final class DayIndex {
         }
         return day;
     }
+
+    /**
+     * The local hour of the day (0-23) of every grid sample: on the day daylight saving starts one hour is missing,
+     * on the day it ends one hour holds twice the samples.
+     */
+    public static int[] hourOf(Instant gridStart, Duration interval, int n, ZoneId zone) {
+        int[] hour = new int[n];
+        long step = interval.toMillis();
+        long t = gridStart.toEpochMilli();
+        for (int i = 0; i < n; i++, t += step) {
+            hour[i] = Instant.ofEpochMilli(t).atZone(zone).getHour();
+        }
+        return hour;
+    }
 }

@@ -119,6 +119,13 @@ public record AnalysisSettings(
                 minDayDeviation, maxEpisodeWindowDays, minEpisodeDays, decision);
     }
 
+    /** The settings with other engineering gates (as a run.json records them). */
+    public AnalysisSettings withGates(double residual, double activity, double zoneError) {
+        return new AnalysisSettings(modeThresholds, band, bandRuns, varianceTarget, minPts, extraction,
+                minModeSamples, residual, activity, zoneError, defaultAirflow, causes, dayZone, minDayDeviation,
+                maxEpisodeWindowDays, minEpisodeDays, decision);
+    }
+
     public AnalysisSettings withDecision(DecisionSettings d) {
         return new AnalysisSettings(modeThresholds, band, bandRuns, varianceTarget, minPts, extraction,
                 minModeSamples, residualGate, activityGate, zoneErrorGate, defaultAirflow, causes, dayZone,

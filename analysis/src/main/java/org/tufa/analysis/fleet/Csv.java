@@ -6,8 +6,8 @@ import java.time.ZoneId;
 import java.time.format.DateTimeFormatter;
 import java.util.Locale;
 
-/** Formatting shared by tufa's fleet CSV outputs: ISO-8601 times with offset, rounded figures, quoted fields. */
-final class Csv {
+/** Formatting shared by tufa's CSV outputs: ISO-8601 times with offset, rounded figures, quoted fields. */
+public final class Csv {
 
     private static final DateTimeFormatter ISO = DateTimeFormatter.ISO_OFFSET_DATE_TIME;
 
@@ -19,7 +19,7 @@ final class Csv {
      * whole-minute offsets and years 1-9999 (every trend grid) are written directly, without the formatter's
      * objects: a year of 1-minute samples is 525,600 stamps per unit file. Anything else goes to the formatter.
      */
-    static String time(Instant t, ZoneId zone) {
+    public static String time(Instant t, ZoneId zone) {
         int offset = zone.getRules().getOffset(t).getTotalSeconds();
         long local = t.getEpochSecond() + offset;
         if (t.getNano() != 0 || offset % 60 != 0 || local < FIRST_FAST || local >= END_FAST) {
@@ -66,7 +66,7 @@ final class Csv {
     }
 
     /** A decimal that parses back to the same double; inf/-inf/nan as numpy and pandas read them. */
-    static String number(double v) {
+    public static String number(double v) {
         return org.tufa.analysis.tables.SampleTable.csvNumber(v);
     }
 
@@ -82,7 +82,7 @@ final class Csv {
      * One CSV field of text, quoted when it holds a comma, quote or line break (RFC 4180), with a leading apostrophe
      * when a spreadsheet would run it as a formula ({@link org.tufa.common.CsvCells}).
      */
-    static String field(String text) {
+    public static String field(String text) {
         if (text == null) {
             return "";
         }

@@ -16,6 +16,8 @@ import org.tufa.analysis.decision.FleetDecision;
 import org.tufa.analysis.episodes.ChannelEvidence;
 import org.tufa.analysis.features.UnitSignals;
 import org.tufa.analysis.findings.Finding;
+import org.tufa.analysis.review.ReviewStep;
+import org.tufa.analysis.review.Verdict;
 import org.tufa.analysis.trends.IngestReport;
 import org.tufa.analysis.trends.ResampledSeries;
 import org.tufa.analysis.trends.TimeOptions;
@@ -29,8 +31,9 @@ import org.tufa.analysis.trends.TrendStore;
  *       written as it finishes ({@link UnitSink#analysed}), and only its small summary and its evidence are kept;</li>
  *   <li>decides every candidate finding at once for the whole fleet ({@link FleetDecision}): against the fleet's
  *       healthy units, the unit's peers and fleet-wide effects, with a false-discovery rate over all tests;</li>
- *   <li>hands each unit its decided findings ({@link UnitSink#decided}), with its signals prepared again from the
- *       trend store when it has findings to show.</li>
+ *   <li>applies the analyst's verdicts, when there is a review ({@link ReviewStep}), then hands each unit its
+ *       decided findings ({@link UnitSink#decided}), with its signals prepared again from the trend store when it
+ *       has findings to show.</li>
  * </ol>
  * One unit's failure never stops the fleet: it becomes a {@code failed} row. Results are collected in unit order
  * and the decision is made on them in that order, so the outputs are the same bytes whatever the thread count.
@@ -53,11 +56,19 @@ public final class FleetAnalysis {
      */
     public record Result(List<UnitOutcome> units, List<FleetDecision.FleetFinding> fleetFindings,
                          List<FleetDecision.ChannelNull> nulls, int tests, int fleetBelowConfidence,
-                         IngestReport ingest, StageTimes times) {
+                         IngestReport ingest, StageTimes times, ReviewStep.Result review) {
         public Result {
             units = List.copyOf(units);
             fleetFindings = List.copyOf(fleetFindings);
             nulls = List.copyOf(nulls);
+            review = review == null ? ReviewStep.Result.NONE : review;
+        }
+
+        /** A run without a review. */
+        public Result(List<UnitOutcome> units, List<FleetDecision.FleetFinding> fleetFindings,
+                      List<FleetDecision.ChannelNull> nulls, int tests, int fleetBelowConfidence, IngestReport ingest,
+                      StageTimes times) {
+            this(units, fleetFindings, nulls, tests, fleetBelowConfidence, ingest, times, null);
         }
     }
 
@@ -67,7 +78,7 @@ public final class FleetAnalysis {
     /** Runs on trend files (CSV, long or wide, plain or gzip, or folders of them). */
     public static Result run(FleetCoverage coverage, List<Path> trends, TimeOptions timeOptions,
                              AnalysisSettings settings, int threads, List<UnitSink> sinks, Progress progress) {
-        return run(coverage, TrendStore.opener(trends), timeOptions, settings, threads, sinks, progress);
+        return run(coverage, TrendStore.opener(trends), timeOptions, settings, List.of(), threads, sinks, progress);
     }
 
     /**
@@ -76,7 +87,14 @@ public final class FleetAnalysis {
      */
     public static Result run(FleetCoverage coverage, TrendSource.Opener trends, TimeOptions timeOptions,
                              AnalysisSettings settings, int threads, List<UnitSink> sinks, Progress progress) {
-        return run(coverage, trends, timeOptions, settings, threads, sinks, progress, null);
+        return run(coverage, trends, timeOptions, settings, List.of(), threads, sinks, progress, null);
+    }
+
+    /** @param verdicts the analyst's verdicts on an earlier run's findings (empty: no review) */
+    public static Result run(FleetCoverage coverage, TrendSource.Opener trends, TimeOptions timeOptions,
+                             AnalysisSettings settings, List<Verdict> verdicts, int threads, List<UnitSink> sinks,
+                             Progress progress) {
+        return run(coverage, trends, timeOptions, settings, verdicts, threads, sinks, progress, null);
     }
 
     /**
@@ -86,10 +104,10 @@ public final class FleetAnalysis {
     @FunctionalInterface
     public interface UnitAnalyser {
         /**
-         * @param plan     every unit of the run, in run order
+         * @param plan        every unit of the run, in run order
          * @param store       the trends as the run read them (the grid every unit must be resampled on)
          * @param timeOptions how the run read them
-         * @param times    where to add the stage times measured
+         * @param times       where to add the stage times measured
          * @return one {@link Kept} per unit of the plan, in the plan's order
          */
         List<Kept> analyse(FleetPlan plan, TrendSource store, TimeOptions timeOptions, AnalysisSettings settings,
@@ -98,11 +116,13 @@ public final class FleetAnalysis {
 
     /**
      * Runs with phase 1 done by {@code analyser} (null: in this JVM's worker threads, like the other overloads);
-     * the fleet decision and phase 3 run here, on the trends {@code trends} opens.
+     * the fleet decision, the review and phase 3 run here, on the trends {@code trends} opens.
+     *
+     * @param verdicts the analyst's verdicts on an earlier run's findings (empty: no review)
      */
     public static Result run(FleetCoverage coverage, TrendSource.Opener trends, TimeOptions timeOptions,
-                             AnalysisSettings settings, int threads, List<UnitSink> sinks, Progress progress,
-                             UnitAnalyser analyser) {
+                             AnalysisSettings settings, List<Verdict> verdicts, int threads, List<UnitSink> sinks,
+                             Progress progress, UnitAnalyser analyser) {
         StageTimes times = new StageTimes();
         FleetPlan plan = FleetPlan.of(coverage, settings);
         Map<String, UnitInputs> inputs = new LinkedHashMap<>();
@@ -134,6 +154,7 @@ public final class FleetAnalysis {
                 }
                 FleetDecision.Decision decision = FleetDecision.fit(evidence, settings.decision(), settings.causes(),
                         settings.dayZone(), settings.maxEpisodeWindowDays());
+                ReviewStep.Result review = ReviewStep.apply(decision.findings(), verdicts);
                 times.add(StageTimes.Stage.DECISION, System.nanoTime() - t1);
                 double min = settings.decision().minConfidence();
                 List<Future<UnitOutcome>> finals = new ArrayList<>();
@@ -144,8 +165,9 @@ public final class FleetAnalysis {
                             sinks.get(i).restore(o.folder(), k.sinkState().get(i));
                         }
                     }
-                    List<Finding> decided = decision.findings().getOrDefault(o.unit(), List.of());
-                    finals.add(pool.submit(() -> complete(o, decided, min, inputs.get(o.unit()), store, sinks,
+                    ReviewStep.UnitReview reviewed = review.unit(o.unit(),
+                            decision.findings().getOrDefault(o.unit(), List.of()));
+                    finals.add(pool.submit(() -> complete(o, reviewed, min, inputs.get(o.unit()), store, sinks,
                             times)));
                 }
                 List<UnitOutcome> outcomes = new ArrayList<>(kept.size());
@@ -155,7 +177,7 @@ public final class FleetAnalysis {
                 List<FleetDecision.FleetFinding> fleet = decision.fleet().stream()
                         .filter(f -> f.finding().confidence() >= min).toList();
                 return new Result(outcomes, fleet, decision.nulls(), decision.tests(),
-                        decision.fleet().size() - fleet.size(), store.report(), times);
+                        decision.fleet().size() - fleet.size(), store.report(), times, review);
             } catch (InterruptedException e) {
                 Thread.currentThread().interrupt();
                 throw new IllegalStateException("interrupted", e);
@@ -241,10 +263,15 @@ public final class FleetAnalysis {
         }
     }
 
-    /** Phase 3 for one unit: its decided findings, its signals again when it has some, the sinks. */
-    private static UnitOutcome complete(UnitOutcome o, List<Finding> decided, double minConfidence, UnitInputs in,
-                                        TrendSource store, List<UnitSink> sinks, StageTimes times) {
-        List<Finding> listed = decided.stream().filter(f -> f.confidence() >= minConfidence).toList();
+    /**
+     * Phase 3 for one unit: its decided findings after the review (a confirmed finding is listed whatever its
+     * confidence), its signals again when it has some, the sinks.
+     */
+    private static UnitOutcome complete(UnitOutcome o, ReviewStep.UnitReview reviewed, double minConfidence,
+                                        UnitInputs in, TrendSource store, List<UnitSink> sinks, StageTimes times) {
+        List<Finding> decided = reviewed.findings();
+        List<Finding> listed = decided.stream().filter(f -> f.confidence() >= minConfidence
+                || reviewed.confirmed(org.tufa.analysis.review.FindingIds.of(o.unit(), f))).toList();
         int below = decided.size() - listed.size();
         List<String> notes = new ArrayList<>();
         if (o.summary() != null) {
@@ -256,6 +283,7 @@ public final class FleetAnalysis {
                 }
             }
         }
+        notes.addAll(reviewed.notes());
         UnitSignals signals = null;
         double[] load = null;
         if (!listed.isEmpty()) {
@@ -264,7 +292,7 @@ public final class FleetAnalysis {
             load = UnitAnalysis.load(signals, in.fanSignal(), in.nominalAirflow());
             times.add(StageTimes.Stage.RESAMPLE, System.nanoTime() - t0);
         }
-        UnitOutcome done = o.decided(listed, below, notes, load);
+        UnitOutcome done = o.decided(listed, below, notes, load, reviewed);
         long w = System.nanoTime();
         for (UnitSink sink : sinks) {
             sink.decided(done, signals, load);

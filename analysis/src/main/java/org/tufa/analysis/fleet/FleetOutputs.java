@@ -19,6 +19,8 @@ import java.util.stream.Collectors;
 import org.tufa.analysis.decision.FleetDecision;
 import org.tufa.analysis.findings.Finding;
 import org.tufa.analysis.findings.Shift;
+import org.tufa.analysis.review.ReviewStep;
+import org.tufa.analysis.review.Verdict;
 import org.tufa.analysis.trends.IngestReport;
 import org.tufa.common.OutputFiles;
 
@@ -33,7 +35,8 @@ public final class FleetOutputs {
             "unit,label,folder,status,reason,modes,samples_used,clusters,fault_clusters,fault_hours,energy_kwh,"
                     + "findings,below_confidence,top_confidence";
     public static final String FINDINGS_HEADER =
-            "unit,mode,kind,cluster,start,end,hours,energy_kwh,shift,candidate_causes,confidence,p_value,evidence";
+            "unit,mode,kind,cluster,start,end,hours,energy_kwh,shift,candidate_causes,confidence,p_value,evidence,"
+                    + "finding_id,review,review_cause,review_overlaps";
     public static final String FLEET_FINDINGS_HEADER =
             "mode,kind,start,end,hours,energy_kwh,units,shift,candidate_causes,confidence,p_value,evidence,unit_list";
     public static final String RANKING_HEADER = "rank,unit,label,top_confidence,fault_hours,energy_kwh,findings";
@@ -89,10 +92,21 @@ public final class FleetOutputs {
                         .append(Csv.field(shift)).append(',')
                         .append(Csv.field(String.join(" | ", f.causes()))).append(',')
                         .append(Csv.fixed(f.confidence(), 4)).append(',').append(Csv.number(f.pValue())).append(',')
-                        .append(Csv.field(f.evidence())).append('\n');
+                        .append(Csv.field(f.evidence())).append(',');
+                ReviewStep.Mark mark = u.mark(f);
+                b.append(mark.findingId()).append(',').append(mark.status()).append(',')
+                        .append(Csv.field(mark.own() == null ? "" : mark.own().cause())).append(',')
+                        .append(Csv.field(overlaps(mark, zone))).append('\n');
             }
         }
         return b.toString();
+    }
+
+    /** The other verdicts that overlap a finding, in words: "rejected any mode_hunting from 2031-... (line 4)". */
+    public static String overlaps(ReviewStep.Mark mark, ZoneId zone) {
+        return mark.overlapping().stream().map(v -> v.decision().word() + " " + v.mode() + " " + v.kind() + " from "
+                + Csv.time(v.start(), zone) + " to " + Csv.time(v.end(), zone) + " (review " + v.where() + ")")
+                .collect(Collectors.joining("; "));
     }
 
     static String fleetFindings(List<FleetDecision.FleetFinding> fleet, ZoneId zone) {
@@ -163,6 +177,9 @@ public final class FleetOutputs {
         run.add("ingest", ingestJson(result == null ? null : result.ingest()));
         if (result != null) {
             run.add("decision", decision(result));
+            if (result.review().any()) {
+                run.add("review", review(result.review()));
+            }
         }
         return Json.write(run);
     }
@@ -239,6 +256,34 @@ public final class FleetOutputs {
         }
         d.add("channel_nulls", nulls);
         return d;
+    }
+
+    /** What the review did: verdicts by decision, applied, findings taken out, and every verdict that matched none. */
+    private static JsonObject review(ReviewStep.Result review) {
+        JsonObject o = new JsonObject();
+        o.addProperty("verdicts", review.verdicts().size());
+        for (Verdict.Decision d : Verdict.Decision.values()) {
+            o.addProperty(d.word(), review.verdicts().stream().filter(v -> v.decision() == d).count());
+        }
+        o.addProperty("applied", review.applied().size());
+        o.addProperty("findings_not_listed_rejected", review.suppressedCount());
+        JsonArray unmatched = new JsonArray();
+        for (ReviewStep.Unmatched u : review.unmatched()) {
+            JsonObject j = new JsonObject();
+            Verdict v = u.verdict();
+            j.addProperty("line", v.line());
+            j.addProperty("unit", v.unit());
+            j.addProperty("mode", v.mode());
+            j.addProperty("kind", v.kind());
+            j.addProperty("start", v.start().toString());
+            j.addProperty("end", v.end().toString());
+            j.addProperty("finding_id", v.findingId());
+            j.addProperty("verdict", v.decision().word());
+            j.addProperty("reason", u.reason());
+            unmatched.add(j);
+        }
+        o.add("unmatched", unmatched);
+        return o;
     }
 
     private static List<Path> expand(List<Path> inputs) throws IOException {

@@ -59,6 +59,48 @@ public final class FleetReport {
         return lines;
     }
 
+    /** Verdicts named on the console when they match no finding; run.json lists them all. */
+    static final int UNMATCHED_NAMED = 10;
+
+    /** What the review did, in a few lines (none without a review). */
+    public static List<String> reviewLines(org.tufa.analysis.review.ReviewStep.Result review,
+                                           List<UnitOutcome> units) {
+        if (!review.any()) {
+            return List.of();
+        }
+        List<String> lines = new ArrayList<>();
+        Map<String, Integer> byDecision = new java.util.LinkedHashMap<>();
+        for (var d : org.tufa.analysis.review.Verdict.Decision.values()) {
+            byDecision.put(d.word().replace('_', ' '), (int) review.verdicts().stream()
+                    .filter(v -> v.decision() == d).count());
+        }
+        int confirmed = 0;
+        int overlapping = 0;
+        for (UnitOutcome u : units) {
+            for (Finding f : u.findings()) {
+                var mark = u.mark(f);
+                confirmed += mark.status().equals("confirmed") ? 1 : 0;
+                overlapping += mark.overlapping().isEmpty() ? 0 : 1;
+            }
+        }
+        lines.add(String.format(Locale.ROOT, "Review: %d verdict(s) (%s): %d applied, %d not matched; %d finding(s) "
+                        + "not listed, rejected by the analyst as normal operation; %d confirmed finding(s) listed; "
+                        + "%d listed finding(s) overlap a verdict of another mode or kind (shown with both)",
+                review.verdicts().size(), String.join(", ", byDecision.entrySet().stream()
+                        .map(e -> e.getValue() + " " + e.getKey()).toList()), review.applied().size(),
+                review.unmatched().size(), review.suppressedCount(), confirmed, overlapping));
+        List<org.tufa.analysis.review.ReviewStep.Unmatched> un = review.unmatched();
+        for (int i = 0; i < Math.min(UNMATCHED_NAMED, un.size()); i++) {
+            var v = un.get(i).verdict();
+            lines.add("  not matched: " + v.where() + " " + org.tufa.common.Printable.excerpt(v.unit()) + " " + v.mode()
+                    + " " + v.kind() + " from " + v.start() + " (" + v.decision().word() + "): " + un.get(i).reason());
+        }
+        if (un.size() > UNMATCHED_NAMED) {
+            lines.add("  ... and " + (un.size() - UNMATCHED_NAMED) + " more not matched (see run.json)");
+        }
+        return lines;
+    }
+
     private static void add(List<String> parts, long count, String what) {
         if (count > 0) {
             parts.add(count + " " + what);
@@ -87,6 +129,7 @@ public final class FleetReport {
                         + "below it not listed; %d tests, false-discovery rate controlled over all", minConfidence,
                 total, unitsWith, total == 0 ? "" : " (" + String.join(", ", byKind.entrySet().stream()
                         .map(e -> e.getValue() + " " + e.getKey()).toList()) + ")", below, result.tests()));
+        lines.addAll(reviewLines(result.review(), result.units()));
         for (FleetDecision.FleetFinding f : result.fleetFindings()) {
             lines.add(String.format(Locale.ROOT, "Fleet-wide: %s %s, %s to %s, %d units, confidence %.3f",
                     f.finding().mode(), f.finding().kind(), f.finding().start(), f.finding().end(), f.units().size(),

@@ -59,10 +59,31 @@ final class Json {
             fj.add("confidence", number(f.confidence()));
             fj.add("p_value", number(f.pValue()));
             fj.addProperty("evidence", f.evidence());
+            org.tufa.analysis.review.ReviewStep.Mark mark = o.mark(f);
+            fj.addProperty("id", mark.findingId());
+            fj.addProperty("review", mark.status());
+            if (mark.own() != null) {
+                fj.addProperty("review_cause", mark.own().cause());
+                fj.addProperty("review_note", mark.own().note());
+            }
+            if (!mark.overlapping().isEmpty()) {
+                JsonArray near = new JsonArray();
+                for (org.tufa.analysis.review.Verdict v : mark.overlapping()) {
+                    JsonObject vj = new JsonObject();
+                    vj.addProperty("verdict", v.decision().word());
+                    vj.addProperty("mode", v.mode());
+                    vj.addProperty("kind", v.kind());
+                    vj.addProperty("start", v.start().toString());
+                    vj.addProperty("end", v.end().toString());
+                    near.add(vj);
+                }
+                fj.add("overlapping_verdicts", near);
+            }
             findings.add(fj);
         }
         u.add("findings", findings);
         u.addProperty("findings_below_confidence", o.belowConfidence());
+        u.addProperty("findings_not_listed_rejected_by_review", o.review().suppressed().size());
         return write(u);
     }
 
@@ -90,6 +111,7 @@ final class Json {
         j.addProperty("samples_clustered", m.samplesClustered());
         j.add("features", strings(m.features()));
         j.add("feature_units", strings(m.featureUnits()));
+        j.add("health_features", strings(m.healthFeatures()));
         ModeSummary.Pca pca = m.pca();
         JsonObject p = new JsonObject();
         p.addProperty("components", pca.components());

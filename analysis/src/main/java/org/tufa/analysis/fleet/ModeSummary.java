@@ -22,11 +22,12 @@ import org.tufa.analysis.findings.ClusterSummary;
  * @param noise            samples OPTICS left as noise
  * @param referenceShare   share of the clustered samples in the normal reference (NaN when skipped)
  * @param dominantRegime   whether the reference holds at least half of them
+ * @param healthFeatures   the health features among {@code features} (those scaled by their gate and clustered)
  */
 public record ModeSummary(String mode, boolean analyzed, String reason, int modeSamples, Band band,
                           int samplesClustered, List<String> features, List<String> featureUnits, Pca pca, int minPts,
-                          List<ClusterSummary> clusters, int noise, double referenceShare, boolean dominantRegime)
-        implements java.io.Serializable {
+                          List<ClusterSummary> clusters, int noise, double referenceShare, boolean dominantRegime,
+                          List<String> healthFeatures) implements java.io.Serializable {
 
     /** Load band figures. */
     public record Band(BandKind kind, double q1, double q3, double low, double high, int inBand, int outOfBand,
@@ -42,6 +43,7 @@ public record ModeSummary(String mode, boolean analyzed, String reason, int mode
         features = features == null ? List.of() : List.copyOf(features);
         featureUnits = featureUnits == null ? List.of() : List.copyOf(featureUnits);
         clusters = clusters == null ? List.of() : List.copyOf(clusters);
+        healthFeatures = healthFeatures == null ? List.of() : List.copyOf(healthFeatures);
     }
 
     /** The summary of a mode's detailed result. */
@@ -50,7 +52,7 @@ public record ModeSummary(String mode, boolean analyzed, String reason, int mode
                 m.band().high(), m.band().inBandCount(), m.band().outOfBandCount(), m.band().runs().size());
         if (!m.analyzed()) {
             return new ModeSummary(m.mode(), false, m.reason(), m.modeSamples(), band, 0, null, null, null, 0, null,
-                    0, Double.NaN, false);
+                    0, Double.NaN, false, null);
         }
         List<String> health = m.features().healthNames();
         int[] kept = m.pca().keptColumns();
@@ -63,7 +65,7 @@ public record ModeSummary(String mode, boolean analyzed, String reason, int mode
         }
         return new ModeSummary(m.mode(), true, "", m.modeSamples(), band, m.features().size(), m.features().names(),
                 m.features().units(), pca, m.optics().minPts(), m.clusters(), noise, m.referenceShare(),
-                m.dominantRegime());
+                m.dominantRegime(), health);
     }
 
     /** Clusters judged candidate faults. */

@@ -18,6 +18,7 @@ import org.tufa.analysis.cluster.PcaResult;
 import org.tufa.analysis.episodes.ChannelEvidence;
 import org.tufa.analysis.episodes.DayChannel;
 import org.tufa.analysis.episodes.DayIndex;
+import org.tufa.analysis.episodes.UsualHours;
 import org.tufa.analysis.episodes.Episode;
 import org.tufa.analysis.episodes.EpisodeFinder;
 import org.tufa.analysis.features.FeatureMatrix;
@@ -118,6 +119,7 @@ public final class UnitAnalysis {
         evidence.add(cx.rule("any", "mode_hunting", running, hunting(s, fanSignal, settings), RULE_MIN_SHARE,
                 Double.NaN));
         evidence.addAll(balanceEvidence(modes, cx));
+        evidence.add(outsideUsualHours(modes, running, day, cx));
         for (String mode : ModeFeatures.CLUSTERED_MODES) {
             OperatingMode m = OperatingMode.valueOf(mode.toUpperCase(Locale.ROOT));
             results.add(mode(mode, m, modes, bandState, evidence, cx, times));
@@ -302,6 +304,11 @@ public final class UnitAnalysis {
         if (features.size() < Math.max(settings.minModeSamples() / 2, settings.minPts() + 1)) {
             return ModeResult.skipped(name, modeSamples, "only " + features.size() + " complete samples in "
                     + name + " inside the load band");
+        }
+        if (everyColumnConstant(features)) {
+            // Nothing varies (a frozen sensor or a held value, say): PCA and OPTICS have nothing to separate.
+            return ModeResult.skipped(name, modeSamples, "every health feature of " + name + " holds one value ("
+                    + String.join(", ", features.healthNames()) + "): a frozen sensor or a held trend value?");
         }
         PcaResult pca = Pca.fit(scaledByGate(features, settings),
                 ComponentRule.cumulativeVariance(settings.varianceTarget()), Pca.Scaling.CENTRE_ONLY);
@@ -684,7 +691,7 @@ public final class UnitAnalysis {
     }
 
     /** The shift of a health feature that makes a cluster a candidate fault, in the feature's unit. */
-    static double gate(String feature, AnalysisSettings settings) {
+    public static double gate(String feature, AnalysisSettings settings) {
         return switch (feature) {
             case "valve_activity" -> settings.activityGate();
             case "zone_error" -> settings.zoneErrorGate();
@@ -814,6 +821,23 @@ public final class UnitAnalysis {
         return new ModeSplit(codes, counts, split.fanInferred());
     }
 
+    /**
+     * Running in the hours the unit usually does not run ({@link UsualHours}): the share of the day's usually-off
+     * samples with the fan running, against the unit's own days (night cycling is some units' normal; judged
+     * against them, short runs that follow the weather on every unit at once become fleet-wide findings).
+     */
+    private static ChannelEvidence outsideUsualHours(ModeSplit modes, boolean[] running, int[] day, Context cx) {
+        UnitSignals s = cx.s();
+        int[] hour = DayIndex.hourOf(s.gridStart(), s.interval(), s.size(), cx.settings().dayZone());
+        boolean[] hasData = new boolean[running.length];
+        for (int i = 0; i < hasData.length; i++) {
+            hasData[i] = modes.at(i) != OperatingMode.NO_DATA;
+        }
+        UsualHours usual = UsualHours.fit(day, hour, hasData, running);
+        return cx.rule("any", "running_outside_usual_hours", usual.eligible(day, hour, hasData), running,
+                RULE_MIN_SHARE, Double.NaN);
+    }
+
     /** Valve swing (mean absolute change per sample, percent) that makes mode changes hunting. */
     static final double HUNTING_ACTIVITY = 10.0;
 
@@ -829,6 +853,20 @@ public final class UnitAnalysis {
             out[i] = running(modes.at(i)) || modes.at(i) == OperatingMode.TRANSITION;
         }
         return out;
+    }
+
+    /** Whether every health feature (the columns PCA sees) holds one value over the mode's samples. */
+    private static boolean everyColumnConstant(FeatureMatrix f) {
+        double[][] rows = f.healthRows();
+        for (int j = 0; j < rows[0].length; j++) {
+            double first = rows[0][j];
+            for (double[] row : rows) {
+                if (row[j] != first) {
+                    return false;
+                }
+            }
+        }
+        return true;
     }
 
     private static int[] indices(boolean[] mask) {

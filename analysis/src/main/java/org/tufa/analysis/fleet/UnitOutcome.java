@@ -2,6 +2,7 @@ package org.tufa.analysis.fleet;
 
 import java.util.List;
 import org.tufa.analysis.findings.Finding;
+import org.tufa.analysis.review.ReviewStep;
 
 /**
  * What happened to one unit in a fleet run; one row of fleet.csv.
@@ -17,10 +18,13 @@ import org.tufa.analysis.findings.Finding;
  *                        findings at or above the run's minimum confidence
  * @param belowConfidence decided findings of the unit below the minimum confidence (counted, not listed)
  * @param totals          the fleet.csv figures
+ * @param review          the analyst's verdicts on the listed findings and what the review took out
+ *                        ({@link ReviewStep}); {@link ReviewStep.UnitReview#NONE} without a review
  */
 public record UnitOutcome(String unit, String label, String folder, String status, String reason, List<String> notes,
                           UnitAnalysis.Result result, UnitSummary summary, List<Finding> findings,
-                          int belowConfidence, Totals totals) implements java.io.Serializable {
+                          int belowConfidence, Totals totals, ReviewStep.UnitReview review)
+        implements java.io.Serializable {
 
     public static final String ANALYZED = "analyzed";
     public static final String SKIPPED = "skipped";
@@ -71,6 +75,14 @@ public record UnitOutcome(String unit, String label, String folder, String statu
     public UnitOutcome {
         notes = List.copyOf(notes);
         findings = List.copyOf(findings);
+        review = review == null ? ReviewStep.UnitReview.NONE : review;
+    }
+
+    /** An outcome without a review. */
+    public UnitOutcome(String unit, String label, String folder, String status, String reason, List<String> notes,
+                       UnitAnalysis.Result result, UnitSummary summary, List<Finding> findings, int belowConfidence,
+                       Totals totals) {
+        this(unit, label, folder, status, reason, notes, result, summary, findings, belowConfidence, totals, null);
     }
 
     /** An outcome straight from the analysis (phase 1): detailed result, candidate findings. */
@@ -87,7 +99,7 @@ public record UnitOutcome(String unit, String label, String folder, String statu
      */
     public UnitOutcome withoutDetail() {
         return new UnitOutcome(unit, label, folder, status, reason, notes, null, summary, findings, belowConfidence,
-                totals);
+                totals, review);
     }
 
     /**
@@ -98,10 +110,21 @@ public record UnitOutcome(String unit, String label, String folder, String statu
      * @param loadKw the unit's load per sample (may be null when {@code listed} is empty)
      */
     public UnitOutcome decided(List<Finding> listed, int below, List<String> moreNotes, double[] loadKw) {
+        return decided(listed, below, moreNotes, loadKw, ReviewStep.UnitReview.NONE);
+    }
+
+    /** The outcome with the fleet stage's decision and the analyst's review of it. */
+    public UnitOutcome decided(List<Finding> listed, int below, List<String> moreNotes, double[] loadKw,
+                               ReviewStep.UnitReview unitReview) {
         List<String> all = new java.util.ArrayList<>(notes);
         all.addAll(moreNotes);
         return new UnitOutcome(unit, label, folder, status, reason, all, null, summary, listed, below,
-                Totals.of(summary, listed, loadKw));
+                Totals.of(summary, listed, loadKw), unitReview);
+    }
+
+    /** The review mark of one of the listed findings (empty when no verdict concerns it). */
+    public ReviewStep.Mark mark(Finding f) {
+        return review.mark(org.tufa.analysis.review.FindingIds.of(unit, f));
     }
 
     /** Modes clustered, ';'-separated. */

@@ -108,6 +108,19 @@ final class DataTable {
             return sorted(Html.fixed(value, decimals), value);
         }
 
+        /**
+         * A finding's review cell: its status as text, and the finding id the review script builds the verdict
+         * controls for ({@link ReviewControls}).
+         */
+        Row review(String findingId, String status) {
+            JsonObject c = new JsonObject();
+            c.addProperty("t", status);
+            c.addProperty("c", "review");
+            c.addProperty("f", findingId);
+            cells.add(c);
+            return this;
+        }
+
         /** Text with a style class (found, missing, ambiguous, failed) and a tooltip. */
         Row styled(String text, String cssClass, String title) {
             JsonObject c = new JsonObject();

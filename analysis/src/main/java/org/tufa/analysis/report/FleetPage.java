@@ -17,6 +17,7 @@ import org.tufa.analysis.findings.Shift;
 import org.tufa.analysis.fleet.FleetAnalysis;
 import org.tufa.analysis.fleet.FleetOutputs;
 import org.tufa.analysis.fleet.UnitOutcome;
+import org.tufa.analysis.review.ReviewStep;
 
 /**
  * The fleet page, {@code DIR/report/index.html}: unit counts, ranking, the findings table (sortable), every unit
@@ -69,11 +70,11 @@ public final class FleetPage {
         confidence(b, result);
         ranking(b, units);
         fleetFindings(b, result, zone);
-        findings(b, units, zone);
+        findings(b, result, zone);
         Html.caution(b);
         unitTable(b, units);
         coverageMatrix(b, coverage, byUnit);
-        Html.close(b);
+        Html.close(b, units.stream().anyMatch(u -> !u.findings().isEmpty()) ? ReviewControls.SCRIPT : "");
         return b.toString();
     }
 
@@ -185,26 +186,33 @@ public final class FleetPage {
         t.appendTo(b);
     }
 
-    private static void findings(StringBuilder b, List<UnitOutcome> units, ZoneId zone) {
+    private static void findings(StringBuilder b, FleetAnalysis.Result result, ZoneId zone) {
+        List<UnitOutcome> units = result.units();
         b.append("<h2>Findings</h2>\n");
+        org.tufa.analysis.fleet.FleetReport.reviewLines(result.review(), units)
+                .forEach(l -> b.append("<p class=\"small\">").append(Html.esc(l.strip())).append("</p>\n"));
         if (units.stream().allMatch(u -> u.findings().isEmpty())) {
             b.append("<p>No findings.</p>\n");
             return;
         }
+        ReviewControls.toolbar(b, result, zone);
         b.append("<p>Click a column header to sort. Details, charts and candidate causes on each unit's page.</p>\n");
         DataTable t = new DataTable("findings", "../findings.csv").column("unit", false).column("confidence", true)
                 .column("mode", false).column("kind", false).column("cluster", false).column("start", true)
                 .column("end", true).column("hours", true).column("energy (kWh)", true).column("evidence", false)
-                .column("shift from normal", false).column("candidate causes", false);
+                .column("shift from normal", false).column("candidate causes", false).column("id", false)
+                .column("review: verdict, cause, note", false);
         for (UnitOutcome u : units) {
             for (Finding f : u.findings()) {
+                ReviewStep.Mark mark = u.mark(f);
                 t.row().link(name(u), href(u)).number(f.confidence(), 3).text(f.mode()).text(f.kind())
                         .text(f.cluster() < 0 ? "" : "C" + f.cluster())
                         .time(Times.local(f.start(), zone), f.start().getEpochSecond())
                         .time(Times.local(f.end(), zone), f.end().getEpochSecond())
                         .number(f.hours(), 1).number(f.energyKwh(), 1).text(f.evidence())
                         .text(String.join("\n", f.shifts().stream().map(Shift::describe).toList()))
-                        .text(String.join(" | ", f.causes()));
+                        .text(String.join(" | ", f.causes())).text(mark.findingId())
+                        .review(mark.findingId(), ReviewControls.statusText(mark, zone));
             }
         }
         t.appendTo(b);

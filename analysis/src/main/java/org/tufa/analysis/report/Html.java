@@ -59,7 +59,8 @@ final class Html {
     static void open(StringBuilder b, String title, String heading) {
         b.append("<!DOCTYPE html>\n<html lang=\"en\" data-broken-images=\"unknown\">\n<head>\n<meta charset=\"utf-8\">\n")
                 .append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n")
-                .append("<title>").append(esc(title)).append("</title>\n<style>\n").append(STYLE).append("</style>\n")
+                .append("<title>").append(esc(title)).append("</title>\n<style>\n").append(STYLE)
+                .append(ReviewControls.STYLE).append("</style>\n")
                 .append("</head>\n<body>\n<h1>").append(esc(heading)).append("</h1>\n");
         caution(b);
     }
@@ -72,12 +73,17 @@ final class Html {
 
     /** The page's end: the caution again, the image check and (where tables are sortable) the sort script. */
     static void close(StringBuilder b) {
+        close(b, "");
+    }
+
+    /** The page's end with one more inline script after the common one (the fleet page's review controls). */
+    static void close(StringBuilder b, String moreScript) {
         b.append("<footer>\n");
         caution(b);
         b.append("<p class=\"small\">Colours: the Okabe-Ito palette for colour-blind readers (Okabe and Ito, "
                 + "&quot;Color Universal Design (CUD): how to make figures and presentations that are friendly to "
                 + "colorblind people&quot;, 2008). Every colour is also named in a legend or table.</p>\n");
-        b.append("</footer>\n<script>\n").append(SCRIPT).append("</script>\n</body>\n</html>\n");
+        b.append("</footer>\n<script>\n").append(SCRIPT).append(moreScript).append("</script>\n</body>\n</html>\n");
     }
 
     private static final String STYLE = """
@@ -131,6 +137,7 @@ final class Html {
             for(var i=from;i<to;i++){var tr=body.insertRow();rows[i].forEach(function(c,j){var td=tr.insertCell();
             if(data.columns[j].n){td.className='num';}
             if(typeof c==='object'){if(c.c){td.className=c.c;}if(c.ti){td.title=c.ti;}
+            if(c.f){td.setAttribute('data-finding',c.f);}
             if(c.h){var a=document.createElement('a');a.href=c.h;a.textContent=c.t;td.appendChild(a);return;}}
             td.textContent=text(c);});}
             where.textContent='rows '+(rows.length?from+1:0)+'-'+to+' of '+rows.length;

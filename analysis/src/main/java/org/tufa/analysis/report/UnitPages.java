@@ -205,7 +205,7 @@ public final class UnitPages implements UnitSink {
         b.append("<table>\n<thead><tr><th>#</th><th class=\"num\">confidence</th><th>mode</th><th>kind</th>"
                 + "<th>cluster</th><th>start</th><th>end</th><th class=\"num\">hours</th>"
                 + "<th class=\"num\">energy (kWh)</th><th>evidence</th><th>shift from normal</th>"
-                + "<th>candidate causes (verify on site)</th></tr></thead>\n<tbody>\n");
+                + "<th>candidate causes (verify on site)</th><th>id</th><th>review</th></tr></thead>\n<tbody>\n");
         int k = 1;
         for (Finding f : o.findings()) {
             b.append("<tr><td>F").append(k++).append("</td><td class=\"num\">").append(Html.fixed(f.confidence(), 3))
@@ -219,9 +219,11 @@ public final class UnitPages implements UnitSink {
                     .append(Html.esc(f.evidence())).append("</td><td>")
                     .append(Html.shifts(f.shifts())).append("</td><td>");
             list(b, f.causes());
-            b.append("</td></tr>\n");
+            b.append("</td><td><code>").append(o.mark(f).findingId()).append("</code></td><td>")
+                    .append(ReviewControls.status(o.mark(f), zone)).append("</td></tr>\n");
         }
-        b.append("</tbody>\n</table>\n");
+        b.append("</tbody>\n</table>\n<p class=\"small\">Verdicts on these findings are given on the "
+                + "<a href=\"../../index.html\">fleet page</a>, beside each finding.</p>\n");
     }
 
     private static void list(StringBuilder b, List<String> items) {

@@ -39,8 +39,9 @@ import org.apache.parquet.schema.MessageType;
 import org.tufa.common.InputException;
 
 /**
- * Reads the time and one text column of a per-sample Parquet table tufa wrote: what {@code tufa evaluate} needs from
- * a unit's {@code modes.parquet}.
+ * Reads columns of a per-sample Parquet table tufa wrote: the time and one text column ({@code tufa evaluate} on a
+ * unit's {@code modes.parquet}), or the time and number columns ({@code tufa labels} on {@code features.parquet} and
+ * {@code reachability.parquet}).
  *
  * <p>parquet-java's file reader cannot be built without Hadoop on the class path (its read options load Hadoop's
  * input-format classes), so this reads the footer and the two column chunks itself: the footer with parquet-java's
@@ -73,37 +74,120 @@ public final class SampleTableReader {
         }
     }
 
+    /** A time column, number columns and text columns of a table, in row order (integers read as doubles). */
+    public record TimedColumns(Instant[] times, double[][] numbers, String[][] texts) {
+        public int size() {
+            return times.length;
+        }
+    }
+
+    /**
+     * @param file a {@code .parquet} table
+     * @param numberColumns columns of kind REAL or INTEGER
+     * @param textColumns columns of kind TEXT
+     * @throws InputException when the file is missing, unreadable or lacks the columns
+     */
+    public static TimedColumns readColumns(Path file, String timeColumn, List<String> numberColumns,
+                                           List<String> textColumns) {
+        List<String> names = new ArrayList<>();
+        names.add(timeColumn);
+        names.addAll(numberColumns);
+        names.addAll(textColumns);
+        int numbers = numberColumns.size();
+        List<Instant> times = new ArrayList<>();
+        List<double[]> rows = new ArrayList<>();
+        List<String[]> texts = new ArrayList<>();
+        synchronized (org.apache.parquet.hadoop.metadata.ColumnPath.class) { // see ParquetSampleTable
+            readLocked(file, names, (g, schema) -> {
+                times.add(Instant.ofEpochMilli(g.getLong(0, 0)));
+                double[] v = new double[numbers];
+                for (int j = 0; j < numbers; j++) {
+                    v[j] = schema.getType(j + 1).asPrimitiveType().getPrimitiveTypeName()
+                            == org.apache.parquet.schema.PrimitiveType.PrimitiveTypeName.INT32
+                            ? g.getInteger(j + 1, 0) : g.getDouble(j + 1, 0);
+                }
+                rows.add(v);
+                String[] t = new String[textColumns.size()];
+                for (int j = 0; j < t.length; j++) {
+                    t[j] = g.getString(1 + numbers + j, 0);
+                }
+                texts.add(t);
+            });
+        }
+        int n = rows.size();
+        double[][] numberColumnsOut = new double[numbers][n];
+        String[][] textColumnsOut = new String[textColumns.size()][n];
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < numbers; j++) {
+                numberColumnsOut[j][i] = rows.get(i)[j];
+            }
+            for (int j = 0; j < textColumnsOut.length; j++) {
+                textColumnsOut[j][i] = texts.get(i)[j];
+            }
+        }
+        return new TimedColumns(times.toArray(Instant[]::new), numberColumnsOut, textColumnsOut);
+    }
+
+    /** A time column and number columns of a table, in row order (integers read as doubles). */
+    public record TimedNumbers(Instant[] times, double[][] columns) {
+        public int size() {
+            return times.length;
+        }
+    }
+
+    /**
+     * @param file a {@code .parquet} table
+     * @param numberColumns columns of kind REAL or INTEGER
+     * @throws InputException when the file is missing, unreadable or lacks the columns
+     */
+    public static TimedNumbers readNumbers(Path file, String timeColumn, List<String> numberColumns) {
+        TimedColumns c = readColumns(file, timeColumn, numberColumns, List.of());
+        return new TimedNumbers(c.times(), c.numbers());
+    }
+
+    private interface RowHandler {
+        /** One row of the projection, its columns in the order asked for. */
+        void accept(Group row, MessageType projection);
+    }
+
     private static TimedTexts readLocked(Path file, String timeColumn, String textColumn) {
+        List<Instant> times = new ArrayList<>();
+        List<String> texts = new ArrayList<>();
+        readLocked(file, List.of(timeColumn, textColumn), (g, schema) -> {
+            times.add(Instant.ofEpochMilli(g.getLong(0, 0)));
+            texts.add(g.getString(1, 0));
+        });
+        return new TimedTexts(times, texts);
+    }
+
+    private static void readLocked(Path file, List<String> columns, RowHandler handler) {
         if (!Files.isRegularFile(file)) {
             throw InputException.in(file, "file not found; pass the directory the analysis wrote");
         }
-        List<Instant> times = new ArrayList<>();
-        List<String> texts = new ArrayList<>();
         try (FileChannel channel = FileChannel.open(file, StandardOpenOption.READ)) {
             ParquetMetadata footer = footer(channel, file);
             MessageType schema = footer.getFileMetaData().getSchema();
-            if (!schema.containsField(timeColumn) || !schema.containsField(textColumn)) {
-                throw InputException.in(file, "lacks column " + timeColumn + " or " + textColumn
+            List<String> missing = columns.stream().filter(c -> !schema.containsField(c)).toList();
+            if (!missing.isEmpty()) {
+                throw InputException.in(file, "lacks column(s) " + String.join(", ", missing)
                         + "; is it a table tufa analyze wrote?");
             }
-            MessageType projection = new MessageType(schema.getName(), schema.getType(timeColumn),
-                    schema.getType(textColumn));
+            MessageType projection = new MessageType(schema.getName(), columns.stream().map(schema::getType)
+                    .toList());
             MessageColumnIO io = new ColumnIOFactory().getColumnIO(projection, schema);
             GzipCodecs codecs = new GzipCodecs();
             for (BlockMetaData block : footer.getBlocks()) {
                 Pages pages = new Pages(block.getRowCount());
                 for (ColumnChunkMetaData chunk : block.getColumns()) {
                     String name = chunk.getPath().toDotString();
-                    if (name.equals(timeColumn) || name.equals(textColumn)) {
+                    if (columns.contains(name)) {
                         pages.add(projection.getColumnDescription(new String[] {name}),
                                 chunkPages(channel, chunk, codecs));
                     }
                 }
                 RecordReader<Group> records = io.getRecordReader(pages, new GroupRecordConverter(projection));
                 for (long i = 0; i < block.getRowCount(); i++) {
-                    Group g = records.read();
-                    times.add(Instant.ofEpochMilli(g.getLong(0, 0)));
-                    texts.add(g.getString(1, 0));
+                    handler.accept(records.read(), projection);
                 }
             }
             codecs.release();
@@ -115,7 +199,6 @@ public final class SampleTableReader {
                     + (e.getMessage() == null ? "" : ": " + e.getMessage().lines().findFirst().orElse(""))
                     + "); rerun tufa analyze to write it again");
         }
-        return new TimedTexts(times, texts);
     }
 
     /** The footer: the file ends with the metadata, its length (4 bytes, little-endian) and "PAR1". */

@@ -55,7 +55,7 @@ class FleetOutputsTest {
         assertTrue(fleetLines.get(0).startsWith(String.join(",", EvaluationFiles.FLEET_HEADER)));
         List<String> findingLines = Files.readAllLines(dir.resolve("findings.csv"), StandardCharsets.UTF_8);
         assertEquals("unit,mode,kind,cluster,start,end,hours,energy_kwh,shift,candidate_causes,confidence,p_value,"
-                + "evidence", findingLines.get(0));
+                + "evidence,finding_id,review,review_cause,review_overlaps", findingLines.get(0));
         assertEquals(FleetOutputs.FINDINGS_HEADER, findingLines.get(0));
         assertTrue(findingLines.get(0).startsWith(String.join(",", EvaluationFiles.FINDINGS_HEADER)));
 
@@ -76,7 +76,9 @@ class FleetOutputsTest {
         List<CSVRecord> findings = parse(dir.resolve("findings.csv"));
         assertEquals(1, findings.size());
         CSVRecord row = findings.get(0);
-        assertEquals(13, row.size());
+        assertEquals(17, row.size());
+        assertEquals(org.tufa.analysis.review.FindingIds.of(fleet.get(0).get("unit"), f), row.get("finding_id"));
+        assertEquals("", row.get("review"), "no review given");
         assertEquals("fault_cluster", row.get("kind"));
         assertEquals("0.9876", row.get("confidence"));
         assertEquals("1.0E-6", row.get("p_value"));

@@ -238,4 +238,71 @@ class UnitAnalysisTest {
         assertNotNull(cold.get(0).causes());
         assertTrue(cold.get(0).causes().stream().anyMatch(c -> c.contains("discharge colder than the zone")));
     }
+
+    /**
+     * The fan left running 04:00-07:00 and 19:00-23:00 (fan only, valves shut) on days 10-12: 7 of the 12 hours
+     * the unit is usually off (00:00-07:00, 19:00-24:00), 58 % of the day's usually-off samples against 0 % on its
+     * other days (worked example, computed by hand).
+     */
+    @Test
+    void fanLeftRunningAfterHoursIsRunningOutsideUsualHours() {
+        SyntheticUnit u = SyntheticUnit.healthy(DAYS, true, 7);
+        for (int d = 10; d <= 12; d++) {
+            for (int[] hours : new int[][] {SyntheticUnit.span(d, 4, 7), SyntheticUnit.span(d, 19, 23)}) {
+                for (int i = hours[0]; i < hours[1]; i++) {
+                    u.fan[i] = 1;
+                    u.cooling[i] = 0;
+                    u.heating[i] = 0;
+                    u.discharge[i] = u.zone[i] + 0.3;
+                }
+            }
+        }
+        UnitAnalysis.Result r = run(u.signals());
+        List<Finding> late = of(r, "running_outside_usual_hours");
+        assertEquals(1, late.size(), describe(r));
+        assertTrue(late.get(0).range().start() >= SyntheticUnit.span(10, 4, 5)[0], describe(r));
+        // The sample after the fan stops settles (a transition, counted as running): the finding ends one past it.
+        assertTrue(late.get(0).range().end() <= SyntheticUnit.span(12, 23, 24)[0] + 1, describe(r));
+        assertTrue(late.get(0).causes().stream().anyMatch(c -> c.contains("override left on")));
+    }
+
+    /**
+     * A unit that runs 02:00-03:00 every night (night cycling, its normal): the usually-off hours hold the same
+     * share of running every day, so no day is unusual.
+     */
+    @Test
+    void nightlyCyclingIsTheUnitsOwnNormal() {
+        SyntheticUnit u = SyntheticUnit.healthy(DAYS, true, 8);
+        for (int d = 0; d < DAYS; d++) {
+            int[] night = SyntheticUnit.span(d, 2, 3);
+            for (int i = night[0]; i < night[1]; i++) {
+                u.fan[i] = 1;
+                u.discharge[i] = u.zone[i] + 0.3 + 0.1 * Math.sin(i);
+            }
+        }
+        UnitAnalysis.Result r = run(u.signals());
+        assertEquals(List.of(), of(r, "running_outside_usual_hours"), describe(r));
+        UnitAnalysis.Result plain = run(SyntheticUnit.healthy(DAYS, true, 7).signals());
+        assertEquals(List.of(), of(plain, "running_outside_usual_hours"), "contrast: " + describe(plain));
+    }
+
+    /**
+     * Night running with the discharge held exactly 0.3 K above the zone (a held value, no sensor noise): the
+     * mode whose features hold one value is skipped with the reason, not failed.
+     */
+    @Test
+    void aModeWhoseFeaturesHoldOneValueIsSkippedWithTheReason() {
+        SyntheticUnit u = SyntheticUnit.healthy(DAYS, true, 8);
+        for (int d = 0; d < DAYS; d++) {
+            int[] night = SyntheticUnit.span(d, 2, 3);
+            for (int i = night[0]; i < night[1]; i++) {
+                u.fan[i] = 1;
+                u.discharge[i] = u.zone[i] + 0.3;
+            }
+        }
+        UnitAnalysis.Result r = run(u.signals());
+        ModeResult ventilation = mode(r, "ventilation");
+        assertFalse(ventilation.analyzed());
+        assertTrue(ventilation.reason().contains("holds one value"), ventilation.reason());
+    }
 }

@@ -64,6 +64,9 @@ class ReportTest {
         Matcher m = Pattern.compile("<script type=\"application/json\" id=\"([^\"]+)-data\">(.*?)</script>",
                 Pattern.DOTALL).matcher(html);
         while (m.find()) {
+            if (!html.contains("<div class=\"datatable\" id=\"" + m.group(1) + "\"")) {
+                continue; // the review controls' state (review-data) is data of another kind
+            }
             out.put(m.group(1), com.google.gson.JsonParser.parseString(m.group(2)).getAsJsonObject());
         }
         return out;

@@ -143,6 +143,27 @@ final class SyntheticFleet {
         return new Fleet(result, fleet, outcomes, signals, loads);
     }
 
+    /** The fleet's result with an analyst's verdicts applied to its decided findings ({@code ReviewStep}). */
+    static FleetAnalysis.Result reviewed(Fleet fleet, List<org.tufa.analysis.review.Verdict> verdicts) {
+        Map<String, List<org.tufa.analysis.findings.Finding>> decided = new LinkedHashMap<>();
+        for (UnitOutcome u : fleet.result().units()) {
+            if (u.status().equals(UnitOutcome.ANALYZED)) {
+                decided.put(u.unit(), u.findings());
+            }
+        }
+        org.tufa.analysis.review.ReviewStep.Result review = org.tufa.analysis.review.ReviewStep.apply(decided,
+                verdicts);
+        List<UnitOutcome> units = new ArrayList<>();
+        for (int i = 0; i < fleet.result().units().size(); i++) {
+            UnitOutcome u = fleet.result().units().get(i);
+            var r = review.unit(u.unit(), u.findings());
+            units.add(u.decided(r.findings(), 0, r.notes(), fleet.loads().get(i), r));
+        }
+        FleetAnalysis.Result before = fleet.result();
+        return new FleetAnalysis.Result(units, before.fleetFindings(), before.nulls(), before.tests(), 0,
+                before.ingest(), before.times(), review);
+    }
+
     private static final Profile PROFILE = new Profile("fcu-modes", "https://tufa.example.org/ns#FcuModes", "",
             Profile.FAN_COIL, List.of("https://brickschema.org/schema/Brick#FCU"), false, 0, List.of(), List.of(),
             List.of(), ROLES.stream().map(r -> new Role(r, "https://tufa.example.org/ns#" + r, ROLES.indexOf(r),
