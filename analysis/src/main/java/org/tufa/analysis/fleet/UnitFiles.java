@@ -73,6 +73,12 @@ public final class UnitFiles implements UnitSink {
             return;
         }
         UnitAnalysis.Result r = o.result();
+        SampleTable.removeStale(dir, "modes", format);
+        for (ModeResult m : r.modeResults()) {
+            for (String table : MODE_TABLES) {
+                SampleTable.removeStale(dir.resolve(m.mode()), table, m.analyzed() ? format : null);
+            }
+        }
         String[] times = times(r);
         long start = r.gridStart().getEpochSecond();
         long step = r.interval().getSeconds();
@@ -116,6 +122,9 @@ public final class UnitFiles implements UnitSink {
         }
         return g.text();
     }
+
+    /** The per-sample tables of an analysed mode, in its folder. */
+    static final List<String> MODE_TABLES = List.of("features", "scores", "reachability");
 
     private void writeMode(Path dir, ModeResult m, String[] times, long start, long step) {
         OutputFiles.ensureFolder(dir);

@@ -32,6 +32,27 @@ public interface SampleTable extends AutoCloseable {
     }
 
     /**
+     * Removes {@code dir/<name>.<extension>} in every format but {@code keep} (none when {@code keep} is null): a
+     * table left by an earlier run into the same folder, in the other format or of a mode no longer analysed, would
+     * otherwise be read back as this run's.
+     *
+     * @throws org.tufa.common.InputException when a file cannot be removed (naming it and why)
+     */
+    static void removeStale(Path dir, String name, SampleFormat keep) {
+        for (SampleFormat f : SampleFormat.values()) {
+            if (f != keep) {
+                Path file = dir.resolve(name + "." + f.extension());
+                try {
+                    java.nio.file.Files.deleteIfExists(file);
+                } catch (java.io.IOException e) {
+                    throw org.tufa.common.InputException.in(file, "cannot remove this table of an earlier run ("
+                            + OutputFiles.reason(e) + "); remove it, or give another output folder");
+                }
+            }
+        }
+    }
+
+    /**
      * A double as tufa's CSV files write it: a decimal that parses back to the same double (Double.toString);
      * inf, -inf and nan as numpy and pandas read them.
      */

@@ -205,4 +205,21 @@ class ParquetOutputsTest {
                     f.toString());
         }
     }
+
+    @Test
+    void aRunInTheOtherFormatLeavesNoTableOfTheEarlierRun(@TempDir Path dir) throws Exception {
+        // A Parquet run, then a CSV run into the same folder: the Parquet tables would otherwise be read back (by
+        // evaluate, which prefers them) as the second run's.
+        for (SampleFormat format : List.of(SampleFormat.PARQUET, SampleFormat.CSV)) {
+            FleetAnalysis.run(coverage, List.of(trendsFile), TimeOptions.defaults(ZONE), AnalysisSettings.defaults(),
+                    1, List.of(new UnitFiles(dir, ZONE, format)), (d, t) -> { });
+        }
+        List<String> names;
+        try (Stream<Path> s = Files.walk(dir.resolve("units"))) {
+            names = s.filter(Files::isRegularFile).map(p -> dir.relativize(p).toString()).sorted().toList();
+        }
+        assertTrue(names.stream().noneMatch(n -> n.endsWith(".parquet")), names.toString());
+        assertEquals(csvTables().stream().map(p -> csvRun.relativize(p).toString()).toList(),
+                names.stream().filter(n -> n.endsWith(".csv")).toList());
+    }
 }
