@@ -23,11 +23,9 @@ import org.tufa.analysis.fleet.AnalysisSettings;
 import org.tufa.analysis.fleet.FleetAnalysis;
 import org.tufa.analysis.fleet.FleetOutputs;
 import org.tufa.analysis.fleet.FleetReport;
-import org.tufa.analysis.fleet.UnitFiles;
 import org.tufa.analysis.modes.ModeThresholds;
 import org.tufa.analysis.fleet.UnitSink;
 import org.tufa.analysis.report.FleetPage;
-import org.tufa.analysis.report.UnitPages;
 import org.tufa.analysis.review.KnownUnits;
 import org.tufa.analysis.review.ReviewFile;
 import org.tufa.analysis.review.Verdict;
@@ -49,6 +47,19 @@ import picocli.CommandLine.Spec;
                 + "DIR/report/index.html (opens offline in any browser). Findings are "
                 + "candidates for review by qualified staff, never commands to equipment."})
 public final class AnalyzeCommand implements Callable<Integer> {
+
+    /** Phase 1 elsewhere (the Spark job), or null: in this JVM's worker threads. */
+    private final UnitEngine engine;
+
+    /** {@code tufa analyze}: every phase in this JVM. */
+    public AnalyzeCommand() {
+        this(null);
+    }
+
+    /** The same command with each unit's analysis run by {@code engine} (the spark module's job). */
+    public AnalyzeCommand(UnitEngine engine) {
+        this.engine = engine;
+    }
 
     @Spec
     picocli.CommandLine.Model.CommandSpec spec;
@@ -214,13 +225,12 @@ public final class AnalyzeCommand implements Callable<Integer> {
         List<Verdict> verdicts = review == null ? List.of() : ReviewFile.read(review, knownUnits(assessed));
         ProgressBar bar = new ProgressBar(stderr, "units");
         long start = System.nanoTime();
-        List<UnitSink> sinks = new ArrayList<>();
-        sinks.add(new UnitFiles(out, zone, sampleFormat));
-        if (!noReport) {
-            sinks.add(new UnitPages(out, zone)); // charts and unit pages render in the worker threads
-        }
+        UnitSinks unitSinks = new UnitSinks(out.toAbsolutePath().toString(), zone, sampleFormat, !noReport);
+        List<UnitSink> sinks = unitSinks.create();
+        FleetAnalysis.UnitAnalyser analyser = engine == null ? null
+                : engine.analyser(input.files(), input.database() != null, unitSinks);
         FleetAnalysis.Result result = FleetAnalysis.run(assessed.coverage(), input.opener(assessed.coverage()), time,
-                settings, verdicts, threads, sinks, bar::update);
+                settings, verdicts, threads, sinks, bar::update, analyser);
         CoverageFiles.write(assessed.coverage(), out);
         List<Path> inputs = new ArrayList<>();
         if (fleet.model != null) {
@@ -232,6 +242,9 @@ public final class AnalyzeCommand implements Callable<Integer> {
         }
         Map<String, Object> parameters = parameters(settings, time, zone);
         parameters.putAll(input.parameters());
+        if (engine != null) {
+            parameters.putAll(engine.parameters());
+        }
         if (fleet.store != null) {
             parameters.put("model_store", fleet.store.toString());
             parameters.put("model_graph", fleet.graph == null ? "" : fleet.graph);

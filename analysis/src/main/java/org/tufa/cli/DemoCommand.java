@@ -167,6 +167,24 @@ public final class DemoCommand implements Callable<Integer> {
             stdout.println("Reusing the trends already simulated in " + dir);
             return;
         }
+        String done = simulateDemo(model, season, dir, seed);
+        org.tufa.common.OutputFiles.writeString(stamp, id);
+        stdout.println(done);
+    }
+
+    /**
+     * The demo's trends for a mapped demo model: its units simulated over the season with the demo's seed and
+     * faults, written to {@code dir} as the demo writes them (wide trends.csv, truth.csv). Also for tests that need
+     * the demo's input without the rest of the demo (the spark module's).
+     *
+     * @return what was simulated and written, one line
+     */
+    public static String simulateDemo(Path model, Season season, Path dir) throws IOException {
+        return simulateDemo(model, season, dir, DemoSimulation.DEMO_SEED);
+    }
+
+    /** As {@link #simulateDemo(Path, Season, Path)} with another seed ({@code tufa demo --seed}). */
+    public static String simulateDemo(Path model, Season season, Path dir, long seed) throws IOException {
         FleetModelOptions.Assessed assessed = FleetModelOptions.assess(model, List.of(), List.of(), List.of());
         DemoTargets targets = DemoTargets.from(assessed.coverage());
         SimulationPlan plan = DemoSimulation.plan(targets.units(), targets.vavUnits(), targets.building(), season,
@@ -174,9 +192,9 @@ public final class DemoCommand implements Callable<Integer> {
         SimulationResult result = Simulator.run(plan);
         Files.createDirectories(dir);
         List<Path> written = DemoTrends.write(dir, result, DemoTrends.Layout.WIDE);
-        org.tufa.common.OutputFiles.writeString(stamp, id);
-        stdout.println("Simulated " + targets.units().size() + " fan coil units and " + targets.vavUnits().size()
-                + " VAV boxes with " + plan.faults().size() + " fault episodes; wrote " + String.join(", ", written.stream().map(Path::toString).toList()));
+        return "Simulated " + targets.units().size() + " fan coil units and " + targets.vavUnits().size()
+                + " VAV boxes with " + plan.faults().size() + " fault episodes; wrote "
+                + String.join(", ", written.stream().map(Path::toString).toList());
     }
 
     private int run(String... args) {

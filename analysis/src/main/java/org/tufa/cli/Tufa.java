@@ -40,7 +40,14 @@ public final class Tufa implements Runnable {
 
     /** The configured command line: our streams, and one-line errors instead of stack traces. */
     static CommandLine commandLine(PrintWriter out, PrintWriter err, boolean debug) {
-        CommandLine cli = new CommandLine(new Tufa());
+        return configured(new CommandLine(new Tufa()), out, err, debug);
+    }
+
+    /**
+     * A command line with tufa's streams and error handling: one-line errors and exit codes instead of stack
+     * traces. Also for commands run outside {@code tufa} (the spark module's job).
+     */
+    public static CommandLine configured(CommandLine cli, PrintWriter out, PrintWriter err, boolean debug) {
         cli.setOut(out);
         cli.setErr(err);
         // A wrong command line is one line too: what is wrong and where the help is, not the whole usage text.

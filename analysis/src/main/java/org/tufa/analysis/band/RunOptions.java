@@ -6,7 +6,7 @@ package org.tufa.analysis.band;
  * @param minOutsideSamples at least this many outside samples in the stretch (default 4 = 1 h at 15 min)
  * @param maxBridgedSamples gaps of at most this many in-band or missing samples are bridged (default 1)
  */
-public record RunOptions(int minOutsideSamples, int maxBridgedSamples) {
+public record RunOptions(int minOutsideSamples, int maxBridgedSamples) implements java.io.Serializable {
 
     public RunOptions {
         if (minOutsideSamples < 1 || maxBridgedSamples < 0) {

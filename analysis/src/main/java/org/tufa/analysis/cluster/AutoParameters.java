@@ -7,7 +7,8 @@ package org.tufa.analysis.cluster;
  * @param minClusterFraction smallest cluster as a fraction of the samples (the size used is at least MinPts and 2)
  * @param mergeCoverage a cluster whose sub-clusters cover at least this fraction of it is replaced by them
  */
-public record AutoParameters(double xi, double minClusterFraction, double mergeCoverage) {
+public record AutoParameters(double xi, double minClusterFraction, double mergeCoverage)
+        implements java.io.Serializable {
 
     /** xi = 0.05 (scikit-learn's default), 1 % minimum cluster size, 0.8 merge coverage. */
     public static final AutoParameters DEFAULT = new AutoParameters(0.05, 0.01, 0.8);

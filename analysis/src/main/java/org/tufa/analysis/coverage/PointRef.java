@@ -12,7 +12,7 @@ package org.tufa.analysis.coverage;
  *     the model does not say where the series is stored
  */
 public record PointRef(String iri, String label, String timeseriesId, String unitOfMeasureIri, String brickClass,
-                       String database) {
+                       String database) implements java.io.Serializable {
 
     /** A point whose model does not say where its series is stored. */
     public PointRef(String iri, String label, String timeseriesId, String unitOfMeasureIri, String brickClass) {

@@ -26,10 +26,10 @@ import smile.math.special.Erf;
  * decision out.
  *
  * <ol>
- *   <li><b>Null from the fleet.</b> The most unusual stretch (scan maximum) of every channel (mode, feature or
- *       rule, fault side) of every unit is pooled and a Gumbel null is fitted to the upper part of the pool
- *       ({@link GumbelNull#fitUpperTail}; after Efron, JASA 2004): how far a healthy unit of this fleet strays
- *       at its most unusual. A candidate's p-value is the null's tail probability of its own scan
+ *   <li><b>Null from the fleet.</b> Per channel (mode, feature or rule, fault side) the most unusual stretch
+ *       (scan maximum) of every unit is pooled and a Gumbel null is fitted to the centre of the pool (median and
+ *       interquartile range, never laxer than the theoretical null; {@link GumbelNull#fit}, after Efron's empirical
+ *       null, JASA 2004): how far a healthy unit of this fleet strays at its most unusual. A candidate's p-value is the null's tail probability of its own scan
  *       statistic.</li>
  *   <li><b>Fleet-wide effects.</b> A day on which more units are in an episode of the same channel than
  *       independent faults would explain (at least {@code minFleetUnits}, and a Poisson tail probability below

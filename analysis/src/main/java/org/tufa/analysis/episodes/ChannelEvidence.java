@@ -27,14 +27,14 @@ import org.tufa.analysis.findings.Finding;
  */
 public record ChannelEvidence(String mode, String channel, int direction, String unit, double center, double spread,
                               double level, double levelSpread, double gate, int informativeDays, double scanMax, Finding span,
-                              List<Candidate> candidates) {
+                              List<Candidate> candidates) implements java.io.Serializable {
 
     public ChannelEvidence {
         candidates = List.copyOf(candidates);
     }
 
     /** An episode and the finding it would become. */
-    public record Candidate(Episode episode, Finding finding) {
+    public record Candidate(Episode episode, Finding finding) implements java.io.Serializable {
     }
 
     /** The key under which channels of different units are pooled: mode, channel and fault side. */

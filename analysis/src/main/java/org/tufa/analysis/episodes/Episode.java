@@ -18,5 +18,5 @@ package org.tufa.analysis.episodes;
  * @param meanNormal mean normal level the fault days were compared with
  */
 public record Episode(int from, int to, int firstDay, int lastDay, int faultDays, double statistic, double meanShift,
-                      double meanZ, double meanValue, double meanNormal) {
+                      double meanZ, double meanValue, double meanNormal) implements java.io.Serializable {
 }

@@ -33,14 +33,14 @@ import org.tufa.common.InputException;
  * direction, up or down), {@code direction_check} (with direction {@code fails}) or {@code always}. The causes are
  * candidates to verify, never a diagnosis.
  */
-public record CauseTable(List<Pattern> patterns) {
+public record CauseTable(List<Pattern> patterns) implements java.io.Serializable {
 
     /** Classpath location of the table shipped with tufa. */
     public static final String DEFAULT_RESOURCE = "org/tufa/analysis/findings/candidate-causes.txt";
 
     /** One line of the table. */
     public record Pattern(String appliesTo, String evidence, String direction, double minShift, String cause,
-                          String source) {
+                          String source) implements java.io.Serializable {
     }
 
     public CauseTable {

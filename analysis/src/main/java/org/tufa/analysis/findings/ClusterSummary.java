@@ -15,7 +15,7 @@ import java.util.List;
  * @param causes         candidate causes (empty unless a candidate fault)
  */
 public record ClusterSummary(int label, int size, boolean candidateFault, List<Shift> shifts,
-                             DirectionCheck.Outcome direction, List<String> causes) {
+                             DirectionCheck.Outcome direction, List<String> causes) implements java.io.Serializable {
     public ClusterSummary {
         shifts = List.copyOf(shifts);
         causes = List.copyOf(causes);

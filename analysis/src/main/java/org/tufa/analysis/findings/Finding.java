@@ -27,7 +27,7 @@ import java.util.List;
  */
 public record Finding(String mode, String kind, int cluster, IndexRange range, Instant start, Instant end,
                       double hours, double energyKwh, List<Shift> shifts, List<String> causes, String evidence,
-                      double pValue, double confidence) {
+                      double pValue, double confidence) implements java.io.Serializable {
     public Finding {
         shifts = List.copyOf(shifts);
         causes = List.copyOf(causes);

@@ -48,7 +48,7 @@ public record AnalysisSettings(
         double minDayDeviation,
         int maxEpisodeWindowDays,
         int minEpisodeDays,
-        DecisionSettings decision) {
+        DecisionSettings decision) implements java.io.Serializable {
 
     /**
      * The fleet stage's parameters ({@code FleetDecision}).
@@ -62,7 +62,7 @@ public record AnalysisSettings(
      * @param minFleetUnits     fewest units a fleet-wide day needs
      */
     public record DecisionSettings(double minConfidence, double minPeerDeviation, int minPeers, double fleetWideP,
-                                   int minFleetUnits) {
+                                   int minFleetUnits) implements java.io.Serializable {
         public DecisionSettings {
             if (!(minConfidence >= 0 && minConfidence <= 1)) {
                 throw new IllegalArgumentException("minimum confidence must be in [0, 1], got " + minConfidence);

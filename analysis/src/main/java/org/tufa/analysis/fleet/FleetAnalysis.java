@@ -11,9 +11,7 @@ import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import java.util.concurrent.atomic.AtomicInteger;
-import org.tufa.analysis.coverage.CoverageSummary;
 import org.tufa.analysis.coverage.FleetCoverage;
-import org.tufa.analysis.coverage.UnitCoverage;
 import org.tufa.analysis.decision.FleetDecision;
 import org.tufa.analysis.episodes.ChannelEvidence;
 import org.tufa.analysis.features.UnitSignals;
@@ -23,9 +21,7 @@ import org.tufa.analysis.findings.Finding;
 import org.tufa.analysis.review.ReviewStep;
 import org.tufa.analysis.review.Verdict;
 import org.tufa.analysis.trends.IngestReport;
-import org.tufa.analysis.trends.PlausibleRange;
 import org.tufa.analysis.trends.ResampledSeries;
-import org.tufa.analysis.trends.SeriesKind;
 import org.tufa.analysis.trends.TimeOptions;
 import org.tufa.analysis.trends.TrendSource;
 import org.tufa.analysis.trends.TrendStore;
@@ -43,6 +39,10 @@ import org.tufa.analysis.trends.TrendStore;
  * </ol>
  * One unit's failure never stops the fleet: it becomes a {@code failed} row. Results are collected in unit order
  * and the decision is made on them in that order, so the outputs are the same bytes whatever the thread count.
+ *
+ * <p>Phase 1 is per unit and pure but for its sinks ({@link #analyse}); an engine may run it elsewhere
+ * ({@link UnitAnalyser}: the spark module's executors) and hand back each unit's {@link Kept}, and the decision
+ * and phase 3 then run here as always, so every engine writes the same files.
  */
 public final class FleetAnalysis {
 
@@ -89,64 +89,63 @@ public final class FleetAnalysis {
      */
     public static Result run(FleetCoverage coverage, TrendSource.Opener trends, TimeOptions timeOptions,
                              AnalysisSettings settings, int threads, List<UnitSink> sinks, Progress progress) {
-        return run(coverage, trends, timeOptions, settings, List.of(), threads, sinks, progress);
+        return run(coverage, trends, timeOptions, settings, List.of(), threads, sinks, progress, null);
     }
 
     /** @param verdicts the analyst's verdicts on an earlier run's findings (empty: no review) */
     public static Result run(FleetCoverage coverage, TrendSource.Opener trends, TimeOptions timeOptions,
                              AnalysisSettings settings, List<Verdict> verdicts, int threads, List<UnitSink> sinks,
                              Progress progress) {
+        return run(coverage, trends, timeOptions, settings, verdicts, threads, sinks, progress, null);
+    }
+
+    /**
+     * Analyses the units of a plan (phase 1) somewhere other than this JVM's worker threads: the Spark job's
+     * executors. Each unit's outcome is handed to sinks where it is analysed, as {@link UnitSink#analysed} says.
+     */
+    @FunctionalInterface
+    public interface UnitAnalyser {
+        /**
+         * @param plan        every unit of the run, in run order
+         * @param store       the trends as the run read them (the grid every unit must be resampled on)
+         * @param timeOptions how the run read them
+         * @param times       where to add the stage times measured
+         * @return one {@link Kept} per unit of the plan, in the plan's order
+         */
+        List<Kept> analyse(FleetPlan plan, TrendSource store, TimeOptions timeOptions, AnalysisSettings settings,
+                           StageTimes times, Progress progress);
+    }
+
+    /**
+     * Runs with phase 1 done by {@code analyser} (null: in this JVM's worker threads, like the other overloads);
+     * the fleet decision, the review and phase 3 run here, on the trends {@code trends} opens.
+     *
+     * @param verdicts the analyst's verdicts on an earlier run's findings (empty: no review)
+     */
+    public static Result run(FleetCoverage coverage, TrendSource.Opener trends, TimeOptions timeOptions,
+                             AnalysisSettings settings, List<Verdict> verdicts, int threads, List<UnitSink> sinks,
+                             Progress progress, UnitAnalyser analyser) {
         StageTimes times = new StageTimes();
-        List<UnitCoverage> units = new ArrayList<>(coverage.units());
-        units.sort(java.util.Comparator.comparing(UnitCoverage::unit));
+        FleetPlan plan = FleetPlan.of(coverage, settings);
         Map<String, UnitInputs> inputs = new LinkedHashMap<>();
-        Map<String, SeriesKind> wanted = new java.util.TreeMap<>();
-        Map<String, PlausibleRange> ranges = new java.util.TreeMap<>();
-        for (UnitCoverage u : units) {
-            UnitInputs in = UnitInputs.of(u, UnitKinds.of(u.unitKind()).orElse(null), settings.defaultAirflow());
-            inputs.put(u.unit(), in);
-            if (u.analyzable() && detects(u)) {
-                wanted.putAll(in.seriesKinds());
-                in.points().values().forEach(p -> PlausibleRange.forUnit(p.unitOfMeasureIri())
-                        .ifPresent(r -> ranges.putIfAbsent(p.timeseriesId(), r)));
-            }
+        for (FleetPlan.Unit u : plan.units()) {
+            inputs.put(u.unit(), u.inputs());
         }
         long t0 = System.nanoTime();
-        try (TrendSource store = trends.open(wanted, ranges, timeOptions)) {
+        try (TrendSource store = trends.open(plan.wanted(), plan.ranges(), timeOptions)) {
             times.add(StageTimes.Stage.READ, System.nanoTime() - t0);
-            FolderNames names = new FolderNames();
-            List<String> folders = new ArrayList<>();
-            for (UnitCoverage u : units) {
-                folders.add(names.next(u.unit()));
-            }
             ExecutorService pool = Executors.newFixedThreadPool(Math.max(1, threads), r -> {
                 Thread t = new Thread(r, "tufa-unit");
                 t.setDaemon(true);
                 return t;
             });
-            AtomicInteger done = new AtomicInteger();
             try {
-                List<Future<Kept>> futures = new ArrayList<>();
-                for (int k = 0; k < units.size(); k++) {
-                    UnitCoverage u = units.get(k);
-                    String folder = folders.get(k);
-                    futures.add(pool.submit(() -> {
-                        Analysed a = analyse(coverage, u, inputs.get(u.unit()), folder, store, settings, times);
-                        UnitOutcome o = a.outcome();
-                        long w = System.nanoTime();
-                        for (UnitSink sink : sinks) {
-                            sink.analysed(o, a.signals());
-                        }
-                        times.add(StageTimes.Stage.WRITE, System.nanoTime() - w);
-                        progress.unitDone(done.incrementAndGet(), units.size());
-                        List<ChannelEvidence> evidence = o.result() != null && o.status().equals(UnitOutcome.ANALYZED)
-                                ? o.result().evidence() : null;
-                        return new Kept(o.withoutDetail(), evidence);
-                    }));
-                }
-                List<Kept> kept = new ArrayList<>(units.size());
-                for (Future<Kept> f : futures) {
-                    kept.add(f.get());
+                List<Kept> kept = analyser != null ? analyser.analyse(plan, store, timeOptions, settings, times,
+                        progress)
+                        : analyseHere(pool, plan, store, settings, sinks, times, progress);
+                if (kept.size() != plan.units().size()) {
+                    throw new IllegalStateException("phase 1 returned " + kept.size() + " units of "
+                            + plan.units().size());
                 }
                 long t1 = System.nanoTime();
                 FleetDecision.Decision decision = decide(kept, inputs, settings);
@@ -156,12 +155,17 @@ public final class FleetAnalysis {
                 List<Future<UnitOutcome>> finals = new ArrayList<>();
                 for (Kept k : kept) {
                     UnitOutcome o = k.outcome();
+                    if (k.sinkState() != null) {
+                        for (int i = 0; i < sinks.size(); i++) {
+                            sinks.get(i).restore(o.folder(), k.sinkState().get(i));
+                        }
+                    }
                     ReviewStep.UnitReview reviewed = review.unit(o.unit(),
                             decision.findings().getOrDefault(o.unit(), List.of()));
                     finals.add(pool.submit(() -> complete(o, reviewed, min, inputs.get(o.unit()), store, sinks,
                             times)));
                 }
-                List<UnitOutcome> outcomes = new ArrayList<>(units.size());
+                List<UnitOutcome> outcomes = new ArrayList<>(kept.size());
                 for (Future<UnitOutcome> f : finals) {
                     outcomes.add(f.get());
                 }
@@ -173,19 +177,85 @@ public final class FleetAnalysis {
                 Thread.currentThread().interrupt();
                 throw new IllegalStateException("interrupted", e);
             } catch (ExecutionException e) {
-                // Only the file writer can fail here (analysis failures become rows); pass its error on.
-                if (e.getCause() instanceof RuntimeException re) {
-                    throw re;
-                }
-                throw new IllegalStateException(e.getCause());
+                throw rethrown(e);
             } finally {
                 pool.shutdownNow();
             }
         }
     }
 
-    /** What the fleet keeps of a unit between the phases. */
-    private record Kept(UnitOutcome outcome, List<ChannelEvidence> evidence) {
+    /** Phase 1 in this JVM: one task per unit on the pool, collected in plan order. */
+    private static List<Kept> analyseHere(ExecutorService pool, FleetPlan plan, TrendSource store,
+                                          AnalysisSettings settings, List<UnitSink> sinks, StageTimes times,
+                                          Progress progress) throws InterruptedException, ExecutionException {
+        AtomicInteger done = new AtomicInteger();
+        int total = plan.units().size();
+        List<Future<Kept>> futures = new ArrayList<>();
+        for (FleetPlan.Unit u : plan.units()) {
+            futures.add(pool.submit(() -> {
+                Kept k = analyse(u, store, settings, sinks, times);
+                progress.unitDone(done.incrementAndGet(), total);
+                return k;
+            }));
+        }
+        List<Kept> kept = new ArrayList<>(total);
+        for (Future<Kept> f : futures) {
+            kept.add(f.get());
+        }
+        return kept;
+    }
+
+    /**
+     * Phase 1 for one unit: its analysis (or its skipped row), handed to the sinks, and what the fleet keeps of it.
+     * Pure but for the sinks and the trend source; any engine calls this for every unit.
+     *
+     * @param store the trends, on the run's grid (not read for a skipped unit)
+     * @throws org.tufa.common.InputException when the trend source cannot be read
+     */
+    public static Kept analyse(FleetPlan.Unit u, TrendSource store, AnalysisSettings settings, List<UnitSink> sinks,
+                               StageTimes times) {
+        Analysed a = analyse(u, store, settings, times);
+        UnitOutcome o = a.outcome();
+        long w = System.nanoTime();
+        for (UnitSink sink : sinks) {
+            sink.analysed(o, a.signals());
+        }
+        times.add(StageTimes.Stage.WRITE, System.nanoTime() - w);
+        List<ChannelEvidence> evidence = o.result() != null && o.status().equals(UnitOutcome.ANALYZED)
+                ? o.result().evidence() : null;
+        return new Kept(o.withoutDetail(), evidence, null);
+    }
+
+    private static RuntimeException rethrown(ExecutionException e) {
+        // Only the file writer can fail here (analysis failures become rows); pass its error on.
+        if (e.getCause() instanceof RuntimeException re) {
+            return re;
+        }
+        return new IllegalStateException(e.getCause());
+    }
+
+    /**
+     * What the fleet keeps of a unit between the phases: its outcome without the detailed result, and its channels'
+     * evidence for the fleet decision (null unless analysed). Small and serializable.
+     */
+    public record Kept(UnitOutcome outcome, List<ChannelEvidence> evidence, List<java.io.Serializable> sinkState)
+            implements java.io.Serializable {
+        public Kept {
+            evidence = evidence == null ? null : List.copyOf(evidence);
+            sinkState = sinkState == null ? null : java.util.Collections.unmodifiableList(new ArrayList<>(sinkState));
+        }
+
+        /**
+         * The same with what each sink kept of the unit ({@link UnitSink#carry}), for an engine whose phase 2
+         * runs in another process with other instances of the sinks.
+         */
+        public Kept carried(List<UnitSink> sinks) {
+            List<java.io.Serializable> state = new ArrayList<>();
+            for (UnitSink s : sinks) {
+                state.add(s.carry(outcome.folder()));
+            }
+            return new Kept(outcome, evidence, state);
+        }
     }
 
     /**
@@ -236,11 +306,6 @@ public final class FleetAnalysis {
                 store.interval(), store.gridLength());
     }
 
-    /** Whether this version has a detection for the unit's kind ({@link UnitKinds}). */
-    private static boolean detects(UnitCoverage u) {
-        return UnitKinds.of(u.unitKind()).isPresent();
-    }
-
     /**
      * The fleet decision, for each kind of unit apart: a kind's channels and its units' normal levels mean
      * something only among units of that kind (a VAV box's zone error in cooling is not a fan coil unit's), and
@@ -273,16 +338,13 @@ public final class FleetAnalysis {
     private record Analysed(UnitOutcome outcome, UnitSignals signals) {
     }
 
-    private static Analysed analyse(FleetCoverage coverage, UnitCoverage u, UnitInputs in, String folder,
-                                    TrendSource store, AnalysisSettings settings, StageTimes times) {
-        if (!u.analyzable()) {
-            return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED,
-                    CoverageSummary.reason(coverage, u), List.of(), null), null);
-        }
-        if (!detects(u)) {
-            return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED,
-                    "no detection for units of kind " + u.unitKind() + " in this version (coverage: analysable with"
-                            + " profile " + u.profileName() + ")", List.of(), null), null);
+    private static Analysed analyse(FleetPlan.Unit plan, TrendSource store, AnalysisSettings settings,
+                                    StageTimes times) {
+        UnitInputs in = plan.inputs();
+        String folder = plan.folder();
+        if (!plan.analysed()) {
+            return new Analysed(new UnitOutcome(in.unit(), in.label(), folder, UnitOutcome.SKIPPED,
+                    plan.skipReason(), List.of(), null), null);
         }
         // Outside the try: a source that cannot be read (a database gone away, a value that is not a number) stops
         // the run with its one-line error instead of failing unit after unit.
@@ -294,7 +356,7 @@ public final class FleetAnalysis {
             UnitSignals s = p.signals();
             String unanalysable = in.kind().unanalysable(s);
             if (unanalysable != null) {
-                return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED,
+                return new Analysed(new UnitOutcome(in.unit(), in.label(), folder, UnitOutcome.SKIPPED,
                         unanalysable, p.notes(), null), null);
             }
             UnitAnalysis.Result r = UnitAnalysis.run(in.kind(), s, settings, times);
@@ -303,13 +365,13 @@ public final class FleetAnalysis {
             if (r.modeResults().stream().noneMatch(ModeResult::analyzed)) {
                 String why = String.join("; ", r.modeResults().stream().map(m -> m.mode() + ": " + m.reason())
                         .toList());
-                return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.SKIPPED,
+                return new Analysed(new UnitOutcome(in.unit(), in.label(), folder, UnitOutcome.SKIPPED,
                         "no mode could be clustered (" + why + ")", notes, r), s);
             }
-            return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.ANALYZED, "", notes, r), s);
+            return new Analysed(new UnitOutcome(in.unit(), in.label(), folder, UnitOutcome.ANALYZED, "", notes, r), s);
         } catch (RuntimeException e) {
             String msg = e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
-            return new Analysed(new UnitOutcome(u.unit(), u.label(), folder, UnitOutcome.FAILED,
+            return new Analysed(new UnitOutcome(in.unit(), in.label(), folder, UnitOutcome.FAILED,
                     msg.lines().findFirst().orElse(""), List.of(), null), null);
         }
     }

@@ -27,16 +27,16 @@ import org.tufa.analysis.findings.ClusterSummary;
 public record ModeSummary(String mode, boolean analyzed, String reason, int modeSamples, Band band,
                           int samplesClustered, List<String> features, List<String> featureUnits, Pca pca, int minPts,
                           List<ClusterSummary> clusters, int noise, double referenceShare, boolean dominantRegime,
-                          List<String> healthFeatures) {
+                          List<String> healthFeatures) implements java.io.Serializable {
 
     /** Load band figures. */
     public record Band(BandKind kind, double q1, double q3, double low, double high, int inBand, int outOfBand,
-                       int sustainedRuns) {
+                       int sustainedRuns) implements java.io.Serializable {
     }
 
     /** PCA figures. */
     public record Pca(int components, double[] explainedVarianceRatio, double explainedVariance,
-                      List<String> keptFeatures, double[][] loadings) {
+                      List<String> keptFeatures, double[][] loadings) implements java.io.Serializable {
     }
 
     public ModeSummary {

@@ -6,6 +6,7 @@ import java.util.Optional;
 import org.tufa.analysis.coverage.PointRef;
 import org.tufa.analysis.coverage.UnitCoverage;
 import org.tufa.analysis.kinds.UnitKind;
+import org.tufa.analysis.kinds.UnitKinds;
 import org.tufa.analysis.modes.FanSignal;
 import org.tufa.analysis.trends.SeriesKind;
 
@@ -13,10 +14,11 @@ import org.tufa.analysis.trends.SeriesKind;
  * What the analysis reads for one unit: its kind's detection, for each role the kind reads and the unit has, the
  * point (series id, unit of measure, class), how the fan signal is to be read, and the nominal airflow.
  *
- * @param kind the detection for the unit's kind, or null when this version has none for it
+ * @param unitKind the {@code tufa:unitKind} of the unit's profile (its detection: {@link #kind()})
  */
-public record UnitInputs(String unit, String label, UnitKind kind, Map<String, PointRef> points,
-                         FanSignal fanSignal, double nominalAirflow, boolean airflowFromModel) {
+public record UnitInputs(String unit, String label, String unitKind, Map<String, PointRef> points,
+                         FanSignal fanSignal, double nominalAirflow, boolean airflowFromModel)
+        implements java.io.Serializable {
 
     public UnitInputs {
         points = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(points));
@@ -31,8 +33,14 @@ public record UnitInputs(String unit, String label, UnitKind kind, Map<String, P
         Optional<PointRef> fan = Optional.ofNullable(points.get("fan_status"));
         FanSignal signal = fan.map(p -> isSpeed(p) ? FanSignal.SPEED : FanSignal.STATUS).orElse(FanSignal.NONE);
         double airflow = coverage.nominalAirflow().map(a -> a.cubicMetresPerSecond()).orElse(defaultAirflow);
-        return new UnitInputs(coverage.unit(), coverage.label(), kind, points, signal, airflow,
+        return new UnitInputs(coverage.unit(), coverage.label(), kind == null ? coverage.unitKind() : kind.name(),
+                points, signal, airflow,
                 coverage.nominalAirflow().isPresent());
+    }
+
+    /** The detection for the unit's kind ({@link UnitKinds}), or null when this version has none for it. */
+    public UnitKind kind() {
+        return UnitKinds.of(unitKind).orElse(null);
     }
 
     /** How each series of this unit is resampled: binary status as an on-fraction, everything else as a mean. */

@@ -23,7 +23,8 @@ import org.tufa.analysis.review.ReviewStep;
  */
 public record UnitOutcome(String unit, String label, String folder, String status, String reason, List<String> notes,
                           UnitAnalysis.Result result, UnitSummary summary, List<Finding> findings,
-                          int belowConfidence, Totals totals, ReviewStep.UnitReview review) {
+                          int belowConfidence, Totals totals, ReviewStep.UnitReview review)
+        implements java.io.Serializable {
 
     public static final String ANALYZED = "analyzed";
     public static final String SKIPPED = "skipped";
@@ -31,7 +32,7 @@ public record UnitOutcome(String unit, String label, String folder, String statu
 
     /** The figures of one fleet.csv row. */
     public record Totals(String modes, int samplesUsed, int clusters, int faultClusters, double faultHours,
-                         double faultEnergyKwh) {
+                         double faultEnergyKwh) implements java.io.Serializable {
 
         static final Totals NONE = new Totals("", 0, 0, 0, 0, 0);
 

@@ -25,4 +25,17 @@ public interface UnitSink {
      * @param loadKw  its sensible load per sample, with {@code signals}
      */
     void decided(UnitOutcome outcome, UnitSignals signals, double[] loadKw);
+
+    /**
+     * What this sink keeps of a unit from phase 1 for phase 2 (the charts it drew, say), taken out of it, so that
+     * another instance of the sink can write phase 2 ({@link #restore}): for an engine that runs the two phases in
+     * different processes (the Spark job). Null when the sink keeps nothing.
+     */
+    default java.io.Serializable carry(String folder) {
+        return null;
+    }
+
+    /** Takes back what {@link #carry} gave for a unit, before its phase 2. */
+    default void restore(String folder, java.io.Serializable kept) {
+    }
 }

@@ -17,7 +17,7 @@ import java.util.List;
  * @param modes       one summary per clustered mode, in the analysis' order
  */
 public record UnitSummary(Instant gridStart, Duration interval, int samples, List<String> modeLabels,
-                          int[] modeCounts, boolean fanInferred, List<ModeSummary> modes) {
+                          int[] modeCounts, boolean fanInferred, List<ModeSummary> modes) implements java.io.Serializable {
 
     public UnitSummary {
         modeLabels = List.copyOf(modeLabels);

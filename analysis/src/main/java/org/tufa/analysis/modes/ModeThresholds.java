@@ -11,7 +11,7 @@ package org.tufa.analysis.modes;
  *     notes section 4 suggests dropping 15-30 min)
  */
 public record ModeThresholds(double valveOpenPercent, double fanStatusOnFraction, double fanSpeedOnFraction,
-        int settlingSamples) {
+        int settlingSamples) implements java.io.Serializable {
 
     public ModeThresholds {
         if (settlingSamples < 0) {

@@ -14,7 +14,8 @@ import org.tufa.analysis.fleet.ModeResult;
 final class ModeCharts {
 
     /** File names (relative to the unit folder) and the biplot caption (HTML, escaped). */
-    record Drawn(String reachabilityFile, String biplotFile, String caption, int reachabilityColumnWidth) {
+    record Drawn(String reachabilityFile, String biplotFile, String caption, int reachabilityColumnWidth)
+            implements java.io.Serializable {
     }
 
     private ModeCharts() {

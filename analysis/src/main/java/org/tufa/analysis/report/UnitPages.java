@@ -102,6 +102,20 @@ public final class UnitPages implements UnitSink {
         OutputFiles.writeString(dir.resolve("index.html"), page(o, charts == null ? Map.of() : charts, dir));
     }
 
+    @Override
+    public java.io.Serializable carry(String folder) {
+        Map<String, ModeCharts.Drawn> charts = drawn.remove(folder);
+        return charts == null ? null : new java.util.TreeMap<>(charts);
+    }
+
+    @Override
+    @SuppressWarnings("unchecked")
+    public void restore(String folder, java.io.Serializable kept) {
+        if (kept != null) {
+            drawn.put(folder, (Map<String, ModeCharts.Drawn>) kept);
+        }
+    }
+
     private static String name(UnitOutcome o) {
         return o.label().isEmpty() ? o.unit() : o.label();
     }

@@ -28,7 +28,7 @@ import org.tufa.analysis.findings.Finding;
 public final class ReviewStep {
 
     /** A listed finding's review: its own verdict (null when none) and the other verdicts that overlap it. */
-    public record Mark(String findingId, Verdict own, List<Verdict> overlapping) {
+    public record Mark(String findingId, Verdict own, List<Verdict> overlapping) implements java.io.Serializable {
         public Mark {
             overlapping = List.copyOf(overlapping);
         }
@@ -40,7 +40,7 @@ public final class ReviewStep {
     }
 
     /** A finding not listed because its own verdict rejected it. */
-    public record Suppressed(String findingId, Finding finding, Verdict verdict) {
+    public record Suppressed(String findingId, Finding finding, Verdict verdict) implements java.io.Serializable {
     }
 
     /**
@@ -50,7 +50,8 @@ public final class ReviewStep {
      * @param marks      the review marks of those findings, by finding id
      * @param suppressed the findings the review took out
      */
-    public record UnitReview(List<Finding> findings, Map<String, Mark> marks, List<Suppressed> suppressed) {
+    public record UnitReview(List<Finding> findings, Map<String, Mark> marks, List<Suppressed> suppressed)
+            implements java.io.Serializable {
         public static final UnitReview NONE = new UnitReview(List.of(), Map.of(), List.of());
 
         public UnitReview {

@@ -21,7 +21,8 @@ import java.util.Locale;
  * @param date      when; null when the row gives none
  */
 public record Verdict(long line, String unit, String mode, String kind, Instant start, Instant end, String findingId,
-                      Decision decision, String cause, String note, String reviewer, LocalDate date) {
+                      Decision decision, String cause, String note, String reviewer, LocalDate date)
+        implements java.io.Serializable {
 
     /** What the analyst decided. */
     public enum Decision {

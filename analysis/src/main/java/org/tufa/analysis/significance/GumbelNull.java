@@ -67,38 +67,6 @@ public record GumbelNull(double location, double scale, int pool, boolean fitted
         return new GumbelNull(location, scale, finite.length, true);
     }
 
-    /** Fewest maxima {@link #fitUpperTail} needs: its 95th percentile must rest on a few points beyond it. */
-    public static final int MIN_TAIL_POOL = 40;
-
-    /**
-     * A null fitted to the upper part of the pool: the Gumbel law through its upper quartile and its 95th
-     * percentile, Q(0.95) - Q(0.75) = beta (ln(-ln 0.75) - ln(-ln 0.95)).
-     *
-     * <p>For the pool of every channel of every unit of a fleet. Most channels of most units never stray at all
-     * (a rule that never fails, a cluster share that stays 0), so the centre of that pool says nothing about how
-     * far healthy units stray when they do; its upper part does. Faults touch one or two channels of a minority of
-     * units, a few percent of the pool, so the 95th percentile is still set by healthy channels (Efron's
-     * assumption that the bulk of the tests is null, applied to the upper part of the pool). Never laxer than the
-     * theoretical null; below {@link #MIN_TAIL_POOL} maxima the theoretical null, widened, is used alone.
-     */
-    public static GumbelNull fitUpperTail(double[] maxima, int windows) {
-        double[] finite = Arrays.stream(maxima).filter(Double::isFinite).sorted().toArray();
-        double n = Math.max(3, windows);
-        double a = Math.sqrt(2 * Math.log(n));
-        double theoryLocation = a - (Math.log(Math.log(n)) + Math.log(4 * Math.PI)) / (2 * a);
-        double theoryScale = 1 / a;
-        if (finite.length < MIN_TAIL_POOL) {
-            return new GumbelNull(theoryLocation, SMALL_POOL_WIDENING * theoryScale, finite.length, false);
-        }
-        double q75 = Quantiles.linearOfSorted(finite, 0.75);
-        double q95 = Quantiles.linearOfSorted(finite, 0.95);
-        double l75 = Math.log(-Math.log(0.75));
-        double l95 = Math.log(-Math.log(0.95));
-        double scale = Math.max((q95 - q75) / (l75 - l95), theoryScale);
-        double location = Math.max(q75 + scale * l75, theoryLocation);
-        return new GumbelNull(location, scale, finite.length, true);
-    }
-
     /** P(maximum >= x) under this null. */
     public double survival(double x) {
         if (Double.isNaN(x)) {

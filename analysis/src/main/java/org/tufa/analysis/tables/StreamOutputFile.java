@@ -1,6 +1,5 @@
 package org.tufa.analysis.tables;
 
-import java.io.IOException;
 import java.io.OutputStream;
 import org.apache.parquet.io.OutputFile;
 import org.apache.parquet.io.PositionOutputStream;
@@ -8,6 +7,12 @@ import org.apache.parquet.io.PositionOutputStream;
 /**
  * A Parquet output over a stream someone else owns: the temporary file {@link org.tufa.common.OutputFiles} renames
  * into place once the footer is written. Closing the Parquet writer flushes the stream and leaves it open.
+ *
+ * <p>parquet-java lists each column chunk's encodings in the footer in the order of a {@code HashSet} of enum
+ * constants, whose iteration order follows identity hash codes and so changes from one JVM run to the next: the
+ * same table would get other bytes on every run. The stream therefore holds back the end of the file and, once the
+ * writer closes it, writes the footer again with every encoding list in ascending order of its Thrift value
+ * ({@link FooterOrderingStream}); the data pages are passed on as they come.
  */
 final class StreamOutputFile implements OutputFile {
 
@@ -25,36 +30,7 @@ final class StreamOutputFile implements OutputFile {
 
     @Override
     public PositionOutputStream create(long blockSizeHint) {
-        return new PositionOutputStream() {
-            private long position;
-
-            @Override
-            public long getPos() {
-                return position;
-            }
-
-            @Override
-            public void write(int b) throws IOException {
-                out.write(b);
-                position++;
-            }
-
-            @Override
-            public void write(byte[] b, int off, int len) throws IOException {
-                out.write(b, off, len);
-                position += len;
-            }
-
-            @Override
-            public void flush() throws IOException {
-                out.flush();
-            }
-
-            @Override
-            public void close() throws IOException {
-                out.flush();
-            }
-        };
+        return new FooterOrderingStream(out);
     }
 
     @Override

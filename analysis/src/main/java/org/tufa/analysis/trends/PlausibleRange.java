@@ -13,7 +13,7 @@ import org.tufa.analysis.units.MeasureUnit;
  * way, so a slightly over-ranged actuator reading is kept (common practice, no source). Units tufa does not convert
  * get no range; every series is still checked for non-finite values.
  */
-public record PlausibleRange(double min, double max) {
+public record PlausibleRange(double min, double max) implements java.io.Serializable {
 
     public PlausibleRange {
         if (!(min < max)) {

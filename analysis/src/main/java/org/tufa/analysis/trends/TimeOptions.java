@@ -17,7 +17,8 @@ import java.util.Objects;
  * @param strict when true, the first unparsable value, time stamp or malformed row is an input error; when false
  *     they are counted, with examples, in the ingest report
  */
-public record TimeOptions(ZoneId zone, Duration interval, Duration maxGap, Instant from, Instant to, boolean strict) {
+public record TimeOptions(ZoneId zone, Duration interval, Duration maxGap, Instant from, Instant to, boolean strict)
+        implements java.io.Serializable {
 
     public static final Duration DEFAULT_INTERVAL = Duration.ofMinutes(15);
     public static final Duration DEFAULT_MAX_GAP = Duration.ofHours(1);

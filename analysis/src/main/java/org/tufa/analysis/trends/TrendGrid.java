@@ -10,7 +10,7 @@ import org.tufa.common.InputException;
  * @param interval cell length in seconds
  * @param cells number of cells
  */
-public record TrendGrid(long start, long interval, int cells) {
+public record TrendGrid(long start, long interval, int cells) implements java.io.Serializable {
 
     /**
      * @param options window and interval

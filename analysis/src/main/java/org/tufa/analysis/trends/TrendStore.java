@@ -85,6 +85,18 @@ public final class TrendStore implements TrendSource {
      */
     public static TrendStore ingest(List<Path> inputs, Map<String, SeriesKind> wanted,
             Map<String, PlausibleRange> ranges, TimeOptions options, Path tempDirectory) {
+        return ingest(inputs, wanted, ranges, options, null, tempDirectory);
+    }
+
+    /**
+     * Reads every input once and keeps some of a run's series, resampled on the grid that run chose from all of
+     * its series ({@link #grid}): how an engine that reads each part of a fleet in another process (the Spark
+     * job's executors) gets, for every series, the same samples as one store over the whole fleet would give.
+     *
+     * @param grid the run's grid, or null to choose it from these series (as every other ingest does)
+     */
+    public static TrendStore ingest(List<Path> inputs, Map<String, SeriesKind> wanted,
+            Map<String, PlausibleRange> ranges, TimeOptions options, TrendGrid grid, Path tempDirectory) {
         Objects.requireNonNull(options, "options");
         List<Path> files = expand(inputs);
         TreeMap<String, SeriesKind> sorted = new TreeMap<>(wanted);
@@ -157,10 +169,13 @@ public final class TrendStore implements TrendSource {
             }
             IngestReport report = new IngestReport(fileReports, new ArrayList<>(reader.unknownSeries()), spans,
                     neverSeen, laterDuplicates, laterConflicts);
-            TrendGrid grid = TrendGrid.of(options, minTime, maxTime);
-            checkGridDensity(grid.cells(), spans, options.interval());
-            return new TrendStore(spill, index, kinds, report, grid.start(), grid.interval(),
-                    options.maxGap().getSeconds(), grid.cells());
+            TrendGrid onGrid = grid;
+            if (onGrid == null) {
+                onGrid = TrendGrid.of(options, minTime, maxTime);
+                checkGridDensity(onGrid.cells(), spans, options.interval());
+            }
+            return new TrendStore(spill, index, kinds, report, onGrid.start(), onGrid.interval(),
+                    options.maxGap().getSeconds(), onGrid.cells());
         } catch (RuntimeException e) {
             spill.close();
             throw e;
@@ -237,6 +252,11 @@ public final class TrendStore implements TrendSource {
             }
         }
         return out;
+    }
+
+    /** The grid every series of this store is resampled on. */
+    public TrendGrid grid() {
+        return new TrendGrid(gridStart, interval, gridLength);
     }
 
     /** Start of grid cell 0, the same for every series. */

@@ -25,7 +25,7 @@ class SignalPreparationTest {
     static final String QUDT = "http://qudt.org/vocab/unit/";
 
     private static SignalPreparation.Prepared prepare(Map<String, PointRef> points, Map<String, double[]> data) {
-        UnitInputs in = new UnitInputs("urn:x:vav-1", "VAV-1", VavKind.INSTANCE, points, FanSignal.NONE, 0.3, false);
+        UnitInputs in = new UnitInputs("urn:x:vav-1", "VAV-1", VavKind.INSTANCE.name(), points, FanSignal.NONE, 0.3, false);
         return SignalPreparation.prepare(in, id -> Optional.ofNullable(data.get(id)).map(v -> new ResampledSeries(id,
                 SeriesKind.ANALOG, START, STEP, v, v.length, v.length, 0)), START, STEP, 2);
     }
