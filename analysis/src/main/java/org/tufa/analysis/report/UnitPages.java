@@ -160,15 +160,15 @@ public final class UnitPages implements UnitSink {
             int factor = stripFactor(r.interval(), r.samples());
             b.append("<h2>Signals over the period</h2>\n<figure><img src=\"strips.png\" width=\"").append(STRIP_WIDTH)
                     .append("\" height=\"").append(STRIP_HEIGHT).append("\" alt=\"Time series of ")
-                    .append(Html.esc(name)).append(": temperatures, valve commands, fan and load, with findings "
-                            + "shaded\">\n<figcaption>Means over blocks of ")
+                    .append(Html.esc(name)).append(": temperatures, commands, airflow or fan, and load, with "
+                            + "findings shaded\">\n<figcaption>Means over blocks of ")
                     .append(describe(r.interval().multipliedBy(factor)))
                     .append(" (display only; the analysis uses every sample), plotted at each block's start. "
                             + "Shaded: findings (numbered F1, F2, ... as in the findings table below when there are "
                             + "at most eight; vermillion = fault cluster, yellow = differs from its peers, "
-                            + "reddish purple = a rule's finding). Fan: share of the time running, in %. Load: "
-                            + "sensible load estimated from airflow and the zone-to-discharge temperature "
-                            + "difference.</figcaption></figure>\n");
+                            + "reddish purple = a rule's finding). Fan (fan coil units): share of the time running, in %. "
+                            + "Load: sensible load estimated from airflow (measured on VAV boxes, nominal on fan coil "
+                            + "units) and the zone-to-discharge temperature difference.</figcaption></figure>\n");
         }
         findings(b, o);
         for (ModeSummary m : r.modes()) {
