@@ -18,26 +18,41 @@ public final class RollingMedian {
      * @return the median of the valid values in each window, NaN where fewer than {@code halfWindow + 1} are valid
      */
     public static double[] of(double[] values, int halfWindow) {
+        // The window's valid values are kept sorted as it slides: one value leaves and one comes in per sample,
+        // each placed by binary search, instead of sorting the whole window again at every sample. The sorted
+        // window is the same array Arrays.sort would give (both order by Double.compare), so the medians are the
+        // same to the bit.
         int n = values.length;
         double[] out = new double[n];
-        double[] window = new double[2 * halfWindow + 1];
+        double[] sorted = new double[2 * halfWindow + 1];
+        int k = 0;
+        int lo = 0;
+        int hi = -1;
         for (int i = 0; i < n; i++) {
-            if (Double.isNaN(values[i])) {
-                out[i] = Double.NaN;
-                continue;
-            }
-            int k = 0;
-            for (int j = Math.max(0, i - halfWindow); j <= Math.min(n - 1, i + halfWindow); j++) {
-                if (!Double.isNaN(values[j])) {
-                    window[k++] = values[j];
+            int newLo = Math.max(0, i - halfWindow);
+            int newHi = Math.min(n - 1, i + halfWindow);
+            for (; lo < newLo; lo++) {
+                if (!Double.isNaN(values[lo])) {
+                    int at = Arrays.binarySearch(sorted, 0, k, values[lo]);
+                    System.arraycopy(sorted, at + 1, sorted, at, k - at - 1);
+                    k--;
                 }
             }
-            if (k < halfWindow + 1) {
+            while (hi < newHi) {
+                hi++;
+                if (!Double.isNaN(values[hi])) {
+                    int at = Arrays.binarySearch(sorted, 0, k, values[hi]);
+                    int insert = at >= 0 ? at : -at - 1;
+                    System.arraycopy(sorted, insert, sorted, insert + 1, k - insert);
+                    sorted[insert] = values[hi];
+                    k++;
+                }
+            }
+            if (Double.isNaN(values[i]) || k < halfWindow + 1) {
                 out[i] = Double.NaN;
                 continue;
             }
-            Arrays.sort(window, 0, k);
-            out[i] = k % 2 == 1 ? window[k / 2] : 0.5 * (window[k / 2 - 1] + window[k / 2]);
+            out[i] = k % 2 == 1 ? sorted[k / 2] : 0.5 * (sorted[k / 2 - 1] + sorted[k / 2]);
         }
         return out;
     }

@@ -54,4 +54,41 @@ class RollingMedianTest {
         assertArrayEquals(new double[] {NAN, NAN, NAN, NAN, 5, 5}, RollingMedian.of(in, 1), 0.0);
         assertArrayEquals(new double[] {NAN, NAN, NAN}, RollingMedian.of(new double[] {NAN, NAN, NAN}, 1), 0.0);
     }
+
+    /** The plain definition: sort the window's valid values at every sample. */
+    private static double[] bySorting(double[] values, int halfWindow) {
+        int n = values.length;
+        double[] out = new double[n];
+        for (int i = 0; i < n; i++) {
+            double[] window = java.util.stream.IntStream.rangeClosed(Math.max(0, i - halfWindow),
+                    Math.min(n - 1, i + halfWindow)).mapToDouble(j -> values[j]).filter(v -> !Double.isNaN(v))
+                    .sorted().toArray();
+            int k = window.length;
+            out[i] = Double.isNaN(values[i]) || k < halfWindow + 1 ? Double.NaN
+                    : k % 2 == 1 ? window[k / 2] : 0.5 * (window[k / 2 - 1] + window[k / 2]);
+        }
+        return out;
+    }
+
+    @Test
+    void slidingWindowGivesTheMediansOfTheDefinitionToTheBit() {
+        // Random series with gaps, ties (values on a 0.1 grid, as trend logs round them), signed zeros and long
+        // runs of NaN, against the plain definition above.
+        java.util.SplittableRandom random = new java.util.SplittableRandom(20311);
+        for (int trial = 0; trial < 200; trial++) {
+            int n = 1 + random.nextInt(300);
+            double[] in = new double[n];
+            for (int i = 0; i < n; i++) {
+                double u = random.nextDouble();
+                in[i] = u < 0.15 ? NAN : u < 0.2 ? (random.nextBoolean() ? 0.0 : -0.0)
+                        : Math.round(random.nextGaussian() * 30) / 10.0;
+            }
+            if (trial % 10 == 0) {
+                java.util.Arrays.fill(in, n / 3, Math.min(n, n / 3 + 40), NAN);
+            }
+            int halfWindow = random.nextInt(15);
+            assertArrayEquals(bySorting(in, halfWindow), RollingMedian.of(in, halfWindow), 0.0,
+                    "trial " + trial + ", half window " + halfWindow);
+        }
+    }
 }
