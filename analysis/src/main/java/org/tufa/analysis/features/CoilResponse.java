@@ -271,9 +271,6 @@ public record CoilResponse(double[] coefficients, boolean usesWaterTemperature) 
     }
 
     private static double median(double[] v) {
-        double[] s = v.clone();
-        Arrays.sort(s);
-        int n = s.length;
-        return n % 2 == 1 ? s[n / 2] : 0.5 * (s[n / 2 - 1] + s[n / 2]);
+        return org.tufa.analysis.band.Quantiles.medianInPlace(v.clone(), v.length);
     }
 }

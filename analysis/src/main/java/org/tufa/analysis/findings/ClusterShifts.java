@@ -1,7 +1,6 @@
 package org.tufa.analysis.findings;
 
 import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.List;
 import org.tufa.analysis.features.FeatureMatrix;
 
@@ -43,11 +42,7 @@ public final class ClusterShifts {
     }
 
     private static double median(double[] v, int n) {
-        if (n == 0) {
-            return Double.NaN;
-        }
-        Arrays.sort(v, 0, n);
-        return n % 2 == 1 ? v[n / 2] : 0.5 * (v[n / 2 - 1] + v[n / 2]);
+        return org.tufa.analysis.band.Quantiles.medianInPlace(v, n);
     }
 
     static double median(double[][] rows, int[] labels, int label, int column) {
