@@ -31,10 +31,28 @@ final class FanCoilSimulation {
     static final double OCCUPIED_HEATING_C = 21.0;
     static final double OCCUPIED_COOLING_C = 24.0;
     static final double UNOCCUPIED_OVERSHOOT_K = 1.5;
+    /** Per-minute first-order lags of the sensors (time constants 3 min, 1 min with airflow, 10 min without). */
+    static final double ZONE_SENSOR_ALPHA = 1 - Math.exp(-1.0 / 3.0);
+    static final double DISCHARGE_ALPHA_FLOW = 1 - Math.exp(-1.0);
+    static final double DISCHARGE_ALPHA_STILL = 1 - Math.exp(-1.0 / 10.0);
     private static final double DT = 60.0;
     private static final int TABLE_STEPS = 400;
 
     private FanCoilSimulation() {
+    }
+
+    /** Whether minute m falls in the occupied hours of a workday (the schedule fan coil units and VAV boxes share). */
+    static boolean occupied(SiteConditions site, int m, int startMinute, int endMinute) {
+        int minuteOfDay = site.localMinuteOfDay()[m];
+        return site.workday()[m] && minuteOfDay >= startMinute && minuteOfDay < endMinute;
+    }
+
+    static double heatingSetpoint(boolean occupied, double shiftK) {
+        return occupied ? OCCUPIED_HEATING_C + shiftK : UNOCCUPIED_HEATING_C;
+    }
+
+    static double coolingSetpoint(boolean occupied, double shiftK) {
+        return occupied ? OCCUPIED_COOLING_C + shiftK : UNOCCUPIED_COOLING_C;
     }
 
     static UnitTrace run(String unitIri, UnitParameters p, SiteConditions site, Optional<FaultEpisode> fault,
@@ -100,9 +118,6 @@ final class FanCoilSimulation {
         double[] outdoor = site.weather().outdoorC();
         double[] chw = site.chilledWaterSupplyC();
         double[] hw = site.hotWaterSupplyC();
-        double zoneSensorAlpha = 1 - Math.exp(-1.0 / 3.0);
-        double datAlphaFlow = 1 - Math.exp(-1.0);
-        double datAlphaStill = 1 - Math.exp(-1.0 / 10.0);
 
         TwoNodeZone zoneModel = new TwoNodeZone(24.0);
         double tAir = zoneModel.air();
@@ -120,12 +135,11 @@ final class FanCoilSimulation {
         for (int m = 0; m < minutes; m++) {
             boolean faulty = m >= faultFrom && m < faultTo;
             int minuteOfDay = site.localMinuteOfDay()[m];
-            boolean occupied = site.workday()[m] && minuteOfDay >= p.occupiedStartMinute()
-                    && minuteOfDay < p.occupiedEndMinute();
-            double heatSp = occupied ? OCCUPIED_HEATING_C + p.setpointShiftK() : UNOCCUPIED_HEATING_C;
-            double coolSp = occupied ? OCCUPIED_COOLING_C + p.setpointShiftK() : UNOCCUPIED_COOLING_C;
+            boolean occupied = occupied(site, m, p.occupiedStartMinute(), p.occupiedEndMinute());
+            double heatSp = heatingSetpoint(occupied, p.setpointShiftK());
+            double coolSp = coolingSetpoint(occupied, p.setpointShiftK());
 
-            zoneSensor += (tAir - zoneSensor) * zoneSensorAlpha;
+            zoneSensor += (tAir - zoneSensor) * ZONE_SENSOR_ALPHA;
 
             // Fan: continuous when occupied. Unoccupied, it starts when the zone leaves the setback band; the
             // loops then aim 1.5 K inside the band and the fan stops once the zone is 1 K inside it.
@@ -223,7 +237,7 @@ final class FanCoilSimulation {
                     + 0.05 * (heatWaterFlows ? hw[m] - tAir : 0);
             double seen = airFraction >= 0.3 ? 1.0 : (airFraction / 0.3) * (airFraction / 0.3);
             double datTarget = seen * leaving + (1 - seen) * stillTarget;
-            datSensor += (datTarget - datSensor) * (airFraction >= 0.3 ? datAlphaFlow : datAlphaStill);
+            datSensor += (datTarget - datSensor) * (airFraction >= 0.3 ? DISCHARGE_ALPHA_FLOW : DISCHARGE_ALPHA_STILL);
 
             // Zone heat balance.
             double internalW = TwoNodeZone.internalGainsW(occupied, peakInternalW, minuteOfDay,

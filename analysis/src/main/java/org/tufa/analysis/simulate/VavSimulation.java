@@ -109,9 +109,6 @@ final class VavSimulation {
         double[] facade = site.weather().facadeIrradiance()[p.orientation()];
         double[] outdoor = site.weather().outdoorC();
         double[] hw = site.hotWaterSupplyC();
-        double zoneSensorAlpha = 1 - Math.exp(-1.0 / 3.0);
-        double datAlphaFlow = 1 - Math.exp(-1.0);
-        double datAlphaStill = 1 - Math.exp(-1.0 / 10.0);
 
         TwoNodeZone zoneModel = new TwoNodeZone(24.0);
         double tAir = zoneModel.air();
@@ -127,14 +124,11 @@ final class VavSimulation {
         for (int m = 0; m < minutes; m++) {
             boolean faulty = m >= faultFrom && m < faultTo;
             int minuteOfDay = site.localMinuteOfDay()[m];
-            boolean occupied = site.workday()[m] && minuteOfDay >= p.occupiedStartMinute()
-                    && minuteOfDay < p.occupiedEndMinute();
-            double heatSp = occupied ? FanCoilSimulation.OCCUPIED_HEATING_C + p.setpointShiftK()
-                    : FanCoilSimulation.UNOCCUPIED_HEATING_C;
-            double coolSp = occupied ? FanCoilSimulation.OCCUPIED_COOLING_C + p.setpointShiftK()
-                    : FanCoilSimulation.UNOCCUPIED_COOLING_C;
+            boolean occupied = FanCoilSimulation.occupied(site, m, p.occupiedStartMinute(), p.occupiedEndMinute());
+            double heatSp = FanCoilSimulation.heatingSetpoint(occupied, p.setpointShiftK());
+            double coolSp = FanCoilSimulation.coolingSetpoint(occupied, p.setpointShiftK());
 
-            zoneSensor += (tAir - zoneSensor) * zoneSensorAlpha;
+            zoneSensor += (tAir - zoneSensor) * FanCoilSimulation.ZONE_SENSOR_ALPHA;
 
             // On when occupied; unoccupied, on once the zone leaves the setback band (cooling-only boxes answer
             // only the cooling side), aiming 1.5 K inside it, off 1 K inside it.
@@ -234,7 +228,7 @@ final class VavSimulation {
             }
             boolean airflowSeen = flow > 0.05 * p.maxAirflowLps();
             double datTarget = airflowSeen ? leaving : tAir;
-            datSensor += (datTarget - datSensor) * (airflowSeen ? datAlphaFlow : datAlphaStill);
+            datSensor += (datTarget - datSensor) * (airflowSeen ? FanCoilSimulation.DISCHARGE_ALPHA_FLOW : FanCoilSimulation.DISCHARGE_ALPHA_STILL);
 
             // Zone heat balance: the supply air brings rho cp V (T_discharge - T_zone).
             double internalW = TwoNodeZone.internalGainsW(occupied, peakInternalW, minuteOfDay,
