@@ -61,6 +61,52 @@ public record FeatureMatrix(List<String> names, List<String> units, boolean[] he
         return java.util.stream.IntStream.range(0, health.length).filter(j -> health[j]).mapToObj(names::get).toList();
     }
 
+    /** The rows whose grid sample is flagged in {@code gridMask}, in order. */
+    public FeatureMatrix onlySamples(boolean[] gridMask) {
+        int m = 0;
+        for (int i : sampleIndex) {
+            m += gridMask[i] ? 1 : 0;
+        }
+        double[][] kept = new double[m][];
+        int[] index = new int[m];
+        int k = 0;
+        for (int r = 0; r < rows.length; r++) {
+            if (gridMask[sampleIndex[r]]) {
+                kept[k] = rows[r];
+                index[k++] = sampleIndex[r];
+            }
+        }
+        return new FeatureMatrix(names, units, health, kept, index);
+    }
+
+    /**
+     * This matrix's rows and {@code other}'s (same columns) in one, ordered by grid sample; {@code fromOther[r]}
+     * of the result says where row r came from.
+     */
+    public Merged mergedWith(FeatureMatrix other) {
+        if (!other.names.equals(names)) {
+            throw new IllegalArgumentException("different columns: " + names + " and " + other.names);
+        }
+        int n = rows.length + other.rows.length;
+        double[][] merged = new double[n][];
+        int[] index = new int[n];
+        boolean[] fromOther = new boolean[n];
+        int a = 0;
+        int b = 0;
+        for (int r = 0; r < n; r++) {
+            boolean takeOther = a == rows.length
+                    || (b < other.rows.length && other.sampleIndex[b] < sampleIndex[a]);
+            merged[r] = takeOther ? other.rows[b] : rows[a];
+            index[r] = takeOther ? other.sampleIndex[b++] : sampleIndex[a++];
+            fromOther[r] = takeOther;
+        }
+        return new Merged(new FeatureMatrix(names, units, health, merged, index), fromOther);
+    }
+
+    /** Two matrices' rows in one, and which came from the second. */
+    public record Merged(FeatureMatrix matrix, boolean[] fromOther) {
+    }
+
     /** Index of a feature by name, or -1. */
     public int indexOf(String name) {
         return names.indexOf(name);

@@ -256,6 +256,7 @@ public final class UnitAnalysis {
         boolean[] inMode = kind.clusteredSamples(name, modes, s);
         LoadBand band = null;
         boolean[] keep = inMode;
+        boolean[] withLoad = null;
         if (kind.bandApplies(name)) {
             double[] modeLoad = ModeSplit.only(modeMask, cx.load());
             band = LoadBand.fit(modeLoad, settings.band(), settings.bandRuns());
@@ -271,6 +272,16 @@ public final class UnitAnalysis {
                     below[i] = modeLoad[i] < band.low();
                 }
             }
+            // The samples that outside() judges by their features: in the band (what the models learn from) and
+            // beyond it on the side of more heat moved (above a cooling band, below a heating one). Samples on the
+            // side of less heat moved are mostly transients (a coil still cold after the valve opened, water not
+            // yet arrived) where a steady-state coil curve does not hold; a coil that moves no heat at all is the
+            // energy-balance rules' to judge.
+            withLoad = new boolean[modeLoad.length];
+            for (int i = 0; i < modeLoad.length; i++) {
+                boolean moreHeat = band.q1() + band.q3() >= 0 ? modeLoad[i] > band.high() : modeLoad[i] < band.low();
+                withLoad[i] = eligible[i] && (keep[i] || moreHeat);
+            }
             // Samples outside the band are not clustered (the published method), but days spent mostly outside it
             // are evidence of their own: a failed fan pushes every sample of the day above the band.
             if (settings.band() != org.tufa.analysis.band.BandKind.NONE) {
@@ -281,6 +292,15 @@ public final class UnitAnalysis {
         }
         long t0 = System.nanoTime();
         FeatureMatrix features = kind.features(name, s, indices(keep, inMode), modes);
+        FeatureMatrix outside = null;
+        if (withLoad != null) {
+            int[] all = indices(withLoad);
+            boolean[] inBand = new boolean[all.length];
+            for (int k = 0; k < all.length; k++) {
+                inBand[k] = keep[all[k]];
+            }
+            outside = kind.featuresOutsideBand(name, s, all, inBand, modes);
+        }
         long t1 = System.nanoTime();
         times.add(StageTimes.Stage.FEATURES, t1 - t0);
         if (features.size() < Math.max(settings.minModeSamples() / 2, settings.minPts() + 1)) {
@@ -313,7 +333,7 @@ public final class UnitAnalysis {
                 normal.referenceCount(), reference, cx);
         double referenceShare = referenceSamples(reference) / (double) labels.length;
         boolean dominant = normalDayShare(reference, labels, features.sampleIndex(), cx) >= MIN_REFERENCE_SHARE;
-        evidence.addAll(clusterEvidence(name, features, labels, summaries, reference, dominant, cx));
+        evidence.addAll(clusterEvidence(name, features, outside, labels, summaries, reference, dominant, cx));
         times.add(StageTimes.Stage.FINDINGS, System.nanoTime() - t3);
         return new ModeResult(name, true, "", modeSamples, band, features, pca, optics, labels, summaries,
                 referenceShare, dominant);
@@ -385,64 +405,112 @@ public final class UnitAnalysis {
      * the day, and those samples lie past the engineering gate from normal that day. A share rather than the
      * day's median, because many faults show for part of each day only: a leaking heating valve when the cooling
      * valve is nearly shut, a fouled coil at high load.
+     *
+     * <p>The mode's samples outside the load band ({@code outside}, null when the kind has none) are not clustered,
+     * but count on their day's side when they lie past the gate from normal themselves: a failed fan or a starved
+     * coil pushes whole days out of the band, and those days would otherwise hold no clustered sample at all.
      */
-    private static List<ChannelEvidence> clusterEvidence(String mode, FeatureMatrix f, int[] labels,
-                                                         List<ClusterSummary> summaries, boolean[] reference,
-                                                         boolean dominant, Context cx) {
+    private static List<ChannelEvidence> clusterEvidence(String mode, FeatureMatrix clustered, FeatureMatrix outside,
+                                                         int[] clusteredLabels, List<ClusterSummary> summaries,
+                                                         boolean[] clusteredReference, boolean dominant,
+                                                         Context cx) {
         AnalysisSettings settings = cx.settings();
-        int n = f.size();
-        int[] rows = f.sampleIndex();
-        int[] dayOfRow = new int[n];
-        for (int k = 0; k < n; k++) {
-            dayOfRow[k] = cx.day()[rows[k]];
-        }
+        ChannelRows inBand = ChannelRows.of(clustered, null, clusteredLabels, clusteredReference, cx);
+        ChannelRows withOutside = outside == null || outside.size() == 0 ? inBand
+                : ChannelRows.of(clustered, outside, clusteredLabels, clusteredReference, cx);
         List<ChannelEvidence> out = new ArrayList<>();
-        for (int j = 0; j < f.width(); j++) {
-            if (!f.health()[j]) {
+        for (int j = 0; j < clustered.width(); j++) {
+            if (!clustered.health()[j]) {
                 continue;
             }
-            String feature = f.names().get(j);
+            String feature = clustered.names().get(j);
             HealthFeature spec = cx.kind().health(feature, settings);
             double gate = spec.gate();
-            double[] column = f.column(j);
-            double normalLevel = ClusterShifts.median(f.rows(), reference, j);
-            // The feature's own day medians: the unit's normal level and spread, for the comparison with peers.
-            DayChannel levels = DayChannel.ofMedians(feature, 1, dayOfRow, column, null, cx.minDaySamples(),
-                    spec.spreadFloor());
+            double normalLevel = ClusterShifts.median(clustered.rows(), clusteredReference, j);
+            // The feature's own day medians inside the band: the unit's normal level and spread, for the comparison
+            // with peers.
+            DayChannel levels = DayChannel.ofMedians(feature, 1, inBand.dayOfRow(), clustered.column(j), null,
+                    cx.minDaySamples(), spec.spreadFloor());
             if (levels.size() == 0) {
                 continue;
             }
+            int[] outsideSides = cx.kind().sidesOutsideBand(feature);
             for (int dir : spec.faultSides()) {
                 double dayGate = spec.dayGate(normalLevel);
+                ChannelRows r = Arrays.stream(outsideSides).anyMatch(x -> x == dir) ? withOutside : inBand;
+                int n = r.f().size();
+                double[] column = r.f().column(j);
                 // Rows in a candidate-fault cluster that leans to this side by at least half the gate: a fault the
                 // clustering split into neighbouring clusters still counts whole, and its samples must then pass
-                // the whole gate on the day.
+                // the whole gate on the day. A row outside the band has no cluster to lean with: it must pass the
+                // whole gate itself.
                 boolean[] side = new boolean[n];
                 for (int k = 0; k < n; k++) {
-                    int l = labels[k];
-                    side[k] = l > 0 && summaries.get(l).candidateFault()
+                    int l = r.labels()[k];
+                    side[k] = r.beyond()[k] ? dir * (column[k] - normalLevel) >= dayGate
+                            : l > 0 && summaries.get(l).candidateFault()
                             && dir * summaries.get(l).shifts().get(j).value() >= 0.5 * gate;
                 }
-                DayChannel c = DayChannel.ofShares(feature, dayOfRow, side, cx.minDaySamples(), SHARE_FLOOR);
-                double[] magnitude = dayMagnitude(c, dayOfRow, side, column, normalLevel, dir);
+                DayChannel c = DayChannel.ofShares(feature, r.dayOfRow(), side, cx.minDaySamples(), SHARE_FLOOR);
+                double[] magnitude = dayMagnitude(c, r.dayOfRow(), side, column, normalLevel, dir);
                 List<ChannelEvidence.Candidate> candidates = new ArrayList<>();
                 if (dominant) {
                     for (Episode e : EpisodeFinder.find(c, cx.parameters(RULE_GATE, CLUSTER_MIN_SHARE), magnitude,
                             dayGate)) {
-                        ChannelEvidence.Candidate cand = clusterCandidate(mode, f, labels, summaries, reference,
-                                side, rows, dayOfRow, e, feature, dir, c, cx);
+                        ChannelEvidence.Candidate cand = clusterCandidate(mode, r, summaries, side, e, feature, dir,
+                                cx);
                         if (cand != null) {
                             candidates.add(cand);
                         }
                     }
                 }
                 DayChannel level = dir > 0 ? levels : levels.flipped();
-                out.add(new ChannelEvidence(mode, feature, dir, f.units().get(j), c.center(), c.spread(),
+                int[] rows = r.f().sampleIndex();
+                out.add(new ChannelEvidence(mode, feature, dir, clustered.units().get(j), c.center(), c.spread(),
                         spec.comparableAcrossUnits() ? normalLevel : Double.NaN, level.spread(), dayGate, c.size(),
                         ScanStatistic.max(c.z(), settings.maxEpisodeWindowDays()),
                         cx.finding(mode, feature, -1, new IndexRange(rows[0], rows[n - 1] + 1), List.of(),
                                 List.of()), candidates));
             }
+        }
+        return out;
+    }
+
+    /**
+     * The rows one channel of a mode looks at: the clustered rows, and (for a side that judges them) the rows
+     * outside the load band, in time order; outside rows carry label -1 and are never reference rows.
+     *
+     * @param beyond   per row: outside the band
+     * @param dayOfRow per row: its day
+     */
+    private record ChannelRows(FeatureMatrix f, int[] labels, boolean[] reference, boolean[] beyond,
+                               int[] dayOfRow) {
+
+        static ChannelRows of(FeatureMatrix clustered, FeatureMatrix outside, int[] labels, boolean[] reference,
+                              Context cx) {
+            if (outside == null) {
+                return new ChannelRows(clustered, labels, reference, new boolean[clustered.size()],
+                        daysOf(clustered.sampleIndex(), cx));
+            }
+            FeatureMatrix.Merged merged = clustered.mergedWith(outside);
+            FeatureMatrix f = merged.matrix();
+            boolean[] beyond = merged.fromOther();
+            int[] allLabels = new int[f.size()];
+            boolean[] allReference = new boolean[f.size()];
+            int a = 0;
+            for (int r = 0; r < f.size(); r++) {
+                allLabels[r] = beyond[r] ? -1 : labels[a];
+                allReference[r] = !beyond[r] && reference[a];
+                a += beyond[r] ? 0 : 1;
+            }
+            return new ChannelRows(f, allLabels, allReference, beyond, daysOf(f.sampleIndex(), cx));
+        }
+    }
+
+    private static int[] daysOf(int[] rows, Context cx) {
+        int[] out = new int[rows.length];
+        for (int k = 0; k < rows.length; k++) {
+            out[k] = cx.day()[rows[k]];
         }
         return out;
     }
@@ -483,10 +551,15 @@ public final class UnitAnalysis {
         return out;
     }
 
-    private static ChannelEvidence.Candidate clusterCandidate(String mode, FeatureMatrix f, int[] labels,
-                                                             List<ClusterSummary> summaries, boolean[] reference,
-                                                             boolean[] side, int[] rows, int[] dayOfRow, Episode e,
-                                                             String feature, int dir, DayChannel c, Context cx) {
+    private static ChannelEvidence.Candidate clusterCandidate(String mode, ChannelRows channelRows,
+                                                             List<ClusterSummary> summaries, boolean[] side,
+                                                             Episode e, String feature, int dir, Context cx) {
+        FeatureMatrix f = channelRows.f();
+        int[] labels = channelRows.labels();
+        boolean[] beyond = channelRows.beyond();
+        boolean[] reference = channelRows.reference();
+        int[] rows = f.sampleIndex();
+        int[] dayOfRow = channelRows.dayOfRow();
         IndexRange r = rangeOf(rows, side, dayOfRow, e.firstDay(), e.lastDay());
         if (r == null) {
             return null;
@@ -494,28 +567,38 @@ public final class UnitAnalysis {
         // The episode's own shift from normal, on medians of its candidate rows against the reference rows.
         boolean[] inEpisode = new boolean[labels.length];
         int[] count = new int[summaries.size()];
+        int rowsInEpisode = 0;
+        int outsideBand = 0;
         for (int k = 0; k < labels.length; k++) {
             inEpisode[k] = side[k] && dayOfRow[k] >= e.firstDay() && dayOfRow[k] <= e.lastDay();
             if (inEpisode[k]) {
-                count[labels[k]]++;
+                rowsInEpisode++;
+                if (beyond[k]) {
+                    outsideBand++;
+                } else {
+                    count[labels[k]]++;
+                }
             }
         }
-        int cluster = 1;
+        // The cluster holding most of the episode's clustered rows; -1 when all of them lie outside the load band.
+        int cluster = -1;
         for (int l = 1; l < count.length; l++) {
-            if (count[l] > count[cluster]) {
+            if (count[l] > 0 && (cluster < 0 || count[l] > count[cluster])) {
                 cluster = l;
             }
         }
         List<Shift> shifts = ClusterShifts.of(f, inEpisode, reference);
-        DirectionCheck.Outcome direction = summaries.get(cluster).direction();
+        DirectionCheck.Outcome direction = cluster > 0 ? summaries.get(cluster).direction()
+                : cx.kind().direction(mode, f, inEpisode);
         boolean directionFault = direction == DirectionCheck.Outcome.FAILS
                 && summaries.get(0).direction() == DirectionCheck.Outcome.AS_EXPECTED;
         List<String> causes = cx.causes().causes(mode, shifts, directionFault ? direction : null);
         String unit = f.units().get(f.indexOf(feature));
         String text = String.format(Locale.ROOT, "%s %+.1f %s from normal on %.0f %% of the samples, %d day(s) (%.0f %%"
-                        + " on the unit's normal days; %.1f day-to-day spreads)", feature, dir * e.meanShift(),
+                        + " on the unit's normal days; %.1f day-to-day spreads)%s", feature, dir * e.meanShift(),
                 unit.equals("degC") ? "K" : unit, 100 * e.meanValue(), e.faultDays(), 100 * e.meanNormal(),
-                e.meanZ());
+                e.meanZ(), outsideBand == 0 ? "" : String.format(Locale.ROOT, "; %d of its %d samples outside the load band",
+                        outsideBand, rowsInEpisode));
         return new ChannelEvidence.Candidate(e, cx.finding(mode, "fault_cluster", cluster, r, shifts, causes)
                 .withEvidence(text));
     }

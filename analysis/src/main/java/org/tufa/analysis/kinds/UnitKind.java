@@ -86,6 +86,31 @@ public interface UnitKind {
      */
     FeatureMatrix features(String mode, UnitSignals s, int[] samples, ModeSplit modes);
 
+    /**
+     * The feature rows of the mode's samples outside the load band, judged by what the unit does inside it: what a
+     * feature learns from the unit (a coil curve, say) is learnt from the samples in the band only. Those samples
+     * are not clustered (the published method compares like loads with like), but a fault that pushes the load out
+     * of the band (a failed fan: the coil cools a trickle of air to near the water temperature) shows in them
+     * first. By default none: the kind's out-of-band samples are then judged by the out-of-band rules alone.
+     *
+     * @param samples grid indices of every sample of the mode that has a load, ascending
+     * @param inBand  per entry of {@code samples}: inside the band
+     * @return rows of the samples outside the band only (the same columns as {@link #features}), or null
+     */
+    default FeatureMatrix featuresOutsideBand(String mode, UnitSignals s, int[] samples, boolean[] inBand,
+                                              ModeSplit modes) {
+        return null;
+    }
+
+    /**
+     * The fault sides on which a health feature judges the samples outside the load band
+     * ({@link #featuresOutsideBand}): only where the side means something the band's edge cannot explain. By
+     * default none.
+     */
+    default int[] sidesOutsideBand(String feature) {
+        return new int[0];
+    }
+
     /** The names of the kind's health features (over all its modes). */
     List<String> healthFeatures();
 

@@ -125,4 +125,39 @@ class FleetDecisionBehaviourTest {
             }
         }
     }
+
+    /**
+     * Unit 5's fan fails on days 10-15 while its status still reads on: a trickle of air leaves the coil near the
+     * chilled-water temperature (effectiveness 0.95 instead of at most 0.7: a low airflow raises the coil's
+     * number of transfer units, ASHRAE Handbook Fundamentals), the zone drifts 1.5 K warm and the valve sits wide
+     * open. Counted with the nominal airflow the air-side load is then about 18 K x the airflow, above the unit's
+     * load band on every occupied sample, so none of those samples is clustered; judged against the coil curve the
+     * unit learnt inside the band, their coil residual lies about 6 K past normal: a coil-residual finding on the
+     * fault days that says its samples lay outside the band, and nothing on the other units.
+     */
+    @Test
+    void aFailedFanThatPushesWholeDaysOutOfTheLoadBandIsFound() {
+        int from = 10 * SyntheticUnit.PER_DAY;
+        int to = 16 * SyntheticUnit.PER_DAY;
+        FleetDecision.Decision d = decide((k, u) -> {
+            if (k == 5) {
+                for (int i = from; i < to; i++) {
+                    if (SyntheticUnit.occupied(i) && !SyntheticUnit.fanOnly(i)) {
+                        u.zone[i] += 1.5;
+                        u.cooling[i] = 100;
+                        u.discharge[i] = u.zone[i] - 0.95 * (u.zone[i] - u.chilledWater[i]) + 0.3;
+                    }
+                }
+            }
+        });
+        List<Finding> faulty = listed(d, 5);
+        assertTrue(faulty.stream().anyMatch(f -> f.kind().equals("fault_cluster")
+                && f.evidence().startsWith("coil_residual +") && f.evidence().contains("outside the load band")
+                && f.range().start() < to && from < f.range().end()), describe(d));
+        for (int k = 0; k < UNITS; k++) {
+            if (k != 5) {
+                assertEquals(List.of(), listed(d, k), describe(d));
+            }
+        }
+    }
 }

@@ -80,19 +80,50 @@ public final class FanCoilFeatures {
      *                the mode each time it swings is the hunting rule's to judge.
      */
     public static FeatureMatrix build(String mode, UnitSignals s, int[] samples, boolean[] running) {
+        return build(mode, s, samples, null, running);
+    }
+
+    /**
+     * Feature rows of {@code samples} whose coil curve (and outdoor-temperature line) is learnt from a part of them
+     * only: the samples inside the load band, so that the samples outside it are judged against the unit's usual
+     * operation instead of shaping it. The running medians run over all the samples, in time order.
+     *
+     * @param learnFrom per entry of {@code samples}: whether the models learn from it (null: all of them)
+     */
+    public static FeatureMatrix build(String mode, UnitSignals s, int[] samples, boolean[] learnFrom,
+                                      boolean[] running) {
         String why = missingFor(mode, s);
         if (why != null) {
             throw new IllegalArgumentException(why);
         }
+        if (learnFrom != null && learnFrom.length != samples.length) {
+            throw new IllegalArgumentException(samples.length + " samples, " + learnFrom.length + " learning flags");
+        }
         return switch (mode) {
-            case "cooling" -> coil(s, samples, true, running);
-            case "heating" -> coil(s, samples, false, running);
+            case "cooling" -> coil(s, samples, learnFrom, true, running);
+            case "heating" -> coil(s, samples, learnFrom, false, running);
             case "ventilation" -> ventilation(s, samples);
             default -> throw new IllegalArgumentException("no features for mode " + mode);
         };
     }
 
-    private static FeatureMatrix coil(UnitSignals s, int[] samples, boolean cooling, boolean[] running) {
+    /** The entries of {@code a} where {@code keep} holds ({@code a} itself when keep is null). */
+    private static double[] only(double[] a, boolean[] keep) {
+        if (keep == null || a == null) {
+            return a;
+        }
+        double[] out = new double[a.length];
+        int m = 0;
+        for (int k = 0; k < a.length; k++) {
+            if (keep[k]) {
+                out[m++] = a[k];
+            }
+        }
+        return java.util.Arrays.copyOf(out, m);
+    }
+
+    private static FeatureMatrix coil(UnitSignals s, int[] samples, boolean[] learnFrom, boolean cooling,
+                                      boolean[] running) {
         double[] zone = s.zoneAirTemperature();
         double[] discharge = s.dischargeAirTemperature();
         double[] valve = cooling ? s.coolingValveCommand() : s.heatingValveCommand();
@@ -113,7 +144,7 @@ public final class FanCoilFeatures {
                 wat[k] = sign * (zone[i] - water[i]);
             }
         }
-        CoilResponse response = CoilResponse.fit(v, air, wat);
+        CoilResponse response = CoilResponse.fit(only(v, learnFrom), only(air, learnFrom), only(wat, learnFrom));
         // A two-position valve toggles by design: its activity says nothing about loop stability, and clustering on
         // it only splits normal operation by how often the thermostat switched.
         boolean modulating = !ValveActivity.twoPosition(valve);
@@ -138,7 +169,8 @@ public final class FanCoilFeatures {
             for (int k = 0; k < n; k++) {
                 outdoor[k] = s.outdoorAirTemperature()[samples[k]];
             }
-            rawResidual = RobustLine.fit(outdoor, rawResidual).residuals(outdoor, rawResidual);
+            rawResidual = RobustLine.fit(only(outdoor, learnFrom), only(rawResidual, learnFrom))
+                    .residuals(outdoor, rawResidual);
         }
         double[] residual = RollingMedian.of(rawResidual, SMOOTHING_HALF_WINDOW);
         // Cooling only: the zone held above its setpoint with the coil working is a capacity shortfall (no

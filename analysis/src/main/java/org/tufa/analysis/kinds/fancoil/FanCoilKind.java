@@ -156,6 +156,31 @@ public final class FanCoilKind implements UnitKind {
         return FanCoilFeatures.build(mode, s, samples, modes.mask(operatingMode(mode)));
     }
 
+    @Override
+    public FeatureMatrix featuresOutsideBand(String mode, UnitSignals s, int[] samples, boolean[] inBand,
+                                             ModeSplit modes) {
+        FeatureMatrix all = FanCoilFeatures.build(mode, s, samples, inBand, modes.mask(operatingMode(mode)));
+        boolean[] outside = new boolean[s.size()];
+        for (int k = 0; k < samples.length; k++) {
+            outside[samples[k]] = !inBand[k];
+        }
+        return all.onlySamples(outside);
+    }
+
+    /**
+     * The coil residual on the side of more heat moved than the coil curve allows at that valve opening. The
+     * samples judged lie above the band in heat moved (see {@code UnitAnalysis}); a valve that opened for a
+     * larger load explains their heat, and a residual past the gate beyond that says the air side changed: a
+     * trickle of air leaving the coil near the water temperature (a failed fan or belt with the status still on).
+     * Not the other side: at the band's edge the curve is extrapolated past the openings it was learnt at, so a
+     * coil doing less than the extrapolation there is the curve's error, not the unit's; and not the zone error,
+     * which any load above the coil's capacity raises.
+     */
+    @Override
+    public int[] sidesOutsideBand(String feature) {
+        return feature.equals("coil_residual") ? new int[] {1} : new int[0];
+    }
+
     private static OperatingMode operatingMode(String mode) {
         return OperatingMode.valueOf(mode.toUpperCase(Locale.ROOT));
     }
