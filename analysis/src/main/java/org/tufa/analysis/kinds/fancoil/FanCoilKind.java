@@ -7,6 +7,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import org.tufa.analysis.band.Quantiles;
 import org.tufa.analysis.coverage.PointRef;
 import org.tufa.analysis.coverage.Profile;
 import org.tufa.analysis.coverage.UnitCoverage;
@@ -139,10 +140,57 @@ public final class FanCoilKind implements UnitKind {
         return modes.mask(operatingMode(mode));
     }
 
+    /**
+     * Steady ventilation in ventilation; in heating and cooling the samples whose supply water can drive the coil
+     * ({@link #waterCanDrive}).
+     */
     @Override
     public boolean[] clusteredSamples(String mode, ModeSplit modes, UnitSignals s) {
         OperatingMode m = operatingMode(mode);
-        return m == OperatingMode.VENTILATION ? steadyVentilation(modes, s) : modes.mask(m);
+        return switch (m) {
+            case VENTILATION -> steadyVentilation(modes, s);
+            case COOLING, HEATING -> waterCanDrive(modes.mask(m), s, m == OperatingMode.COOLING);
+            default -> modes.mask(m);
+        };
+    }
+
+    /**
+     * Share of the mode's usual drive (the entering difference between supply water and zone that the plant gives
+     * at its 90th percentile over the mode's samples) below which a coil sample is not clustered (common practice,
+     * no source). The coil residual compares the air's temperature change with the coil's effectiveness times
+     * this entering difference (ASHRAE Handbook Fundamentals). A plant off for the season lets its loop drift
+     * toward room temperature (hot water at 24 degC in July, chilled water at 16 degC behind a chiller lockout),
+     * and its pump is usually off too, so a unit that still opens its valve moves almost nothing: its residual
+     * says the plant is off, not that the unit is faulty. Those samples are left to the energy-balance rules,
+     * which judge a coil that moves no heat whatever the reason. Relative to the unit's own plant rather than a
+     * fixed kelvin figure, because plants run at very different temperatures (a hot-water reset, a warm
+     * chilled-water loop for chilled beams).
+     */
+    static final double MIN_DRIVE_SHARE = 0.5;
+
+    /** The mode's samples, less those whose supply water lies too close to the zone to drive the coil. */
+    static boolean[] waterCanDrive(boolean[] inMode, UnitSignals s, boolean cooling) {
+        double[] water = cooling ? s.chilledWaterSupplyTemperature() : s.hotWaterSupplyTemperature();
+        if (!UnitSignals.present(water)) {
+            return inMode;
+        }
+        double[] zone = s.zoneAirTemperature();
+        double[] drive = new double[inMode.length];
+        for (int i = 0; i < drive.length; i++) {
+            drive[i] = !inMode[i] ? Double.NaN : cooling ? zone[i] - water[i] : water[i] - zone[i];
+        }
+        double[] sorted = Quantiles.finiteSorted(drive);
+        if (sorted.length == 0) {
+            return inMode;
+        }
+        double least = MIN_DRIVE_SHARE * Quantiles.linearOfSorted(sorted, 0.9);
+        boolean[] out = inMode.clone();
+        for (int i = 0; i < out.length; i++) {
+            if (out[i] && drive[i] < least) {
+                out[i] = false;
+            }
+        }
+        return out;
     }
 
     /** In heating and cooling; not in ventilation, where the coil load is zero by definition. */
