@@ -278,9 +278,14 @@ public final class UnitAnalysis {
             // yet arrived) where a steady-state coil curve does not hold; a coil that moves no heat at all is the
             // energy-balance rules' to judge.
             withLoad = new boolean[modeLoad.length];
+            int beyond = 0;
             for (int i = 0; i < modeLoad.length; i++) {
                 boolean moreHeat = band.q1() + band.q3() >= 0 ? modeLoad[i] > band.high() : modeLoad[i] < band.low();
                 withLoad[i] = eligible[i] && (keep[i] || moreHeat);
+                beyond += eligible[i] && !keep[i] && moreHeat ? 1 : 0;
+            }
+            if (beyond == 0) {
+                withLoad = null; // nothing beyond the band to judge
             }
             // Samples outside the band are not clustered (the published method), but days spent mostly outside it
             // are evidence of their own: a failed fan pushes every sample of the day above the band.
