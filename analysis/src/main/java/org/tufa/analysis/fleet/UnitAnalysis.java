@@ -272,7 +272,7 @@ public final class UnitAnalysis {
                     below[i] = modeLoad[i] < band.low();
                 }
             }
-            // The samples that outside() judges by their features: in the band (what the models learn from) and
+            // The samples featuresOutsideBand judges by their features: in the band (what the models learn from) and
             // beyond it on the side of more heat moved (above a cooling band, below a heating one). Samples on the
             // side of less heat moved are mostly transients (a coil still cold after the valve opened, water not
             // yet arrived) where a steady-state coil curve does not hold; a coil that moves no heat at all is the
@@ -412,8 +412,9 @@ public final class UnitAnalysis {
      * valve is nearly shut, a fouled coil at high load.
      *
      * <p>The mode's samples outside the load band ({@code outside}, null when the kind has none) are not clustered,
-     * but count on their day's side when they lie past the gate from normal themselves: a failed fan or a starved
-     * coil pushes whole days out of the band, and those days would otherwise hold no clustered sample at all.
+     * but count on their day's side, on the fault sides the kind names ({@code UnitKind.sidesOutsideBand}), when
+     * they lie past the gate from normal themselves: a failed fan pushes whole days above the band, and those days
+     * would otherwise hold no clustered sample at all.
      */
     private static List<ChannelEvidence> clusterEvidence(String mode, FeatureMatrix clustered, FeatureMatrix outside,
                                                          int[] clusteredLabels, List<ClusterSummary> summaries,
@@ -602,8 +603,8 @@ public final class UnitAnalysis {
         String text = String.format(Locale.ROOT, "%s %+.1f %s from normal on %.0f %% of the samples, %d day(s) (%.0f %%"
                         + " on the unit's normal days; %.1f day-to-day spreads)%s", feature, dir * e.meanShift(),
                 unit.equals("degC") ? "K" : unit, 100 * e.meanValue(), e.faultDays(), 100 * e.meanNormal(),
-                e.meanZ(), outsideBand == 0 ? "" : String.format(Locale.ROOT, "; %d of its %d samples outside the load band",
-                        outsideBand, rowsInEpisode));
+                e.meanZ(), outsideBand == 0 ? "" : String.format(Locale.ROOT,
+                        "; %d of its %d samples outside the load band", outsideBand, rowsInEpisode));
         return new ChannelEvidence.Candidate(e, cx.finding(mode, "fault_cluster", cluster, r, shifts, causes)
                 .withEvidence(text));
     }

@@ -93,7 +93,8 @@ public interface UnitKind {
      * of the band (a failed fan: the coil cools a trickle of air to near the water temperature) shows in them
      * first. By default none: the kind's out-of-band samples are then judged by the out-of-band rules alone.
      *
-     * @param samples grid indices of every sample of the mode that has a load, ascending
+     * @param samples grid indices of the mode's samples to build rows for, ascending: those in the band and those
+     *                beyond it on the side of more heat moved
      * @param inBand  per entry of {@code samples}: inside the band
      * @return rows of the samples outside the band only (the same columns as {@link #features}), or null
      */
