@@ -28,24 +28,38 @@ final class PaletteImage {
         for (int i = 0; i < pixels.length; i++) {
             pixels[i] &= 0xffffff;
         }
-        // Distinct colours and their counts, by sorting a copy: no boxing, no hashing, the same for the same image.
-        int[] sorted = pixels.clone();
-        Arrays.sort(sorted);
+        // Distinct colours and their counts in an open-addressing table (linear probing; colour + 1 as key, 0 =
+        // empty), grown as it fills: one pass, no boxing. The order of the table does not reach the output: the
+        // palette is sorted by count and colour below.
+        int size = 1 << 10;
+        int[] keys = new int[size];
+        int[] tally = new int[size];
         int distinctCount = 0;
-        int[] distinct = new int[Math.min(sorted.length, 1 << 16)];
-        int[] count = new int[distinct.length];
-        for (int i = 0; i < sorted.length; ) {
-            int j = i;
-            while (j < sorted.length && sorted[j] == sorted[i]) {
-                j++;
+        for (int p : pixels) {
+            int slot = mix(p) & (size - 1);
+            while (keys[slot] != 0 && keys[slot] != p + 1) {
+                slot = (slot + 1) & (size - 1);
             }
-            if (distinctCount == distinct.length) {
-                distinct = Arrays.copyOf(distinct, distinctCount * 2);
-                count = Arrays.copyOf(count, distinctCount * 2);
+            if (keys[slot] == 0) {
+                keys[slot] = p + 1;
+                if (++distinctCount * 2 > size) {
+                    int[][] grown = grow(keys, tally, size * 2);
+                    keys = grown[0];
+                    tally = grown[1];
+                    size *= 2;
+                    slot = find(keys, p, size);
+                }
             }
-            distinct[distinctCount] = sorted[i];
-            count[distinctCount++] = j - i;
-            i = j;
+            tally[slot]++;
+        }
+        int[] distinct = new int[distinctCount];
+        int[] count = new int[distinctCount];
+        int m = 0;
+        for (int slot = 0; slot < size; slot++) {
+            if (keys[slot] != 0) {
+                distinct[m] = keys[slot] - 1;
+                count[m++] = tally[slot];
+            }
         }
         Integer[] byFrequency = new Integer[distinctCount];
         for (int i = 0; i < distinctCount; i++) {
@@ -75,17 +89,10 @@ final class PaletteImage {
                 paletteIndex[d] = nearest(palette, colours[d]);
             }
         }
-        // Colour -> palette index in an open-addressing table (linear probing; colour + 1 as key, 0 = empty).
-        int size = Integer.highestOneBit(Math.max(4, distinctCount) * 4);
-        int[] keys = new int[size];
+        // Colour -> palette index, in the same table.
         byte[] values = new byte[size];
         for (int d = 0; d < distinctCount; d++) {
-            int slot = mix(colours[d]) & (size - 1);
-            while (keys[slot] != 0) {
-                slot = (slot + 1) & (size - 1);
-            }
-            keys[slot] = colours[d] + 1;
-            values[slot] = (byte) paletteIndex[d];
+            values[find(keys, colours[d], size)] = (byte) paletteIndex[d];
         }
         BufferedImage out = new BufferedImage(w, h, BufferedImage.TYPE_BYTE_INDEXED, new IndexColorModel(8, n, r, g, b));
         byte[] target = ((java.awt.image.DataBufferByte) out.getRaster().getDataBuffer()).getData();
@@ -98,6 +105,32 @@ final class PaletteImage {
             target[i] = values[slot];
         }
         return out;
+    }
+
+    /** The slot of colour {@code c} in a table that holds it. */
+    private static int find(int[] keys, int c, int size) {
+        int slot = mix(c) & (size - 1);
+        while (keys[slot] != c + 1) {
+            slot = (slot + 1) & (size - 1);
+        }
+        return slot;
+    }
+
+    /** The table rehashed into {@code size} slots: {keys, counts}. */
+    private static int[][] grow(int[] keys, int[] tally, int size) {
+        int[] k2 = new int[size];
+        int[] t2 = new int[size];
+        for (int slot = 0; slot < keys.length; slot++) {
+            if (keys[slot] != 0) {
+                int s = mix(keys[slot] - 1) & (size - 1);
+                while (k2[s] != 0) {
+                    s = (s + 1) & (size - 1);
+                }
+                k2[s] = keys[slot];
+                t2[s] = tally[slot];
+            }
+        }
+        return new int[][] {k2, t2};
     }
 
     /** Spreads an RGB value's bits over the table (Fibonacci hashing, Knuth TAOCP 6.4). */
