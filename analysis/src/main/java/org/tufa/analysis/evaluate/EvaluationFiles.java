@@ -74,13 +74,7 @@ public final class EvaluationFiles {
                 throw InputException.at(findingsFile, line, "end is before start");
             }
             if (minConfidence > 0 && r.isMapped("confidence")) {
-                double c;
-                try {
-                    c = Double.parseDouble(r.get("confidence"));
-                } catch (NumberFormatException e) {
-                    throw InputException.at(findingsFile, line, "column confidence: '" + r.get("confidence")
-                            + "' is not a number");
-                }
+                double c = number(findingsFile, line, "confidence", r.get("confidence"));
                 if (c < minConfidence) {
                     return;
                 }
@@ -137,13 +131,7 @@ public final class EvaluationFiles {
             if (!end.isAfter(start)) {
                 throw InputException.at(truthFile, line, "end must be after start");
             }
-            double severity;
-            try {
-                severity = Double.parseDouble(r.get("severity"));
-            } catch (NumberFormatException e) {
-                throw InputException.at(truthFile, line, "column severity: '" + r.get("severity")
-                        + "' is not a number");
-            }
+            double severity = number(truthFile, line, "severity", r.get("severity"));
             if (r.get("fault").isBlank()) {
                 throw InputException.at(truthFile, line, "column fault is empty");
             }
@@ -235,6 +223,15 @@ public final class EvaluationFiles {
             throw InputException.in(file, "cannot read: " + e.getMessage());
         } catch (IllegalArgumentException | IllegalStateException e) {
             throw InputException.in(file, "not a valid CSV file: " + e.getMessage().replace('\n', ' '));
+        }
+    }
+
+    /** A number cell, or a one-line error naming the file, line and column. */
+    private static double number(Path file, long line, String column, String value) {
+        try {
+            return Double.parseDouble(value);
+        } catch (NumberFormatException e) {
+            throw InputException.at(file, line, "column " + column + ": '" + value + "' is not a number");
         }
     }
 
