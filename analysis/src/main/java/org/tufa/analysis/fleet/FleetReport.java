@@ -142,7 +142,7 @@ public final class FleetReport {
             for (int i = 0; i < Math.min(10, ranked.size()); i++) {
                 UnitOutcome u = ranked.get(i);
                 lines.add(String.format(Locale.ROOT, "  %2d. %-28s confidence %.3f %7.1f h %9.1f kWh  %d finding(s)",
-                        i + 1, u.label(), u.topConfidence(), u.faultHours(), u.faultEnergyKwh(),
+                        i + 1, u.displayName(), u.topConfidence(), u.faultHours(), u.faultEnergyKwh(),
                         u.findings().size()));
             }
         }
@@ -152,7 +152,7 @@ public final class FleetReport {
             lines.add("Not analysed:");
             for (int i = 0; i < Math.min(10, notAnalysed.size()); i++) {
                 UnitOutcome u = notAnalysed.get(i);
-                lines.add("  " + u.label() + " (" + u.status() + "): " + u.reason());
+                lines.add("  " + u.displayName() + " (" + u.status() + "): " + u.reason());
             }
             if (notAnalysed.size() > 10) {
                 lines.add("  ... and " + (notAnalysed.size() - 10) + " more (see fleet.csv)");

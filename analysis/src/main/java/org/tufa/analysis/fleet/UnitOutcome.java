@@ -30,6 +30,11 @@ public record UnitOutcome(String unit, String label, String folder, String statu
     public static final String SKIPPED = "skipped";
     public static final String FAILED = "failed";
 
+    /** The name people read: the model's label, else the unit's IRI (many models carry no labels). */
+    public String displayName() {
+        return label == null || label.isBlank() ? unit : label;
+    }
+
     /** The figures of one fleet.csv row. */
     public record Totals(String modes, int samplesUsed, int clusters, int faultClusters, double faultHours,
                          double faultEnergyKwh) implements java.io.Serializable {

@@ -78,10 +78,6 @@ public final class FleetPage {
         return b.toString();
     }
 
-    private static String name(UnitOutcome u) {
-        return u.label().isEmpty() ? u.unit() : u.label();
-    }
-
     private static String href(UnitOutcome u) {
         return "units/" + u.folder() + "/index.html";
     }
@@ -178,7 +174,7 @@ public final class FleetPage {
                 .column("findings", true);
         int rank = 1;
         for (UnitOutcome u : ranked) {
-            t.row().sorted(Integer.toString(rank), rank).link(name(u), href(u)).number(u.topConfidence(), 3)
+            t.row().sorted(Integer.toString(rank), rank).link(u.displayName(), href(u)).number(u.topConfidence(), 3)
                     .number(u.faultHours(), 1).number(u.faultEnergyKwh(), 0)
                     .sorted(Integer.toString(u.findings().size()), u.findings().size());
             rank++;
@@ -205,7 +201,7 @@ public final class FleetPage {
         for (UnitOutcome u : units) {
             for (Finding f : u.findings()) {
                 ReviewStep.Mark mark = u.mark(f);
-                t.row().link(name(u), href(u)).number(f.confidence(), 3).text(f.mode()).text(f.kind())
+                t.row().link(u.displayName(), href(u)).number(f.confidence(), 3).text(f.mode()).text(f.kind())
                         .text(f.cluster() < 0 ? "" : "C" + f.cluster())
                         .time(Times.local(f.start(), zone), f.start().getEpochSecond())
                         .time(Times.local(f.end(), zone), f.end().getEpochSecond())
@@ -224,7 +220,7 @@ public final class FleetPage {
                 .column("status", false).column("modes clustered", false).column("fault hours", true)
                 .column("energy (kWh)", true).column("reason", false);
         for (UnitOutcome u : units) {
-            DataTable.Row r = t.row().link(name(u), href(u)).text(u.unit());
+            DataTable.Row r = t.row().link(u.displayName(), href(u)).text(u.unit());
             if (u.status().equals(UnitOutcome.FAILED)) {
                 r.styled(u.status(), "failed", null);
             } else {
@@ -247,7 +243,7 @@ public final class FleetPage {
         for (UnitCoverage u : coverage.units()) {
             UnitOutcome o = byUnit.get(u.unit());
             DataTable.Row row = o == null ? t.row().text(u.label().isEmpty() ? u.unit() : u.label())
-                    : t.row().link(name(o), href(o));
+                    : t.row().link(o.displayName(), href(o));
             row.text(u.profileName());
             for (String role : roles) {
                 RoleMatch m = u.roles().get(role);

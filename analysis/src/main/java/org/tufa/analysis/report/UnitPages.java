@@ -75,7 +75,7 @@ public final class UnitPages implements UnitSink {
         }
         Path dir = folder(o);
         OutputFiles.ensureFolder(dir);
-        String name = name(o);
+        String name = o.displayName();
         Map<String, ModeCharts.Drawn> charts = new java.util.TreeMap<>();
         for (ModeResult m : r.modeResults()) {
             if (m.analyzed()) {
@@ -95,8 +95,8 @@ public final class UnitPages implements UnitSink {
         Path dir = folder(o);
         OutputFiles.ensureFolder(dir);
         if (signals != null && o.summary() != null) {
-            Charts.writePng(strips(name(o), signals, loadKw, o.summary().interval(), o.findings()), STRIP_WIDTH,
-                    STRIP_HEIGHT, dir.resolve("strips.png"));
+            Charts.writePng(strips(o.displayName(), signals, loadKw, o.summary().interval(), o.findings()),
+                    STRIP_WIDTH, STRIP_HEIGHT, dir.resolve("strips.png"));
         }
         Map<String, ModeCharts.Drawn> charts = drawn.remove(o.folder());
         OutputFiles.writeString(dir.resolve("index.html"), page(o, charts == null ? Map.of() : charts, dir));
@@ -116,12 +116,8 @@ public final class UnitPages implements UnitSink {
         }
     }
 
-    private static String name(UnitOutcome o) {
-        return o.label().isEmpty() ? o.unit() : o.label();
-    }
-
     private String page(UnitOutcome o, Map<String, ModeCharts.Drawn> charts, Path dir) {
-        String name = name(o);
+        String name = o.displayName();
         StringBuilder b = new StringBuilder(16_384);
         Html.open(b, name + " - tufa unit report", "Unit " + name);
         b.append("<p><a href=\"../../index.html\">&larr; Fleet report</a></p>\n");

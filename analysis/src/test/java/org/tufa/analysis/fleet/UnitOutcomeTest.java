@@ -55,6 +55,18 @@ class UnitOutcomeTest {
         assertEquals(3.0, findings.stream().mapToDouble(Finding::hours).sum(), 1e-12, "the naive sum differs");
     }
 
+    /** Many models carry no rdfs:label (the 500-unit benchmark fleet's do not): the console and report name such
+     * a unit by its IRI, not by an empty string. */
+    @Test
+    void aUnitWithoutALabelIsNamedByItsIri() {
+        UnitOutcome unlabelled = new UnitOutcome("urn:bench:fleet#fcu_001", "", "fcu_001", UnitOutcome.SKIPPED,
+                "no data", List.of(), null);
+        assertEquals("urn:bench:fleet#fcu_001", unlabelled.displayName());
+        UnitOutcome labelled = new UnitOutcome("urn:bench:fleet#fcu_002", "FCU 2 (room 12)", "fcu_002",
+                UnitOutcome.SKIPPED, "no data", List.of(), null);
+        assertEquals("FCU 2 (room 12)", labelled.displayName());
+    }
+
     @Test
     void unitWithoutFindingsOrResultHasNoFaultHours() {
         double[] load = new double[8];
