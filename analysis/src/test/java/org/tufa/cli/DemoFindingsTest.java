@@ -19,8 +19,10 @@ import org.junit.jupiter.api.io.TempDir;
  * The whole demo, run once. The fan coil units' findings and fleet rows are byte for byte those recorded before
  * the per-unit analysis moved behind {@code org.tufa.analysis.kinds.UnitKind} (recorded with the jar of main at
  * ebe735b, again after merging the review loop with the jar of main at 2b8b3f9, and again when samples outside the
- * load band began to count as coil-residual evidence, which moved five fan coil findings: {@code tufa demo --out
- * X}, the rows of the FCU-* units of findings.csv and fleet.csv). A change that
+ * load band began to count as coil-residual evidence, which moved five fan coil findings, and again when episodes
+ * began to bridge weekend days without a fault, which joined pieces of one fault into one finding (73 findings of
+ * the demo became 62): {@code tufa demo --out X}, the rows of the FCU-* units of findings.csv and fleet.csv). A
+ * change that
  * moves a fan coil finding has to say so by re-recording them.
  */
 class DemoFindingsTest {

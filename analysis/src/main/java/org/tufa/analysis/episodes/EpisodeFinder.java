@@ -15,8 +15,9 @@ import org.tufa.analysis.significance.ScanStatistic;
  * hour every afternoon (a coil still cold after cooling, a hot spell) from counting as a fault: that pattern is
  * part of the unit's normal days.
  *
- * <p>Consecutive fault days form an episode; one informative day without a fault between fault days is bridged
- * (a mild day in a week-long fault), and so are days without data, unless the calendar gap exceeds
+ * <p>Consecutive fault days form an episode; up to {@code bridgeDays} informative workdays without a fault between
+ * fault days are bridged (a mild day in a week-long fault), and so are weekend days without a fault (a workday
+ * fault need not show against the unit's weekends) and days without data, unless the calendar gap exceeds
  * {@code maxGapDays}. An episode needs {@code minDays} fault days: one odd day (a holiday, a storm, a test by the
  * commissioning engineer) is part of any unit's record, a fault lasts.
  */
@@ -27,7 +28,7 @@ public final class EpisodeFinder {
      * @param gate        smallest deviation from normal that matters, in the channel's unit
      * @param minShare    rule channels only: smallest share of the day's samples the rule flags (NaN for cluster
      *                    channels, which need dominance instead)
-     * @param bridgeDays  informative non-fault days bridged inside an episode
+     * @param bridgeDays  informative non-fault workdays bridged inside an episode (weekend days are bridged besides)
      * @param maxGapDays  longest calendar gap between consecutive days of an episode
      * @param maxWindow   longest window of the scan statistic, in informative days
      * @param minDays     fewest fault days an episode needs
@@ -35,6 +36,15 @@ public final class EpisodeFinder {
     public record Parameters(double minZ, double gate, double minShare, int bridgeDays, int maxGapDays,
                              int maxWindow, int minDays) {
     }
+
+    /**
+     * Informative workdays without a fault that an episode bridges: one (a mild day in a week-long fault). Weekend
+     * days without a fault are bridged besides: they are judged against the unit's weekends, and a fault that shows
+     * on workdays (a schedule left extended, a coil short of capacity at workday loads) can look normal there; with
+     * weekends counted as any day, a week-long fault fell apart into pieces of two or three workdays, each weaker
+     * against the fleet's null than the whole.
+     */
+    public static final int BRIDGED_DAYS = 1;
 
     private EpisodeFinder() {
     }
@@ -77,7 +87,7 @@ public final class EpisodeFinder {
                 if (fault[j]) {
                     last = j;
                     skipped = 0;
-                } else if (++skipped > p.bridgeDays()) {
+                } else if (!DayChannel.weekend(c.days()[j]) && ++skipped > p.bridgeDays()) {
                     break;
                 }
                 j++;

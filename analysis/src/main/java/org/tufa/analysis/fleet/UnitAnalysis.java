@@ -149,8 +149,8 @@ public final class UnitAnalysis {
         }
 
         EpisodeFinder.Parameters parameters(double gate, double minShare) {
-            return new EpisodeFinder.Parameters(settings.minDayDeviation(), gate, minShare, 1, 4,
-                    settings.maxEpisodeWindowDays(), settings.minEpisodeDays());
+            return new EpisodeFinder.Parameters(settings.minDayDeviation(), gate, minShare,
+                    EpisodeFinder.BRIDGED_DAYS, 4, settings.maxEpisodeWindowDays(), settings.minEpisodeDays());
         }
 
         /**
