@@ -92,8 +92,8 @@ public final class EvaluateCommand implements Callable<Integer> {
                 org.tufa.analysis.evaluate.DiagnosisScore.lines("diagnosed causes leaving one unit out (confirmed "
                         + "findings)", loo).forEach(spec.commandLine().getOut()::println);
                 spec.commandLine().getOut().println("goal: the diagnosis names the injected fault for >= 80 % of "
-                        + "confirmed episodes leaving one unit out: " + loo.share() + (loo.onFaults() > 0
-                        && loo.right() >= 0.8 * loo.onFaults() ? " (met)" : " (NOT met)"));
+                        + "confirmed episodes leaving one unit out: " + loo.episodeShare()
+                        + (loo.episodesNamedAtLeast(0.8) ? " (met)" : " (NOT met)"));
             }
         }
         EvaluationReport.writeSummary(findings.resolve(EvaluationReport.SUMMARY_FILE), result);

@@ -22,7 +22,10 @@ import org.tufa.common.InputException;
 /**
  * Diagnosed causes scored against the ground truth: each diagnosed period of a unit is matched to the injected
  * episode of that unit it overlaps most; it is right when the diagnosed cause is that episode's fault. Periods that
- * overlap no episode are counted apart (they have no true cause to name).
+ * overlap no episode are counted apart (they have no true cause to name). An episode counts once, however many
+ * findings cover it: it is named when its right periods hold more hours than its wrong ones (a fault found in
+ * pieces would otherwise count once per piece, and a classifier that names long faults right and short ones wrong
+ * would look better than it is).
  */
 public final class DiagnosisScore {
 
@@ -31,14 +34,26 @@ public final class DiagnosisScore {
     }
 
     /**
-     * @param onFaults     periods that overlap an injected episode
-     * @param right        of those, diagnosed with the injected fault
-     * @param offFaults    periods that overlap none
-     * @param byFault      per injected fault: {right, periods}
+     * @param onFaults      periods that overlap an injected episode
+     * @param right         of those, diagnosed with the injected fault
+     * @param offFaults     periods that overlap none
+     * @param byFault       per injected fault: {right periods, periods, named episodes, episodes}
+     * @param episodes      injected episodes with at least one diagnosed period
+     * @param namedEpisodes of those, named (right periods hold more hours than wrong ones)
      */
-    public record Score(int onFaults, int right, int offFaults, Map<String, int[]> byFault) {
+    public record Score(int onFaults, int right, int offFaults, Map<String, int[]> byFault, int episodes,
+                        int namedEpisodes) {
         public String share() {
             return onFaults == 0 ? "n/a" : String.format(Locale.ROOT, "%.1f %%", 100.0 * right / onFaults);
+        }
+
+        public String episodeShare() {
+            return episodes == 0 ? "n/a" : String.format(Locale.ROOT, "%.1f %%", 100.0 * namedEpisodes / episodes);
+        }
+
+        /** Whether at least {@code share} of the episodes are named (false without any). */
+        public boolean episodesNamedAtLeast(double share) {
+            return episodes > 0 && namedEpisodes >= share * episodes;
         }
     }
 
@@ -50,6 +65,8 @@ public final class DiagnosisScore {
         int right = 0;
         int off = 0;
         Map<String, int[]> byFault = new TreeMap<>();
+        // Per episode: seconds of right and of wrong periods, in first-matched order.
+        Map<TruthEpisode, long[]> byEpisode = new java.util.LinkedHashMap<>();
         for (Diagnosed d : rows) {
             TruthEpisode best = TruthReview.mostOverlapping(d.unit(), d.start(), d.end(), truth);
             if (best == null) {
@@ -57,14 +74,26 @@ public final class DiagnosisScore {
                 continue;
             }
             on++;
-            int[] c = byFault.computeIfAbsent(best.fault(), k -> new int[2]);
+            int[] c = byFault.computeIfAbsent(best.fault(), k -> new int[4]);
             c[1]++;
-            if (best.fault().equals(d.cause())) {
+            boolean ok = best.fault().equals(d.cause());
+            if (ok) {
                 right++;
                 c[0]++;
             }
+            long seconds = Math.max(0, d.end().getEpochSecond() - d.start().getEpochSecond());
+            byEpisode.computeIfAbsent(best, k -> new long[2])[ok ? 0 : 1] += seconds;
         }
-        return new Score(on, right, off, byFault);
+        int named = 0;
+        for (Map.Entry<TruthEpisode, long[]> e : byEpisode.entrySet()) {
+            int[] c = byFault.get(e.getKey().fault());
+            c[3]++;
+            if (e.getValue()[0] > e.getValue()[1]) {
+                named++;
+                c[2]++;
+            }
+        }
+        return new Score(on, right, off, byFault, byEpisode.size(), named);
     }
 
     /** The rows of a diagnosis.csv or held_out.csv that tufa diagnose wrote (columns unit, start, end, diagnosed_cause). */
@@ -100,9 +129,11 @@ public final class DiagnosisScore {
     /** Console lines. */
     public static List<String> lines(String what, Score s) {
         List<String> lines = new ArrayList<>();
-        lines.add(String.format(Locale.ROOT, "%s: %d of %d period(s) on injected faults name the injected fault "
-                + "(%s); %d period(s) on no injected fault", what, s.right(), s.onFaults(), s.share(), s.offFaults()));
-        s.byFault().forEach((fault, c) -> lines.add(String.format(Locale.ROOT, "  %-30s %d/%d", fault, c[0], c[1])));
+        lines.add(String.format(Locale.ROOT, "%s: %d of %d injected episode(s) named (%s); %d of %d period(s) on "
+                + "injected faults name the injected fault (%s); %d period(s) on no injected fault", what,
+                s.namedEpisodes(), s.episodes(), s.episodeShare(), s.right(), s.onFaults(), s.share(), s.offFaults()));
+        s.byFault().forEach((fault, c) -> lines.add(String.format(Locale.ROOT,
+                "  %-30s episodes %d/%d, periods %d/%d", fault, c[2], c[3], c[0], c[1])));
         return lines;
     }
 }
