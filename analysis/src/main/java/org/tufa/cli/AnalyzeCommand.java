@@ -228,7 +228,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
         UnitSinks unitSinks = new UnitSinks(out.toAbsolutePath().toString(), zone, sampleFormat, !noReport);
         List<UnitSink> sinks = unitSinks.create();
         FleetAnalysis.UnitAnalyser analyser = engine == null ? null
-                : engine.analyser(input.files(), input.database() != null, unitSinks);
+                : engine.analyser(input.files(), input.forEngine(assessed.coverage(), dbLogin), unitSinks);
         FleetAnalysis.Result result = FleetAnalysis.run(assessed.coverage(), input.opener(assessed.coverage()), time,
                 settings, verdicts, threads, sinks, bar::update, analyser);
         CoverageFiles.write(assessed.coverage(), out);

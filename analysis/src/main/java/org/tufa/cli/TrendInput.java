@@ -48,12 +48,23 @@ record TrendInput(List<Path> files, HistorianSettings database, DatabaseLogin lo
         if (database == null) {
             return TrendStore.opener(files);
         }
+        Set<String> elsewhere = storedElsewhere(coverage);
+        return (wanted, ranges, options) -> HistorianSource.open(database, login, wanted, ranges, elsewhere, options);
+    }
+
+    /** The database as another engine reads it (null for trend files); {@code loginFile} as given, or null. */
+    DatabaseTrends forEngine(FleetCoverage coverage, Path loginFile) {
+        return database == null ? null : new DatabaseTrends(database,
+                loginFile == null ? null : loginFile.toAbsolutePath().toString(), storedElsewhere(coverage));
+    }
+
+    /** The series of this coverage's points that the model stores in another database. */
+    private Set<String> storedElsewhere(FleetCoverage coverage) {
         List<PointRef> points = new ArrayList<>();
         for (UnitCoverage u : coverage.units()) {
             u.roles().values().stream().map(RoleMatch::point).forEach(p -> p.ifPresent(points::add));
         }
-        Set<String> elsewhere = ModelDatabases.storedElsewhere(points, database.modelDatabase(), database.origin());
-        return (wanted, ranges, options) -> HistorianSource.open(database, login, wanted, ranges, elsewhere, options);
+        return ModelDatabases.storedElsewhere(points, database.modelDatabase(), database.origin());
     }
 
     /** What run.json records about the trends beyond the files' checksums: never a login. */

@@ -16,11 +16,11 @@ public interface UnitEngine {
      * The phase-1 analyser for one run.
      *
      * @param trendFiles the trend files and folders given (empty when the trends are in a database)
-     * @param database   whether the trends are in a database
+     * @param database   the database the trends are in, or null for trend files
      * @param sinks      what to write for each unit, wherever it is analysed
      * @throws org.tufa.common.InputException when this engine cannot run on these inputs
      */
-    FleetAnalysis.UnitAnalyser analyser(List<Path> trendFiles, boolean database, UnitSinks sinks);
+    FleetAnalysis.UnitAnalyser analyser(List<Path> trendFiles, DatabaseTrends database, UnitSinks sinks);
 
     /** What run.json records about the engine (its name, its settings). */
     Map<String, Object> parameters();

@@ -19,23 +19,30 @@ import org.tufa.analysis.trends.TimeOptions;
 import org.tufa.analysis.trends.TrendGrid;
 import org.tufa.analysis.trends.TrendSource;
 import org.tufa.analysis.trends.TrendStore;
+import org.tufa.analysis.trends.sql.HistorianSource;
+import org.tufa.cli.DatabaseTrends;
 import org.tufa.cli.UnitEngine;
 import org.tufa.cli.UnitSinks;
 import org.tufa.common.InputException;
 import picocli.CommandLine.Option;
 
 /**
- * Phase 1 of the fleet run (each unit's own analysis) as a Spark job. The driver has read the trends once, as
- * {@code tufa analyze} does, which fixes the grid and the ingest report; the units are cut, in run order, into
- * partitions of about equal numbers of analysed units; each task reads the trend files for its units' series only,
- * on the driver's grid ({@link TrendStore#ingest(List, Map, Map, TimeOptions, TrendGrid, Path)}), analyses them one
- * at a time with the library ({@link FleetAnalysis#analyse}), writes their per-unit files and returns what the
- * fleet keeps of each ({@link FleetAnalysis.Kept}: a summary and the evidence, a few kilobytes). The fleet decision
- * and phase 3 run on the driver, so the outputs are those of the local engine.
+ * Phase 1 of the fleet run (each unit's own analysis) as a Spark job. The driver has opened the trends, as
+ * {@code tufa analyze} does, which fixes the grid (and, for files, the ingest report); the units are cut, in run
+ * order, into partitions of about equal numbers of analysed units; each task reads its units' series only, on the
+ * driver's grid, from the trend files ({@link TrendStore#ingest(List, Map, Map, TimeOptions, TrendGrid, Path)}) or
+ * from the historian ({@link HistorianSource#open(org.tufa.analysis.trends.sql.HistorianSettings,
+ * org.tufa.analysis.trends.sql.DatabaseLogin, Map, Map, java.util.Set, TimeOptions, TrendGrid)}, with the counts of
+ * the rows it read sent back for the driver's ingest report), analyses them one at a time with the library
+ * ({@link FleetAnalysis#analyse}), writes their per-unit files and returns what the fleet keeps of each
+ * ({@link FleetAnalysis.Kept}: a summary and the evidence, a few kilobytes). The fleet decision and phase 3 run on
+ * the driver, so the outputs are those of the local engine.
  *
  * <p>An executor holds one unit's signals at a time, and its trend store spills to local disk, so its memory does
  * not grow with the units of its partition. The trend files and {@code --out} must be on a file system every
- * executor sees (a shared mount): the tasks read the one and write below the other.
+ * executor sees (a shared mount): the tasks read the one and write below the other. With a database, every
+ * executor connects to it itself, with the login it resolves from the same login file or environment variables:
+ * no password travels with the tasks.
  */
 final class SparkUnitEngine implements UnitEngine {
 
@@ -51,11 +58,7 @@ final class SparkUnitEngine implements UnitEngine {
     }
 
     @Override
-    public FleetAnalysis.UnitAnalyser analyser(List<Path> trendFiles, boolean database, UnitSinks sinks) {
-        if (database) {
-            throw new InputException("--trends: the Spark job reads trend files (CSV, long or wide, plain or gzip, "
-                    + "or folders of them); for trends in a database run tufa analyze");
-        }
+    public FleetAnalysis.UnitAnalyser analyser(List<Path> trendFiles, DatabaseTrends database, UnitSinks sinks) {
         if (partitions != null && partitions < 1) {
             throw new InputException("--partitions " + partitions + ": give 1 or more");
         }
@@ -69,7 +72,7 @@ final class SparkUnitEngine implements UnitEngine {
             List<PartResult> results;
             try {
                 results = sc.parallelize(parts, Math.max(1, parts.size()))
-                        .map(new AnalysePart(files, time, grid, settings, sinks)).collect();
+                        .map(new AnalysePart(files, database, time, grid, settings, sinks)).collect();
             } catch (Exception e) {
                 // Scala throws SparkException (checked) undeclared. Its message holds the remote stack trace: keep
                 // its first line.
@@ -82,9 +85,15 @@ final class SparkUnitEngine implements UnitEngine {
             List<FleetAnalysis.Kept> kept = new ArrayList<>(plan.units().size());
             for (PartResult r : results) {
                 if (r.error() != null) {
-                    // The driver read the same files without error: what failed is an executor's view of them.
-                    throw new InputException(r.error() + " (on a Spark executor: the trend files must be where "
-                            + "every executor can read them)");
+                    // The driver read the same trends without error: what failed is an executor's view of them.
+                    throw new InputException(r.error() + (database == null
+                            ? " (on a Spark executor: the trend files must be where every executor can read them)"
+                            : " (on a Spark executor: every executor must reach the database and find the login "
+                            + "file, or the TUFA_DB_USER and TUFA_DB_PASSWORD variables, as the driver does)"));
+                }
+                if (r.readCounts() != null && store instanceof HistorianSource source) {
+                    // The executors read the series; the run's ingest report is the driver's.
+                    source.addReadCounts(r.readCounts());
                 }
                 kept.addAll(r.kept());
                 for (StageTimes.Stage s : StageTimes.Stage.values()) {
@@ -161,19 +170,23 @@ final class SparkUnitEngine implements UnitEngine {
      * error of an input it could not read (passed back as text, so the driver prints it as {@code tufa analyze}
      * would).
      */
-    record PartResult(List<FleetAnalysis.Kept> kept, long[] nanos, String error) implements Serializable {
+    record PartResult(List<FleetAnalysis.Kept> kept, long[] nanos, HistorianSource.ReadCounts readCounts,
+                      String error) implements Serializable {
     }
 
     /** The task: phase 1 for the units of one part. */
     static final class AnalysePart implements Function<FleetPlan, PartResult> {
         private final List<String> files;
+        private final DatabaseTrends database;
         private final TimeOptions time;
         private final TrendGrid grid;
         private final AnalysisSettings settings;
         private final UnitSinks sinks;
 
-        AnalysePart(List<String> files, TimeOptions time, TrendGrid grid, AnalysisSettings settings, UnitSinks sinks) {
+        AnalysePart(List<String> files, DatabaseTrends database, TimeOptions time, TrendGrid grid,
+                    AnalysisSettings settings, UnitSinks sinks) {
             this.files = List.copyOf(files);
+            this.database = database;
             this.time = time;
             this.grid = grid;
             this.settings = settings;
@@ -185,27 +198,42 @@ final class SparkUnitEngine implements UnitEngine {
             StageTimes times = new StageTimes();
             List<UnitSink> unitSinks = sinks.create();
             List<FleetAnalysis.Kept> kept = new ArrayList<>();
+            HistorianSource.ReadCounts counts = null;
             try (TrendSource store = open(part, times)) {
                 for (FleetPlan.Unit u : part.units()) {
                     // The sinks' phase-1 state (the charts drawn) goes back with the unit: the driver writes phase 2.
                     kept.add(FleetAnalysis.analyse(u, store, settings, unitSinks, times).carried(unitSinks));
                 }
+                if (store instanceof HistorianSource source) {
+                    counts = source.readCounts();
+                }
             } catch (InputException e) {
-                return new PartResult(List.of(), new long[StageTimes.Stage.values().length], e.getMessage());
+                return new PartResult(List.of(), new long[StageTimes.Stage.values().length], null, e.getMessage());
             }
             long[] nanos = new long[StageTimes.Stage.values().length];
             for (StageTimes.Stage s : StageTimes.Stage.values()) {
                 nanos[s.ordinal()] = Math.round(times.seconds(s) * 1e9);
             }
-            return new PartResult(kept, nanos, null);
+            return new PartResult(kept, nanos, counts, null);
         }
 
-        /** This part's series on the run's grid; a source of nothing when the part has no analysed unit. */
+        /**
+         * This part's series on the run's grid, from the trend files or the database; a source of nothing when the
+         * part has no analysed unit.
+         */
         private TrendSource open(FleetPlan part, StageTimes times) {
             long t0 = System.nanoTime();
-            List<Path> paths = files.stream().map(Path::of).toList();
-            TrendStore store = part.wanted().isEmpty() ? null : TrendStore.ingest(paths, part.wanted(),
-                    part.ranges(), time, grid, Path.of(System.getProperty("java.io.tmpdir")));
+            TrendSource store;
+            if (part.wanted().isEmpty()) {
+                store = null;
+            } else if (database != null) {
+                store = HistorianSource.open(database.settings(), database.login(), part.wanted(), part.ranges(),
+                        database.storedElsewhere(), time, grid);
+            } else {
+                List<Path> paths = files.stream().map(Path::of).toList();
+                store = TrendStore.ingest(paths, part.wanted(), part.ranges(), time, grid,
+                        Path.of(System.getProperty("java.io.tmpdir")));
+            }
             times.add(StageTimes.Stage.READ, System.nanoTime() - t0);
             return store;
         }

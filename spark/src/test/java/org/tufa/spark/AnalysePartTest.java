@@ -33,7 +33,7 @@ class AnalysePartTest {
         UnitInputs in = new UnitInputs("u", "u", "fan_coil", Map.of("zone_air_temperature", zat), FanSignal.NONE, 0.1, false);
         FleetPlan part = new FleetPlan(List.of(new FleetPlan.Unit(in, "u", null)), Map.of("u-zat", SeriesKind.ANALOG),
                 Map.of());
-        SparkUnitEngine.AnalysePart task = new SparkUnitEngine.AnalysePart(List.of(missing.toString()),
+        SparkUnitEngine.AnalysePart task = new SparkUnitEngine.AnalysePart(List.of(missing.toString()), null,
                 TimeOptions.defaults(ZoneOffset.UTC), new TrendGrid(0, 900, 96), AnalysisSettings.defaults(),
                 new UnitSinks(dir.resolve("out").toString(), ZoneOffset.UTC, SampleFormat.PARQUET, false));
         SparkUnitEngine.PartResult r = task.call(part);

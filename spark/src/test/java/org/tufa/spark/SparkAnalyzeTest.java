@@ -151,7 +151,7 @@ class SparkAnalyzeTest {
                 "--out", out.toString());
         assertEquals(1, database.code(), database.err());
         assertEquals(1, database.err().strip().lines().count(), database.err());
-        assertTrue(database.err().contains("the Spark job reads trend files"), database.err());
+        assertTrue(database.err().contains("localhost:1"), database.err());
         Run unknown = spark(analyzeArgs(out, "--no-such-option"));
         assertEquals(2, unknown.code(), "usage error");
         assertEquals(1, unknown.err().strip().lines().count(), unknown.err());

@@ -35,7 +35,8 @@ import org.tufa.common.InputException;
  * @param origin where the settings came from (the file, or "defaults"), for messages
  */
 public record HistorianSettings(String url, Layout layout, String table, String seriesColumn, String timeColumn,
-                                String valueColumn, String modelDatabase, String origin) {
+                                String valueColumn, String modelDatabase, String origin)
+        implements java.io.Serializable {
 
     /** How series map to tables. */
     public enum Layout {

@@ -98,7 +98,33 @@ public final class HistorianSource implements TrendSource {
      */
     private record SeriesTally(long rows, long kept, long outside, long empty, long nonFinite, long implausible,
                                long duplicates, long conflicts, long first, long last, long firstStamp,
-                               long lastStamp, long dstFirst, long dstSecond, long dstSkipped, List<String> examples) {
+                               long lastStamp, long dstFirst, long dstSecond, long dstSkipped, List<String> examples)
+            implements java.io.Serializable {
+    }
+
+    /**
+     * What the series read so far gave (their rows in the buckets of {@link FileReport}), to be added to another
+     * source's {@link #report}: the workers of a distributed run read the series, the driver reports them.
+     */
+    public static final class ReadCounts implements java.io.Serializable {
+        private final TreeMap<String, SeriesTally> bySeries;
+
+        private ReadCounts(Map<String, SeriesTally> bySeries) {
+            this.bySeries = new TreeMap<>(bySeries);
+        }
+    }
+
+    /** The counts of the series this source has read. */
+    public ReadCounts readCounts() {
+        return new ReadCounts(tallies);
+    }
+
+    /**
+     * Counts series read by another source on the same database and grid as read here; a series counted already
+     * (one shared by units read in two places) keeps its first counts, as a second read here would.
+     */
+    public void addReadCounts(ReadCounts counts) {
+        counts.bySeries.forEach(tallies::putIfAbsent);
     }
 
     private HistorianSource(HistorianSettings settings, DatabaseLogin login, TimeOptions options,
@@ -127,6 +153,16 @@ public final class HistorianSource implements TrendSource {
     public static HistorianSource open(HistorianSettings settings, DatabaseLogin login, Map<String, SeriesKind> wanted,
                                        Map<String, PlausibleRange> ranges, Set<String> storedElsewhere,
                                        TimeOptions options) {
+        return open(settings, login, wanted, ranges, storedElsewhere, options, null);
+    }
+
+    /**
+     * As {@link #open(HistorianSettings, DatabaseLogin, Map, Map, Set, TimeOptions)}, on a grid placed already
+     * (null: place it here): a worker of a distributed run reads its units' series on the grid of the whole run.
+     */
+    public static HistorianSource open(HistorianSettings settings, DatabaseLogin login, Map<String, SeriesKind> wanted,
+                                       Map<String, PlausibleRange> ranges, Set<String> storedElsewhere,
+                                       TimeOptions options, TrendGrid placedGrid) {
         Map<String, SeriesKind> asked = new TreeMap<>(wanted);
         asked.keySet().removeAll(storedElsewhere);
         Connection first = connect(settings, login);
@@ -168,7 +204,8 @@ public final class HistorianSource implements TrendSource {
             }
             HistorianSource source = new HistorianSource(settings, login, options, asked, ranges, tables, columns,
                     null);
-            TrendGrid grid = options.from() != null && options.to() != null
+            TrendGrid grid = placedGrid != null ? placedGrid
+                    : options.from() != null && options.to() != null
                     ? TrendGrid.of(options, Long.MAX_VALUE, Long.MIN_VALUE)
                     : source.spanGrid(first);
             HistorianSource placed = new HistorianSource(settings, login, options, asked, ranges, tables, columns,
