@@ -85,7 +85,7 @@ final class SparkUnitEngine implements UnitEngine {
             List<FleetAnalysis.Kept> kept = new ArrayList<>(plan.units().size());
             for (PartResult r : results) {
                 if (r.error() != null) {
-                    // The driver read the same trends without error: what failed is an executor's view of them.
+                    // The driver opened the same trends without error: what failed is an executor's view of them.
                     throw new InputException(r.error() + (database == null
                             ? " (on a Spark executor: the trend files must be where every executor can read them)"
                             : " (on a Spark executor: every executor must reach the database and find the login "
