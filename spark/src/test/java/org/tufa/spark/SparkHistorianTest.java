@@ -4,26 +4,19 @@ import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
-import static org.junit.jupiter.api.Assertions.fail;
 
 import java.io.InputStream;
 import java.io.Reader;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.sql.Connection;
-import java.sql.DriverManager;
 import java.sql.SQLException;
-import java.sql.Statement;
 import java.time.LocalDate;
 import java.util.List;
-import java.util.Locale;
-import java.util.Properties;
 import java.util.Set;
 import org.apache.jena.rdf.model.Model;
 import org.apache.jena.riot.RDFDataMgr;
 import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.Assumptions;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
@@ -35,6 +28,7 @@ import org.tufa.analysis.simulate.DemoTrends;
 import org.tufa.analysis.simulate.Season;
 import org.tufa.analysis.simulate.SimulationPlan;
 import org.tufa.analysis.simulate.Simulator;
+import org.tufa.analysis.trends.sql.TestDatabase;
 import org.tufa.cli.DemoCommand;
 
 /**
@@ -42,15 +36,12 @@ import org.tufa.cli.DemoCommand;
  * loaded into a long table, analysed by {@code tufa analyze --trends jdbc:postgresql://...} (the local engine,
  * itself checked byte for byte against the same data as CSV in the analysis module's {@code HistorianCommandTest})
  * and by the job on {@code local[2]}: the fleet files must be the same bytes, and run.json the same but for the
- * engine (its ingest counts come from the executors' reads). The server is the one {@code .ci/postgres.sh start}
- * runs (127.0.0.1:54329) or the one TUFA_TEST_PG_URL, TUFA_TEST_PG_USER and TUFA_TEST_PG_PASSWORD name; without
- * one the test is skipped with a message, except in CI (CI=true), where it fails.
+ * engine (its ingest counts come from the executors' reads). The server is the historian tests' ({@link
+ * TestDatabase}): skipped with a message without one, except in CI, where it fails.
  */
 class SparkHistorianTest {
 
-    static Connection admin;
-    static String schema;
-    static String url;
+    static TestDatabase db;
     static Path model;
     static Path login;
     static Path local;
@@ -58,28 +49,7 @@ class SparkHistorianTest {
 
     @BeforeAll
     static void loadTheHistorianAndRunTheLocalEngine(@TempDir Path dir) throws Exception {
-        String base = env("TUFA_TEST_PG_URL", "jdbc:postgresql://127.0.0.1:54329/tufa_test");
-        String user = env("TUFA_TEST_PG_USER", "tufa_test");
-        String password = env("TUFA_TEST_PG_PASSWORD", "tufa-test-only");
-        Properties p = new Properties();
-        p.setProperty("user", user);
-        p.setProperty("password", password);
-        p.setProperty("connectTimeout", "5");
-        try {
-            admin = DriverManager.getConnection(base, p);
-        } catch (SQLException e) {
-            String why = "no PostgreSQL server at " + base + "; start one with .ci/postgres.sh start";
-            if ("true".equalsIgnoreCase(System.getenv("CI"))) {
-                fail("CI must run the Spark historian test: " + why);
-            }
-            Assumptions.abort("Spark historian test skipped: " + why);
-        }
-        schema = String.format(Locale.ROOT, "tufa_spark_%d", ProcessHandle.current().pid());
-        execute("DROP SCHEMA IF EXISTS " + schema + " CASCADE");
-        execute("CREATE SCHEMA " + schema);
-        execute("SET search_path TO " + schema);
-        url = base + (base.contains("?") ? "&" : "?") + "currentSchema=" + schema;
-
+        db = TestDatabase.connectOrSkip("Spark historian test");
         Path input = Files.createDirectories(dir.resolve("input"));
         for (String name : List.of("points.csv", "rules.tufa")) {
             try (InputStream in = DemoCommand.class.getClassLoader().getResourceAsStream("org/tufa/demo/" + name)) {
@@ -97,38 +67,23 @@ class SparkHistorianTest {
         Path trends = dir.resolve("trends.csv");
         DemoTrends.writeLong(trends, Simulator.run(new SimulationPlan(targets.units(), targets.building(), season,
                 2031L, List.of())));
-        execute("CREATE TABLE trend_samples (series_id text, ts timestamptz, value double precision)");
+        db.execute("CREATE TABLE trend_samples (series_id text, ts timestamptz, value double precision)");
         try (Reader in = Files.newBufferedReader(trends, StandardCharsets.UTF_8)) {
-            admin.unwrap(PGConnection.class).getCopyAPI().copyIn(
+            db.admin().unwrap(PGConnection.class).getCopyAPI().copyIn(
                     "COPY trend_samples (ts, series_id, value) FROM STDIN WITH (FORMAT csv, HEADER true)", in);
         }
-        execute("CREATE INDEX ON trend_samples (series_id, ts)");
+        db.execute("CREATE INDEX ON trend_samples (series_id, ts)");
         login = dir.resolve("login.properties");
-        Files.writeString(login, "user = " + user + "\npassword = " + password + "\n");
+        Files.writeString(login, "user = " + db.user + "\npassword = " + db.password + "\n");
         local = dir.resolve("local");
         SparkAnalyzeTest.Run r = SparkAnalyzeTest.tufa(analyzeArgs(local, "analyze", "--threads", "2"));
         assertEquals(0, r.code(), r.err());
     }
 
-    private static String env(String name, String fallback) {
-        String value = System.getenv(name);
-        return value == null || value.isBlank() ? fallback : value;
-    }
-
-    private static void execute(String sql) throws SQLException {
-        try (Statement s = admin.createStatement()) {
-            s.execute(sql);
-        }
-    }
-
     @AfterAll
     static void dropTheSchema() throws SQLException {
-        if (admin != null) {
-            try {
-                execute("DROP SCHEMA IF EXISTS " + schema + " CASCADE");
-            } finally {
-                admin.close();
-            }
+        if (db != null) {
+            db.close();
         }
     }
 
@@ -138,7 +93,7 @@ class SparkHistorianTest {
         if (!first.isEmpty()) {
             a.add(first);
         }
-        a.addAll(List.of("--model", model.toString(), "--trends", url, "--db-login", login.toString(),
+        a.addAll(List.of("--model", model.toString(), "--trends", db.schemaUrl(), "--db-login", login.toString(),
                 "--out", out.toString(), "--timezone", ZONE, "--no-report"));
         a.addAll(List.of(more));
         return a.toArray(String[]::new);
@@ -158,8 +113,7 @@ class SparkHistorianTest {
         String localRun = Files.readString(local.resolve("run.json"), StandardCharsets.UTF_8);
         assertEquals(withoutEngine(localRun), withoutEngine(sparkRun.replace(out.toString(), local.toString())));
         assertTrue(sparkRun.contains("\"engine\": \"spark\""), sparkRun);
-        assertFalse(sparkRun.contains("password") || sparkRun.contains(env("TUFA_TEST_PG_PASSWORD",
-                "tufa-test-only")), "no login in run.json");
+        assertFalse(sparkRun.contains("password") || sparkRun.contains(db.password), "no login in run.json");
     }
 
     private static String withoutEngine(String runJson) {
