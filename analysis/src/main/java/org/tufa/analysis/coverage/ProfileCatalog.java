@@ -267,6 +267,8 @@ public final class ProfileCatalog {
         }
         List<Role> evidence = roles(m, p, "evidenceRole", rolesByIri, where);
         used.addAll(evidence);
+        // Read where present, never a requirement: found in coverage, never listed as missing.
+        used.addAll(roles(m, p, "readsWhenPresent", rolesByIri, where));
         List<Role> roles = new ArrayList<>(used);
         roles.sort(ROLE_ORDER);
         return new Profile(name, p.getURI(), description, kind, iris(m, p, "appliesTo"), onRequest, specificity,

@@ -27,6 +27,8 @@ public final class UnitSignals {
     public static final String HEATING_VALVE_COMMAND = "heating_valve_command";
     /** The fan status or speed, held as a running fraction 0..1. */
     public static final String FAN_STATUS = "fan_status";
+    /** The speed of a multi-speed fan (stage number or percent), as the point reports it: only its stages are read. */
+    public static final String FAN_SPEED = "fan_speed";
     public static final String ZONE_TEMPERATURE_SETPOINT = "zone_temperature_setpoint";
     public static final String ZONE_COOLING_TEMPERATURE_SETPOINT = "zone_cooling_temperature_setpoint";
     public static final String ZONE_HEATING_TEMPERATURE_SETPOINT = "zone_heating_temperature_setpoint";
@@ -180,6 +182,17 @@ public final class UnitSignals {
     /** Fan running fraction 0..1. */
     public double[] fanFraction() {
         return series(FAN_STATUS);
+    }
+
+    /**
+     * The fan's speed where the unit reports one: its fan speed point, else the fan signal itself when that is a
+     * speed; null when the unit has neither.
+     */
+    public double[] fanSpeed() {
+        if (present(series(FAN_SPEED))) {
+            return series(FAN_SPEED);
+        }
+        return fanSignal == FanSignal.SPEED && present(fanFraction()) ? fanFraction() : null;
     }
 
     public double[] zoneSetpoint() {

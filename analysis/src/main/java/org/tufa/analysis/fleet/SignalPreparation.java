@@ -54,14 +54,14 @@ public final class SignalPreparation {
                 case FAN -> fan(inputs, source, length, notes);
                 case AIRFLOW -> airflow(inputs, role, source, length, notes);
                 case PRESSURE -> pressure(inputs, role, source, length, notes);
-                case FRACTION -> raw(inputs, role, source, length, notes);
+                case FRACTION, AS_REPORTED -> raw(inputs, role, source, length, notes);
             });
         }
         return new Prepared(b.build(), notes);
     }
 
     /** What a role measures, which sets its canonical unit. */
-    enum Quantity { ZONE_TEMPERATURE, TEMPERATURE, COMMAND, FAN, AIRFLOW, PRESSURE, FRACTION }
+    enum Quantity { ZONE_TEMPERATURE, TEMPERATURE, COMMAND, FAN, AIRFLOW, PRESSURE, FRACTION, AS_REPORTED }
 
     static Quantity quantityOf(String role) {
         return switch (role) {
@@ -73,6 +73,7 @@ public final class SignalPreparation {
             case UnitSignals.AIRFLOW, UnitSignals.AIRFLOW_SETPOINT -> Quantity.AIRFLOW;
             case UnitSignals.AHU_SUPPLY_STATIC_PRESSURE -> Quantity.PRESSURE;
             case UnitSignals.OCCUPANCY -> Quantity.FRACTION;
+            case UnitSignals.FAN_SPEED -> Quantity.AS_REPORTED;
             default -> Quantity.TEMPERATURE;
         };
     }

@@ -37,6 +37,7 @@ class CoverageTest {
               cooling_valve_command=FCU101_CHWV_Cmd@part
               heating_valve_command=FCU101_HWV_Cmd@part
               fan_status=FCU101_FanSts@unit
+              fan_speed=-
               chilled_water_supply_temperature=CHW_Loop_SupplyTemp@upstream
               hot_water_supply_temperature=HW_Loop_SupplyTemp@upstream
               outdoor_air_temperature=QH_OAT@building
@@ -50,6 +51,7 @@ class CoverageTest {
               cooling_valve_command=FCU102_CLG@unit
               heating_valve_command=FCU102_HTG@unit
               fan_status=FCU102_Fan_OnOff@part
+              fan_speed=-
               chilled_water_supply_temperature=CHW_Loop_SupplyTemp@upstream
               hot_water_supply_temperature=HW_Loop_SupplyTemp@upstream
               outdoor_air_temperature=QH_OAT@building
@@ -63,6 +65,7 @@ class CoverageTest {
               cooling_valve_command=FCU103_CV_Cmd@part
               heating_valve_command=-
               fan_status=FCU103_FanSpd@unit
+              fan_speed=FCU103_FanSpd@unit
               chilled_water_supply_temperature=CHW_Loop_SupplyTemp@upstream
               hot_water_supply_temperature=-
               outdoor_air_temperature=QH_OAT@building
@@ -76,6 +79,7 @@ class CoverageTest {
               cooling_valve_command=-
               heating_valve_command=-
               fan_status=-
+              fan_speed=-
               chilled_water_supply_temperature=CHW_Loop_SupplyTemp@upstream
               hot_water_supply_temperature=-
               outdoor_air_temperature=QH_OAT@building
@@ -89,6 +93,7 @@ class CoverageTest {
               cooling_valve_command=FCU105_CHWV_Cmd@part
               heating_valve_command=-
               fan_status=-
+              fan_speed=-
               chilled_water_supply_temperature=CHW_Loop_SupplyTemp@upstream
               hot_water_supply_temperature=-
               outdoor_air_temperature=QH_OAT@building
@@ -267,7 +272,7 @@ class CoverageTest {
         List<String> lines = CoverageFiles.csv(c).lines().toList();
         assertEquals("unit,label,unit_class,profile,unit_kind,discharge_air_temperature,zone_air_temperature,"
                 + "zone_temperature_setpoint,zone_cooling_temperature_setpoint,zone_heating_temperature_setpoint,"
-                + "cooling_valve_command,heating_valve_command,fan_status,chilled_water_supply_temperature,"
+                + "cooling_valve_command,heating_valve_command,fan_status,fan_speed,chilled_water_supply_temperature,"
                 + "hot_water_supply_temperature,outdoor_air_temperature,occupancy,analyzable,missing,"
                 + "cooling_analyzable,heating_analyzable,nominal_airflow_m3s", lines.get(0));
         assertEquals(7, lines.size());

@@ -88,7 +88,7 @@ class TufaTermsAgainstBrickTest {
         ProfileCatalog catalog = Vocabulary.standard().profiles();
         assertEquals(new TreeSet<>(List.of("discharge_air_temperature", "zone_air_temperature",
                 "zone_temperature_setpoint", "zone_cooling_temperature_setpoint", "zone_heating_temperature_setpoint",
-                "cooling_valve_command", "heating_valve_command", "fan_status",
+                "cooling_valve_command", "heating_valve_command", "fan_status", "fan_speed",
                 "chilled_water_supply_temperature", "hot_water_supply_temperature", "outdoor_air_temperature",
                 "occupancy", "airflow", "airflow_setpoint", "damper_position", "damper_command", "reheat_valve_command",
                 "electric_reheat_command", "ahu_supply_air_temperature", "ahu_supply_static_pressure")),

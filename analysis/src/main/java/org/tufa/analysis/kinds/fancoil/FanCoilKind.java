@@ -47,8 +47,8 @@ public final class FanCoilKind implements UnitKind {
     /** Roles the fan coil analysis reads, in the order their series are prepared. */
     public static final List<String> ROLES = List.of(
             UnitSignals.ZONE_AIR_TEMPERATURE, UnitSignals.DISCHARGE_AIR_TEMPERATURE, UnitSignals.COOLING_VALVE_COMMAND,
-            UnitSignals.HEATING_VALVE_COMMAND, UnitSignals.FAN_STATUS, UnitSignals.ZONE_TEMPERATURE_SETPOINT,
-            UnitSignals.CHILLED_WATER_SUPPLY_TEMPERATURE, UnitSignals.HOT_WATER_SUPPLY_TEMPERATURE,
+            UnitSignals.HEATING_VALVE_COMMAND, UnitSignals.FAN_STATUS, UnitSignals.FAN_SPEED,
+            UnitSignals.ZONE_TEMPERATURE_SETPOINT, UnitSignals.CHILLED_WATER_SUPPLY_TEMPERATURE, UnitSignals.HOT_WATER_SUPPLY_TEMPERATURE,
             UnitSignals.OUTDOOR_AIR_TEMPERATURE);
 
     private FanCoilKind() {
