@@ -66,8 +66,12 @@ public record FleetPlan(List<Unit> units, Map<String, SeriesKind> wanted, Map<St
             units.add(new Unit(in, names.next(u.unit()), reason));
             if (reason == null) {
                 wanted.putAll(in.seriesKinds());
-                in.points().values().forEach(p -> PlausibleRange.forUnit(p.unitOfMeasureIri())
-                        .ifPresent(r -> ranges.putIfAbsent(p.timeseriesId(), r)));
+                in.points().forEach((role, p) -> {
+                    if (in.hasPlausibleRange(role)) {
+                        PlausibleRange.forUnit(p.unitOfMeasureIri())
+                                .ifPresent(r -> ranges.putIfAbsent(p.timeseriesId(), r));
+                    }
+                });
             }
         }
         return new FleetPlan(units, wanted, ranges);

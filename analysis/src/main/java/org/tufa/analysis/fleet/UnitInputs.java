@@ -5,6 +5,7 @@ import java.util.Map;
 import java.util.Optional;
 import org.tufa.analysis.coverage.PointRef;
 import org.tufa.analysis.coverage.UnitCoverage;
+import org.tufa.analysis.features.UnitSignals;
 import org.tufa.analysis.kinds.UnitKind;
 import org.tufa.analysis.kinds.UnitKinds;
 import org.tufa.analysis.modes.FanSignal;
@@ -49,6 +50,14 @@ public record UnitInputs(String unit, String label, String unitKind, Map<String,
         points.forEach((role, p) -> kinds.put(p.timeseriesId(),
                 role.equals("fan_status") && fanSignal == FanSignal.STATUS ? SeriesKind.BINARY : SeriesKind.ANALOG));
         return kinds;
+    }
+
+    /**
+     * Whether a role's values are checked against the plausible range of their unit. Not a fan's speed: a stage
+     * number 0-3 is logged unitless, and a fraction's range (at most 2) would drop the top stages as logging errors.
+     */
+    public boolean hasPlausibleRange(String role) {
+        return !role.equals(UnitSignals.FAN_SPEED) && !(role.equals(UnitSignals.FAN_STATUS) && fanSignal == FanSignal.SPEED);
     }
 
     private static boolean isSpeed(PointRef p) {
