@@ -26,10 +26,21 @@ import java.util.Arrays;
  * full opening the curve bends toward them, so the fault's residual shrinks (it still passes the gate) and healthy
  * samples near full opening pick up a positive residual ({@code CoilResponseFitTest} measures it).
  *
+ * <p>A multi-speed fan moves less air at its lower stages, and a coil passing less air changes its temperature
+ * more: the effectiveness rises as the heat capacity rate of the air falls (the effectiveness-NTU relations of
+ * Kays and London, Compact Heat Exchangers, 3rd ed., 1984; ASHRAE Handbook Fundamentals, ch. 4). Staged fans
+ * step up with the load, so one curve in the valve opening alone jumps where the stage changes, and the samples
+ * of each stage sit on either side of it: normal operation then splits by fan stage into clusters that look like
+ * too little or too much airflow. When the samples' fan stages are given, each stage but the first gets an offset
+ * on the shared curve, learnt from days on which both it and the stage below ran ({@link FanStages} finds the
+ * stages; {@link #fit(double[], double[], double[], int[], int, int[])} says why within days).
+ *
  * @param coefficients         c0, c1, c2 of the response against the valve fraction (0..1)
  * @param usesWaterTemperature whether the response is an effectiveness against the supply-water temperature
+ * @param stageOffsets         per fan stage, what the response adds to the curve (0 for the first stage); empty
+ *                             without stages
  */
-public record CoilResponse(double[] coefficients, boolean usesWaterTemperature) {
+public record CoilResponse(double[] coefficients, boolean usesWaterTemperature, double[] stageOffsets) {
 
     /** Huber's tuning constant for 95 % efficiency at the normal distribution (Holland and Welsch 1977). */
     private static final double HUBER_K = 1.345;
@@ -38,11 +49,22 @@ public record CoilResponse(double[] coefficients, boolean usesWaterTemperature) 
 
     public CoilResponse {
         coefficients = coefficients.clone();
+        stageOffsets = stageOffsets.clone();
+    }
+
+    /** A response without fan stages. */
+    public CoilResponse(double[] coefficients, boolean usesWaterTemperature) {
+        this(coefficients, usesWaterTemperature, new double[0]);
     }
 
     @Override
     public double[] coefficients() {
         return coefficients.clone();
+    }
+
+    @Override
+    public double[] stageOffsets() {
+        return stageOffsets.clone();
     }
 
     /**
@@ -55,10 +77,35 @@ public record CoilResponse(double[] coefficients, boolean usesWaterTemperature) 
      *                     (zone - chilled water, hot water - zone), or null when the water temperature is unknown
      */
     public static CoilResponse fit(double[] valvePercent, double[] airDeltaT, double[] waterDeltaT) {
+        return fit(valvePercent, airDeltaT, waterDeltaT, null, 0, null);
+    }
+
+    /**
+     * Learns the response with an offset per fan stage, the offsets from contrasts inside a block of time.
+     *
+     * <p>Why inside blocks: a fault that costs capacity (a leaking heating valve, a fouled coil) raises the load, so
+     * a staged fan runs at its higher stages more while the fault lasts, and the high stage's samples can be mostly
+     * faulty. An offset fitted to all of a stage's samples would then learn the fault. Within one day, though, a
+     * fault acts on every stage that runs, so what separates two stages on the same day is the stage effect
+     * whatever the day's condition. The offsets are therefore the coefficients of the stage indicators in a model
+     * with one level per day (fixed day effects), see {@link StageContrasts}. The day levels are not kept: the
+     * curve itself is then the robust monotone fit of the responses less their stage's offset, so a fault still
+     * leaves its residual. A stage that shares fewer than {@link #MIN_STAGE_DAYS} days with another stage has no
+     * within-day contrast and keeps offset 0 (it is judged on the first stage's curve).
+     *
+     * @param stage  per sample, its fan stage 0..stages-1 (-1 or out of range: stage 0), or null for none
+     * @param stages the number of stages; below 2 the fit is the one without stages
+     * @param block  per sample, its block of time (a day number), or null for none (then no stage offsets)
+     */
+    public static CoilResponse fit(double[] valvePercent, double[] airDeltaT, double[] waterDeltaT, int[] stage,
+                                   int stages, int[] block) {
         boolean useWater = waterDeltaT != null;
         int n = valvePercent.length;
+        int levels = stage == null || block == null || stages < 2 ? 1 : stages;
         double[] v = new double[n];
         double[] y = new double[n];
+        int[] g = new int[n];
+        int[] day = new int[n];
         int m = 0;
         for (int i = 0; i < n; i++) {
             double r = response(airDeltaT[i], useWater ? waterDeltaT[i] : Double.NaN, useWater);
@@ -66,12 +113,33 @@ public record CoilResponse(double[] coefficients, boolean usesWaterTemperature) 
                 continue;
             }
             v[m] = Math.min(1.0, Math.max(0.0, valvePercent[i] / 100.0));
+            g[m] = levels == 1 || stage[i] < 0 || stage[i] >= levels ? 0 : stage[i];
+            day[m] = levels == 1 ? 0 : block[i];
             y[m++] = r;
         }
         v = Arrays.copyOf(v, m);
         y = Arrays.copyOf(y, m);
+        if (levels == 1) {
+            return new CoilResponse(robustCurve(v, y), useWater, new double[0]);
+        }
+        g = Arrays.copyOf(g, m);
+        day = Arrays.copyOf(day, m);
+        double[] offsets = StageContrasts.offsets(v, y, g, day, levels, MIN_STAGE_DAYS);
+        double[] adjusted = new double[m];
+        for (int i = 0; i < m; i++) {
+            adjusted[i] = y[i] - offsets[g[i]];
+        }
+        return new CoilResponse(robustCurve(v, adjusted), useWater, offsets);
+    }
+
+    /** Days a stage must share with another stage for its offset to be learnt. */
+    public static final int MIN_STAGE_DAYS = 3;
+
+    /** The robust, monotone quadratic of the responses against the valve fraction (Huber IRLS, see the class). */
+    private static double[] robustCurve(double[] v, double[] y) {
+        int m = v.length;
         if (m < 3) {
-            return new CoilResponse(new double[] {m == 0 ? 0 : median(y), 0, 0}, useWater);
+            return new double[] {m == 0 ? 0 : median(y), 0, 0};
         }
         double[] c = startFromBandMedians(v, y);
         double[] w = new double[m];
@@ -94,7 +162,7 @@ public record CoilResponse(double[] coefficients, boolean usesWaterTemperature) 
             }
             c = next;
         }
-        return new CoilResponse(c, useWater);
+        return c;
     }
 
     /**
@@ -102,10 +170,17 @@ public record CoilResponse(double[] coefficients, boolean usesWaterTemperature) 
      * valve opening. Negative = the coil did less than usual (warm discharge in cooling), positive = more.
      */
     public double residual(double valvePercent, double airDeltaT, double waterDeltaT) {
+        return residual(valvePercent, airDeltaT, waterDeltaT, 0);
+    }
+
+    /** The residual of a sample at the given fan stage (0 when the response has no stages). */
+    public double residual(double valvePercent, double airDeltaT, double waterDeltaT, int stage) {
         if (Double.isNaN(valvePercent) || Double.isNaN(airDeltaT)) {
             return Double.NaN;
         }
-        double expected = eval(coefficients, Math.min(1.0, Math.max(0.0, valvePercent / 100.0)));
+        double offset = stageOffsets.length == 0 ? 0
+                : stageOffsets[Math.max(0, Math.min(stageOffsets.length - 1, stage))];
+        double expected = eval(coefficients, Math.min(1.0, Math.max(0.0, valvePercent / 100.0))) + offset;
         if (usesWaterTemperature) {
             if (Double.isNaN(waterDeltaT)) {
                 return Double.NaN;
@@ -182,6 +257,41 @@ public record CoilResponse(double[] coefficients, boolean usesWaterTemperature) 
         return rises ? constrained : constant(y, w);
     }
 
+    /**
+     * Solves the augmented system {@code a} (k x k+1, overwritten) by Gauss-Jordan elimination with partial
+     * pivoting; null when a pivot is below 1e-12 (singular).
+     */
+    static double[] solve(double[][] a) {
+        int k = a.length;
+        for (int col = 0; col < k; col++) {
+            int pivot = col;
+            for (int r = col + 1; r < k; r++) {
+                if (Math.abs(a[r][col]) > Math.abs(a[pivot][col])) {
+                    pivot = r;
+                }
+            }
+            if (Math.abs(a[pivot][col]) < 1e-12) {
+                return null;
+            }
+            double[] t = a[col];
+            a[col] = a[pivot];
+            a[pivot] = t;
+            for (int r = 0; r < k; r++) {
+                if (r != col) {
+                    double f = a[r][col] / a[col][col];
+                    for (int s = col; s <= k; s++) {
+                        a[r][s] -= f * a[col][s];
+                    }
+                }
+            }
+        }
+        double[] b = new double[k];
+        for (int r = 0; r < k; r++) {
+            b[r] = a[r][k] / a[r][r];
+        }
+        return b;
+    }
+
     /** Weighted least squares for y = a + b z, or null when z does not vary. */
     private static double[] weightedLine(double[] z, double[] y, double[] w) {
         double sw = 0;
@@ -225,31 +335,9 @@ public record CoilResponse(double[] coefficients, boolean usesWaterTemperature) 
                 a[r][3] += w[i] * x[r] * y[i];
             }
         }
-        // Gaussian elimination with partial pivoting.
-        for (int col = 0; col < 3; col++) {
-            int pivot = col;
-            for (int r = col + 1; r < 3; r++) {
-                if (Math.abs(a[r][col]) > Math.abs(a[pivot][col])) {
-                    pivot = r;
-                }
-            }
-            if (Math.abs(a[pivot][col]) < 1e-12) {
-                // Too few distinct valve openings for a curve: fall back to a weighted constant.
-                return constant(y, w);
-            }
-            double[] t = a[col];
-            a[col] = a[pivot];
-            a[pivot] = t;
-            for (int r = 0; r < 3; r++) {
-                if (r != col) {
-                    double f = a[r][col] / a[col][col];
-                    for (int s = col; s < 4; s++) {
-                        a[r][s] -= f * a[col][s];
-                    }
-                }
-            }
-        }
-        return new double[] {a[0][3] / a[0][0], a[1][3] / a[1][1], a[2][3] / a[2][2]};
+        double[] c = solve(a);
+        // Too few distinct valve openings for a curve: fall back to a weighted constant.
+        return c != null ? c : constant(y, w);
     }
 
     private static double[] constant(double[] y, double[] w) {

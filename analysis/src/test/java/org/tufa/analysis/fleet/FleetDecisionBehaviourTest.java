@@ -78,6 +78,26 @@ class FleetDecisionBehaviourTest {
     }
 
     /**
+     * Unit 2's fan is a three-speed one on a manual switch ({@link SyntheticUnit#stageTheFan}): at the same valve
+     * opening the low stage cools the air more than the high one, which runs only on the afternoons of a four-day
+     * hot spell. Read with the fan's speed, each stage is judged on its own offset of the coil curve, learnt from
+     * the mornings and afternoons of the same days, and nothing is raised. (Measured: with the high stage running
+     * all day on those days, alone, there is no same-day contrast, the stage keeps the offset of the one below,
+     * and those days are a coil-residual finding: from its own data such a unit cannot be told from a fault.)
+     */
+    @Test
+    void aHealthyThreeSpeedFanRaisesNothingWhenItsSpeedIsRead() {
+        FleetDecision.Decision d = decide((k, u) -> {
+            if (k == 2) {
+                u.stageTheFan();
+            }
+        });
+        for (int k = 0; k < UNITS; k++) {
+            assertEquals(List.of(), listed(d, k), describe(d));
+        }
+    }
+
+    /**
      * A discharge sensor reading 3 K high from the first day on unit 3: every day of the unit is alike, so the
      * unit's own days show nothing, but its fan-only discharge offset sits at +3.3 K against its peers' +0.3 K
      * (fan heat), ten robust spreads and more past them: a finding that it differs from its peers.

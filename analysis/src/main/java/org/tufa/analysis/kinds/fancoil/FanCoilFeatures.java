@@ -3,6 +3,7 @@ package org.tufa.analysis.kinds.fancoil;
 import java.util.ArrayList;
 import java.util.List;
 import org.tufa.analysis.features.CoilResponse;
+import org.tufa.analysis.features.FanStages;
 import org.tufa.analysis.features.FeatureMatrix;
 import org.tufa.analysis.features.RobustLine;
 import org.tufa.analysis.features.RollingMedian;
@@ -107,6 +108,32 @@ public final class FanCoilFeatures {
         };
     }
 
+    /** The UTC day of each sample, counted from the epoch: the blocks the coil's stage offsets are learnt in. */
+    private static int[] days(UnitSignals s, int[] samples) {
+        long start = s.time(0).getEpochSecond();
+        long step = s.interval().getSeconds();
+        int[] day = new int[samples.length];
+        for (int k = 0; k < samples.length; k++) {
+            day[k] = (int) Math.floorDiv(start + samples[k] * step, 86_400L);
+        }
+        return day;
+    }
+
+    /** The entries of {@code a} where {@code keep} holds ({@code a} itself when keep is null). */
+    private static int[] only(int[] a, boolean[] keep) {
+        if (keep == null || a == null) {
+            return a;
+        }
+        int[] out = new int[a.length];
+        int m = 0;
+        for (int k = 0; k < a.length; k++) {
+            if (keep[k]) {
+                out[m++] = a[k];
+            }
+        }
+        return java.util.Arrays.copyOf(out, m);
+    }
+
     /** The entries of {@code a} where {@code keep} holds ({@code a} itself when keep is null). */
     private static double[] only(double[] a, boolean[] keep) {
         if (keep == null || a == null) {
@@ -144,7 +171,20 @@ public final class FanCoilFeatures {
                 wat[k] = sign * (zone[i] - water[i]);
             }
         }
-        CoilResponse response = CoilResponse.fit(only(v, learnFrom), only(air, learnFrom), only(wat, learnFrom));
+        double[] speed = s.fanSpeed();
+        double[] speedAt = null;
+        if (speed != null) {
+            speedAt = new double[n];
+            for (int k = 0; k < n; k++) {
+                speedAt[k] = speed[samples[k]];
+            }
+        }
+        // A staged fan's lower stages pass less air through the coil, which then changes its temperature more:
+        // the curve gets an offset per stage (CoilResponse), or normal operation splits by stage.
+        FanStages stages = FanStages.of(speedAt);
+        int[] stage = stages.count() == 0 ? null : stages.stageOfSample();
+        CoilResponse response = CoilResponse.fit(only(v, learnFrom), only(air, learnFrom), only(wat, learnFrom),
+                only(stage, learnFrom), stages.count(), only(days(s, samples), learnFrom));
         // A two-position valve toggles by design: its activity says nothing about loop stability, and clustering on
         // it only splits normal operation by how often the thermostat switched.
         boolean modulating = !ValveActivity.twoPosition(valve);
@@ -160,7 +200,8 @@ public final class FanCoilFeatures {
         }
         double[] rawResidual = new double[n];
         for (int k = 0; k < n; k++) {
-            rawResidual[k] = response.residual(v[k], air[k], hasWater ? wat[k] : Double.NaN);
+            rawResidual[k] = response.residual(v[k], air[k], hasWater ? wat[k] : Double.NaN,
+                    stage == null ? 0 : stage[k]);
         }
         if (!hasWater && hasOutdoor) {
             // Without a supply-water sensor the water temperature is unknown, but plants reset it on the outdoor
