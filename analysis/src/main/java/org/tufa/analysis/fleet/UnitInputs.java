@@ -57,7 +57,9 @@ public record UnitInputs(String unit, String label, String unitKind, Map<String,
      * number 0-3 is logged unitless, and a fraction's range (at most 2) would drop the top stages as logging errors.
      */
     public boolean hasPlausibleRange(String role) {
-        return !role.equals(UnitSignals.FAN_SPEED) && !(role.equals(UnitSignals.FAN_STATUS) && fanSignal == FanSignal.SPEED);
+        boolean speed = role.equals(UnitSignals.FAN_SPEED)
+                || role.equals(UnitSignals.FAN_STATUS) && fanSignal == FanSignal.SPEED;
+        return !speed;
     }
 
     private static boolean isSpeed(PointRef p) {
