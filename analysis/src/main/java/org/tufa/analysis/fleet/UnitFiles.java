@@ -16,15 +16,18 @@ import org.tufa.common.OutputFiles;
  * Writes one unit's files under {@code DIR/units/<folder>/}: {@code modes} (every sample's mode and band state),
  * {@code summary.json} (notes, clusters, shifts, PCA loadings, findings; written once the fleet stage has decided),
  * and per clustered mode {@code features}, {@code scores} and {@code reachability}. The per-sample tables are
- * Parquet ({@code .parquet}) or CSV ({@code .csv}), same columns either way ({@link SampleFormat}). Numbers are
- * written at full double precision, so the clustering can be re-run elsewhere and reproduces the ordering exactly.
+ * Parquet ({@code .parquet}) or CSV ({@code .csv}), same columns either way ({@link SampleFormat}). Features are
+ * written at full double precision, so the clustering can be re-run elsewhere from them (with the scaling and
+ * loadings of summary.json) and reproduces the ordering exactly. What is derived from them for plots and reading,
+ * the PCA scores and the reachability and core distances, is kept to single precision (7 significant digits,
+ * far finer than any sensor): it halves those tables, which were half the per-sample bytes of the 500-unit year.
  */
 public final class UnitFiles implements UnitSink {
 
     private static final List<SampleColumn> MODE_COLUMNS = List.of(SampleColumn.time("timestamp"),
             SampleColumn.text("mode"), SampleColumn.flag("in_band"));
     private static final List<SampleColumn> REACHABILITY_COLUMNS = List.of(SampleColumn.integer("order"),
-            SampleColumn.time("timestamp"), SampleColumn.real("reachability"), SampleColumn.real("core_distance"),
+            SampleColumn.time("timestamp"), SampleColumn.single("reachability"), SampleColumn.single("core_distance"),
             SampleColumn.integer("cluster"));
 
     private final Path unitsDir;
@@ -145,14 +148,14 @@ public final class UnitFiles implements UnitSink {
         List<SampleColumn> scoreColumns = new ArrayList<>();
         scoreColumns.add(SampleColumn.time("timestamp"));
         for (int k = 1; k <= pca.componentCount(); k++) {
-            scoreColumns.add(SampleColumn.real("pc" + k));
+            scoreColumns.add(SampleColumn.single("pc" + k));
         }
         SampleTable.write(dir, "scores", format, scoreColumns, t -> {
             double[][] scores = pca.scores();
             for (int i = 0; i < scores.length; i++) {
                 t.time(start + sample[i] * step, times[sample[i]]);
                 for (double v : scores[i]) {
-                    t.real(v);
+                    t.single(v);
                 }
                 t.endRow();
             }
@@ -164,8 +167,8 @@ public final class UnitFiles implements UnitSink {
                 int i = order[k];
                 t.integer(k);
                 t.time(start + sample[i] * step, times[sample[i]]);
-                t.real(o.reachabilityOf(i));
-                t.real(o.coreDistanceOf(i));
+                t.single(o.reachabilityOf(i));
+                t.single(o.coreDistanceOf(i));
                 t.integer(m.labels()[i]);
                 t.endRow();
             }

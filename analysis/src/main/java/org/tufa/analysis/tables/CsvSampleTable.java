@@ -56,6 +56,12 @@ final class CsvSampleTable implements SampleTable {
     }
 
     @Override
+    public void single(double value) throws IOException {
+        next();
+        out.write(SampleTable.csvSingle(value));
+    }
+
+    @Override
     public void integer(int value) throws IOException {
         next();
         out.write(Integer.toString(value));

@@ -95,6 +95,7 @@ final class ParquetSampleTable implements SampleTable {
                         .named(c.name());
                 case FLAG -> b.optional(PrimitiveTypeName.BOOLEAN).named(c.name());
                 case REAL -> b.required(PrimitiveTypeName.DOUBLE).named(c.name());
+                case SINGLE -> b.required(PrimitiveTypeName.FLOAT).named(c.name());
                 case INTEGER -> b.required(PrimitiveTypeName.INT32).named(c.name());
                 default -> throw new IllegalStateException(c.kind().toString());
             }
@@ -123,6 +124,12 @@ final class ParquetSampleTable implements SampleTable {
     @Override
     public void real(double value) {
         row.doubles[row.next] = value;
+        row.present[row.next++] = true;
+    }
+
+    @Override
+    public void single(double value) {
+        row.doubles[row.next] = (float) value;
         row.present[row.next++] = true;
     }
 
@@ -190,6 +197,7 @@ final class ParquetSampleTable implements SampleTable {
                     case TEXT -> consumer.addBinary(texts.computeIfAbsent((String) r.objects[i], Binary::fromString));
                     case FLAG -> consumer.addBoolean((Boolean) r.objects[i]);
                     case REAL -> consumer.addDouble(r.doubles[i]);
+                    case SINGLE -> consumer.addFloat((float) r.doubles[i]);
                     case INTEGER -> consumer.addInteger((int) r.longs[i]);
                     default -> throw new IllegalStateException(c.kind().toString());
                 }

@@ -18,6 +18,11 @@ public record SampleColumn(String name, Kind kind) {
         FLAG,
         /** A double at full precision: CSV Double.toString (inf, -inf, nan); Parquet DOUBLE. */
         REAL,
+        /**
+         * A number kept to single precision (about 7 significant digits), for values derived from the full-precision
+         * ones and read for plots: CSV Float.toString of the rounded value (inf, -inf, nan); Parquet FLOAT.
+         */
+        SINGLE,
         /** A whole number: CSV decimal; Parquet INT32. */
         INTEGER
     }
@@ -36,6 +41,10 @@ public record SampleColumn(String name, Kind kind) {
 
     public static SampleColumn real(String name) {
         return new SampleColumn(name, Kind.REAL);
+    }
+
+    public static SampleColumn single(String name) {
+        return new SampleColumn(name, Kind.SINGLE);
     }
 
     public static SampleColumn integer(String name) {

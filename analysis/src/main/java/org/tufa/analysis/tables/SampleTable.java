@@ -66,6 +66,18 @@ public interface SampleTable extends AutoCloseable {
         return Double.toString(v);
     }
 
+    /** A number rounded to single precision as tufa's CSV files write it: Float.toString; inf, -inf, nan. */
+    static String csvSingle(double v) {
+        float f = (float) v;
+        if (Float.isNaN(f)) {
+            return "nan";
+        }
+        if (Float.isInfinite(f)) {
+            return f > 0 ? "inf" : "-inf";
+        }
+        return Float.toString(f);
+    }
+
     /** A TIME value: the instant in epoch seconds, and its ISO-8601 text with offset (what CSV writes). */
     void time(long epochSecond, String text) throws IOException;
 
@@ -75,6 +87,9 @@ public interface SampleTable extends AutoCloseable {
     void flag(Boolean value) throws IOException;
 
     void real(double value) throws IOException;
+
+    /** A SINGLE value: rounded to the nearest float. */
+    void single(double value) throws IOException;
 
     void integer(int value) throws IOException;
 

@@ -83,7 +83,7 @@ public final class SampleTableReader {
 
     /**
      * @param file a {@code .parquet} table
-     * @param numberColumns columns of kind REAL or INTEGER
+     * @param numberColumns columns of kind REAL, SINGLE or INTEGER
      * @param textColumns columns of kind TEXT
      * @throws InputException when the file is missing, unreadable or lacks the columns
      */
@@ -102,9 +102,11 @@ public final class SampleTableReader {
                 times.add(Instant.ofEpochMilli(g.getLong(0, 0)));
                 double[] v = new double[numbers];
                 for (int j = 0; j < numbers; j++) {
-                    v[j] = schema.getType(j + 1).asPrimitiveType().getPrimitiveTypeName()
-                            == org.apache.parquet.schema.PrimitiveType.PrimitiveTypeName.INT32
-                            ? g.getInteger(j + 1, 0) : g.getDouble(j + 1, 0);
+                    v[j] = switch (schema.getType(j + 1).asPrimitiveType().getPrimitiveTypeName()) {
+                        case INT32 -> g.getInteger(j + 1, 0);
+                        case FLOAT -> g.getFloat(j + 1, 0);
+                        default -> g.getDouble(j + 1, 0);
+                    };
                 }
                 rows.add(v);
                 String[] t = new String[textColumns.size()];

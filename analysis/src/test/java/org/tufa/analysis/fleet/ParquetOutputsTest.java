@@ -44,7 +44,8 @@ import org.tufa.cli.Tufa;
 /**
  * The per-sample Parquet files read back by DuckDB (its own C++ Parquet reader, not parquet-java, through its JDBC
  * driver): the same column names in the same order as the CSV files of the same run, and the same values: times as
- * instants, doubles bit for bit (nan and inf included), whole numbers, flags with their empty cells. And tufa
+ * instants, doubles and single-precision floats bit for bit (nan and inf included), whole numbers, flags with their
+ * empty cells. And tufa
  * evaluate scores a Parquet run exactly as the CSV run.
  */
 class ParquetOutputsTest {
@@ -137,6 +138,15 @@ class ParquetOutputsTest {
                                 default -> Double.parseDouble(cell);
                             };
                             assertEquals(Double.doubleToLongBits(expected), Double.doubleToLongBits(rs.getDouble(c + 1)),
+                                    where);
+                        } else if (type.equals("FLOAT")) {
+                            float expected = switch (cell) {
+                                case "nan" -> Float.NaN;
+                                case "inf" -> Float.POSITIVE_INFINITY;
+                                case "-inf" -> Float.NEGATIVE_INFINITY;
+                                default -> Float.parseFloat(cell);
+                            };
+                            assertEquals(Float.floatToIntBits(expected), Float.floatToIntBits(rs.getFloat(c + 1)),
                                     where);
                         } else if (type.equals("INTEGER")) {
                             assertEquals(Integer.parseInt(cell), rs.getInt(c + 1), where);
