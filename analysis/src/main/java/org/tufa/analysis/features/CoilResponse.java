@@ -42,8 +42,6 @@ import java.util.Arrays;
  */
 public record CoilResponse(double[] coefficients, boolean usesWaterTemperature, double[] stageOffsets) {
 
-    /** Huber's tuning constant for 95 % efficiency at the normal distribution (Holland and Welsch 1977). */
-    private static final double HUBER_K = 1.345;
     private static final int ITERATIONS = 20;
     private static final double[] BAND_EDGES = {0.1, 0.2, 0.3, 0.4, 0.5, 0.6, 0.7, 0.8, 0.9, 1.0001};
 
@@ -148,13 +146,8 @@ public record CoilResponse(double[] coefficients, boolean usesWaterTemperature, 
             for (int i = 0; i < m; i++) {
                 res[i] = y[i] - eval(c, v[i]);
             }
-            double scale = 1.4826 * median(abs(res));
-            if (scale < 1e-9) {
+            if (!HuberWeights.reweight(res, w, 1e-9)) {
                 break;
-            }
-            for (int i = 0; i < m; i++) {
-                double u = Math.abs(res[i]) / (HUBER_K * scale);
-                w[i] = u <= 1 ? 1 : 1 / u;
             }
             double[] next = monotone(v, y, w);
             if (next == null) {
@@ -348,14 +341,6 @@ public record CoilResponse(double[] coefficients, boolean usesWaterTemperature, 
             sy += w[i] * y[i];
         }
         return sw == 0 ? null : new double[] {sy / sw, 0, 0};
-    }
-
-    private static double[] abs(double[] r) {
-        double[] a = new double[r.length];
-        for (int i = 0; i < r.length; i++) {
-            a[i] = Math.abs(r[i]);
-        }
-        return a;
     }
 
     private static double median(double[] v) {

@@ -14,7 +14,6 @@ import java.util.Arrays;
  */
 public record RobustLine(double intercept, double slope) {
 
-    private static final double HUBER_K = 1.345;
     private static final int ITERATIONS = 20;
 
     /** Fits the line to the pairs where both values are finite; a flat line at 0 when fewer than 3 are. */
@@ -56,18 +55,10 @@ public record RobustLine(double intercept, double slope) {
             b = sxx > 0 ? sxy / sxx : 0;
             a = my - b * mx;
             for (int i = 0; i < n; i++) {
-                r[i] = Math.abs(ys[i] - a - b * xs[i]);
+                r[i] = ys[i] - a - b * xs[i];
             }
-            double[] sorted = Arrays.copyOf(r, n);
-            Arrays.sort(sorted);
-            double median = n % 2 == 1 ? sorted[n / 2] : 0.5 * (sorted[n / 2 - 1] + sorted[n / 2]);
-            double scale = 1.4826 * median;
-            if (scale < 1e-12) {
+            if (!HuberWeights.reweight(r, w, 1e-12)) {
                 break;
-            }
-            for (int i = 0; i < n; i++) {
-                double u = r[i] / (HUBER_K * scale);
-                w[i] = u <= 1 ? 1 : 1 / u;
             }
         }
         return new RobustLine(a, b);

@@ -8,8 +8,7 @@ import java.util.Arrays;
  * {@code response = c1 v + c2 v^2 + offset(stage) + level(day)}. Each day's weighted mean is removed from the
  * response and from every regressor, and the demeaned response is regressed on the demeaned regressors; by the
  * Frisch-Waugh-Lovell theorem (Frisch and Waugh, Econometrica 1(4), 1933; Lovell, JASA 58(304), 1963) the
- * coefficients are those of the model with the day levels fitted. Huber weights (tuning constant 1.345 with the
- * MAD scale, as in {@link CoilResponse}) keep a minority of odd samples from moving the offsets; the weights enter
+ * coefficients are those of the model with the day levels fitted. Huber weights ({@link HuberWeights}) keep a minority of odd samples from moving the offsets; the weights enter
  * the day means too, so each round is an exact weighted within fit.
  *
  * <p>Why the day levels: whatever holds a whole day (a fault that lasts, the day's water temperature, a sensor's
@@ -18,7 +17,6 @@ import java.util.Arrays;
  */
 final class StageContrasts {
 
-    private static final double HUBER_K = 1.345;
     private static final int ITERATIONS = 20;
     /** Samples a stage needs on a day for the day to show it beside another stage (an hour at 15 minutes). */
     static final int MIN_SAMPLES_PER_DAY = 4;
@@ -130,17 +128,8 @@ final class StageContrasts {
                 break;
             }
             beta = next;
-            double[] abs = new double[n];
-            for (int i = 0; i < n; i++) {
-                abs[i] = Math.abs(residual[i]);
-            }
-            double scale = 1.4826 * org.tufa.analysis.band.Quantiles.medianInPlace(abs, n);
-            if (scale < 1e-12) {
+            if (!HuberWeights.reweight(residual, w, 1e-12)) {
                 break;
-            }
-            for (int i = 0; i < n; i++) {
-                double u = Math.abs(residual[i]) / (HUBER_K * scale);
-                w[i] = u <= 1 ? 1 : 1 / u;
             }
         }
         return beta;

@@ -184,7 +184,7 @@ public final class FanCoilFeatures {
         FanStages stages = FanStages.of(speedAt);
         int[] stage = stages.count() == 0 ? null : stages.stageOfSample();
         CoilResponse response = CoilResponse.fit(only(v, learnFrom), only(air, learnFrom), only(wat, learnFrom),
-                only(stage, learnFrom), stages.count(), only(days(s, samples), learnFrom));
+                only(stage, learnFrom), stages.count(), stage == null ? null : only(days(s, samples), learnFrom));
         // A two-position valve toggles by design: its activity says nothing about loop stability, and clustering on
         // it only splits normal operation by how often the thermostat switched.
         boolean modulating = !ValveActivity.twoPosition(valve);
